@@ -1,0 +1,28 @@
+//! Roof framing geometry for Pitchframe.
+//!
+//! This crate is pure computation: it knows nothing of screens, paper or
+//! files on disk beyond parsing the plan text it is handed.
+//!
+//! # Conventions
+//! - **Axes:** plan X and Y are level, Z is up; right-handed. Seen from
+//!   above, the outer wall outline is stored counter-clockwise whatever
+//!   order the user gave (indices still follow the user's file order).
+//! - **Base unit:** every length inside this crate is in inches, as `f64`.
+//!   Millimetres and feet exist only at the edges ([`Length`] parsing and
+//!   formatting).
+//! - **Wall line:** outline corners lie on the outside face of the wall
+//!   framing at the top of the top plate. Roof planes have height 0 along
+//!   their wall line and rise inward at their pitch.
+//! - **Angles:** radians inside; degrees and "x in 12" only at the edges.
+//! - **Slopes:** a pitch is stored as rise per unit run (`tan` of the pitch
+//!   angle); 6 in 12 is `0.5`.
+//! - **Indices:** walls and corners are numbered in file order from 0 in
+//!   data (JSON, structs) and from 1 in messages meant for people.
+//! - **Rounding:** numbers are rounded only when displayed, never inside a
+//!   calculation.
+
+pub mod outline;
+pub mod roof;
+
+pub use outline::{Outline, OutlineError, Wall, WallRoof};
+pub use roof::{GableFace, Roof, RoofError, RoofLine, RoofLineKind, RoofPlane};

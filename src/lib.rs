@@ -1,0 +1,1 @@
+//! Cross-crate checks for Pitchframe; see `tests/` and `examples/`.
