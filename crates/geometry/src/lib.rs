@@ -21,8 +21,12 @@
 //! - **Rounding:** numbers are rounded only when displayed, never inside a
 //!   calculation.
 
+pub mod length;
 pub mod outline;
+pub mod pitch;
 pub mod roof;
 
+pub use length::{Length, LengthError, LengthStyle, LengthUnit};
 pub use outline::{Outline, OutlineError, Wall, WallRoof};
+pub use pitch::{Pitch, PitchError};
 pub use roof::{GableFace, Roof, RoofError, RoofLine, RoofLineKind, RoofPlane};
