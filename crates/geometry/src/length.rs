@@ -227,7 +227,9 @@ fn format_sixteenths(inches: f64, with_feet: bool) -> String {
     let whole_inches = (rest / 16.0).floor();
     // `rest - whole * 16` is an exact small integer in 0..16.
     let sixteenths = (rest - whole_inches * 16.0) as u32;
-    let inch_text = match (whole_inches == 0.0, reduced_fraction(sixteenths)) {
+    // After feet, zero inches are written out (`1' 0-5/8"`) so the fraction
+    // cannot be misread as whole inches.
+    let inch_text = match (whole_inches == 0.0 && feet == 0.0, reduced_fraction(sixteenths)) {
         (_, None) => format!("{whole_inches:.0}\""),
         (true, Some(fraction)) => format!("{fraction}\""),
         (false, Some(fraction)) => format!("{whole_inches:.0}-{fraction}\""),
@@ -635,7 +637,7 @@ mod tests {
         assert_eq!(f(5.97), "6\"");
         assert_eq!(f(-294.375), "-24' 6-3/8\"");
         assert_eq!(f(0.5), "1/2\"");
-        assert_eq!(f(24.5), "2' 1/2\"");
+        assert_eq!(f(24.5), "2' 0-1/2\"");
         assert_eq!(Length::from_inches(-0.0001).format(LengthStyle::DecimalInches), "0.000\"");
         assert_eq!(Length::from_inches(-0.001).format(LengthStyle::Millimetres), "0 mm");
     }
