@@ -21,12 +21,18 @@
 //! - **Rounding:** numbers are rounded only when displayed, never inside a
 //!   calculation.
 
+pub mod compound_cut;
 pub mod length;
+pub mod member_size;
 pub mod outline;
 pub mod pitch;
+pub mod rafter_table;
 pub mod roof;
 
+pub use compound_cut::{CompoundCut, CutAngles, CutWarning, MiterSetting, SquareFigures};
 pub use length::{Length, LengthError, LengthStyle, LengthUnit};
+pub use member_size::{MemberSize, MemberSizeError};
 pub use outline::{Outline, OutlineError, Wall, WallRoof};
 pub use pitch::{Pitch, PitchError};
+pub use rafter_table::{AngleSetting, MarkAlong, MetricRafterTable, RafterTable, SquareSetting};
 pub use roof::{GableFace, Roof, RoofError, RoofLine, RoofLineKind, RoofPlane};
