@@ -21,6 +21,8 @@ use std::fmt;
 
 use glam::{DQuat, DVec3};
 
+use crate::AngleSetting;
+
 /// The four angles of a compound cut, in radians.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct CutAngles {
@@ -245,6 +247,69 @@ impl CompoundCut {
             face_bevel_rad: bevel(side_line, side_normal),
             edge_bevel_rad: bevel(top_line, top_normal),
         }
+    }
+
+    /// Every angle of the cut in degrees, each with its setup in words, in
+    /// the order a framer works: mark the lines, then set the saw.
+    pub fn settings(&self) -> Vec<AngleSetting> {
+        let deg = |rad: f64| rad.to_degrees();
+        let plumb = self.plumb_square_figures();
+        let mut settings = vec![AngleSetting {
+            degrees: deg(self.plumb_line_from_square_rad()),
+            setup: format!(
+                "plumb line on the side face, {:.1} deg from square (square: 12 and {:.3}, mark \
+                 along the {:.3} arm)",
+                deg(self.plumb_line_from_square_rad()),
+                plumb.figure,
+                plumb.figure
+            ),
+        }];
+        let top = self.top_edge_line_from_square_rad();
+        let top_setup = match self.top_edge_square_figures() {
+            Some(figures) => format!(
+                "cheek line across the top edge, {:.1} deg from square (square: 12 and {:.3}, mark \
+                 along the 12 arm); a line angle, not a saw bevel",
+                deg(top),
+                figures.against
+            ),
+            None => "line across the top edge: square".to_string(),
+        };
+        settings.push(AngleSetting { degrees: deg(top), setup: top_setup });
+        let flat = self.miter_saw_flat();
+        let on_edge = self.miter_saw_on_edge();
+        settings.extend([
+            AngleSetting {
+                degrees: deg(self.face_bevel_rad()),
+                setup: format!(
+                    "circular saw riding the side face along the plumb line: bevel {:.1} deg",
+                    deg(self.face_bevel_rad())
+                ),
+            },
+            AngleSetting {
+                degrees: deg(self.edge_bevel_rad()),
+                setup: format!(
+                    "circular saw riding the top edge along the cheek line: bevel {:.1} deg",
+                    deg(self.edge_bevel_rad())
+                ),
+            },
+            AngleSetting {
+                degrees: deg(flat.miter_rad),
+                setup: format!(
+                    "miter saw, member flat on its side face: miter {:.1} deg, bevel {:.1} deg",
+                    deg(flat.miter_rad),
+                    deg(flat.bevel_rad)
+                ),
+            },
+            AngleSetting {
+                degrees: deg(on_edge.miter_rad),
+                setup: format!(
+                    "miter saw, member standing on its top edge: miter {:.1} deg, bevel {:.1} deg",
+                    deg(on_edge.miter_rad),
+                    deg(on_edge.bevel_rad)
+                ),
+            },
+        ]);
+        settings
     }
 
     /// The bevels a saw tilting at most `max_bevel_rad` cannot make, each

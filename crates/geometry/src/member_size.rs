@@ -248,4 +248,20 @@ mod tests {
         assert!(matches!(e(""), Some(MemberSizeError::Empty)));
         assert!(MemberSize::custom(Length::from_inches(f64::NAN), Length::from_inches(3.0)).is_err());
     }
+
+    proptest::proptest! {
+        #[test]
+        fn parse_never_panics(text in "\\PC{0,24}") {
+            let _ = MemberSize::parse(&text, LengthUnit::Inch);
+            let _ = MemberSize::parse(&text, LengthUnit::Millimetre);
+        }
+
+        #[test]
+        fn parsed_sizes_are_positive(text in "[0-9 ./x\"m-]{0,14}") {
+            if let Ok(size) = MemberSize::parse(&text, LengthUnit::Inch) {
+                proptest::prop_assert!(size.thickness().inches() > 0.0);
+                proptest::prop_assert!(size.thickness() <= size.depth());
+            }
+        }
+    }
 }

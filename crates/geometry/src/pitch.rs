@@ -213,9 +213,16 @@ impl Pitch {
 
 impl fmt::Display for Pitch {
     /// The "x in 12" form with up to three decimals, trailing zeros
-    /// dropped: `6/12`, `9.5/12`.
+    /// dropped: `6/12`, `9.5/12` (more decimals only for a rise too small
+    /// to show in three).
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        write!(f, "{}/12", trimmed_decimals(self.rise_in_12(), 3))
+        let rise = self.rise_in_12();
+        if rise < 0.0005 {
+            // Three decimals would print 0/12, which is no pitch at all;
+            // write the shortest text that reads back exactly instead.
+            return write!(f, "{rise}/12");
+        }
+        write!(f, "{}/12", trimmed_decimals(rise, 3))
     }
 }
 

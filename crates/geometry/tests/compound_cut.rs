@@ -57,6 +57,18 @@ fn four_in_twelve_jack() {
 }
 
 #[test]
+fn every_angle_comes_with_its_setup() {
+    let cut = CompoundCut::new((4.0f64 / 12.0).atan(), deg(45.0)).unwrap();
+    let settings = cut.settings();
+    assert_eq!(settings.len(), 6);
+    for setting in &settings {
+        // Each setup names its tool or face and repeats the number it goes with.
+        assert!(setting.setup.contains(&format!("{:.1} deg", setting.degrees)), "{}", setting.setup);
+    }
+    assert!(settings[1].setup.contains("not a saw bevel"));
+}
+
+#[test]
 fn warnings_flag_bevels_past_the_saw() {
     // A 60 deg plan angle at 12/12: face bevel 60, edge bevel
     // asin(cos 60 sin 45) = 20.7 deg (derivation).
