@@ -1,0 +1,177 @@
+//! The app: the document, what is derived from it, and the commands that
+//! change either.
+
+use std::sync::{Arc, Mutex};
+
+use anyhow::Context as _;
+use glam::DVec2;
+use pitchframe_geometry::{Outline, Pitch};
+
+use super::ViewPreset;
+use super::camera::OrbitCamera;
+use super::pick::pick;
+use super::picture::PictureJob;
+use super::scene::{
+    DEMO_RISE_PER_RUN, DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN, Scene, temporary_demo_outline,
+};
+use super::side_panel::side_panel_ui;
+use super::viewport::{Renderer, viewport_ui};
+
+/// What the user edits; everything drawn is derived from it.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Document {
+    /// The wall outline on the wall line.
+    pub outline: Outline,
+    /// The roof's pitch.
+    pub pitch: Pitch,
+    /// Floor to the top of the top plate, in inches.
+    pub wall_height_in: f64,
+    /// Wall thickness, in inches.
+    pub wall_thickness_in: f64,
+}
+
+impl Document {
+    /// The built-in demo house.
+    pub fn demo() -> anyhow::Result<Self> {
+        Ok(Self {
+            outline: temporary_demo_outline(),
+            pitch: Pitch::from_rise_per_run(DEMO_RISE_PER_RUN).context("the demo pitch")?,
+            wall_height_in: DEMO_WALL_HEIGHT_IN,
+            wall_thickness_in: DEMO_WALL_THICKNESS_IN,
+        })
+    }
+}
+
+/// A change asked for during a frame, applied after it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Command {
+    /// Turn the camera to a preset direction.
+    SetView(ViewPreset),
+    /// Select what lies under a click in the 3D view (nothing if empty),
+    /// given from the view's top-left in points, with the view's size.
+    PickAt {
+        /// The click position.
+        at: DVec2,
+        /// The view's size.
+        view_size: DVec2,
+    },
+}
+
+/// What the user has picked in the 3D view.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Selection {
+    /// Index into the scene's parts.
+    pub part: usize,
+}
+
+/// Keys that turn the camera to each preset.
+const VIEW_KEYS: [(egui::Key, ViewPreset); 6] = [
+    (egui::Key::C, ViewPreset::Corner),
+    (egui::Key::T, ViewPreset::Top),
+    (egui::Key::F, ViewPreset::Front),
+    (egui::Key::B, ViewPreset::Back),
+    (egui::Key::L, ViewPreset::Left),
+    (egui::Key::R, ViewPreset::Right),
+];
+
+/// The running window.
+pub struct PitchframeApp {
+    document: Document,
+    scene: Arc<Scene>,
+    camera: OrbitCamera,
+    renderer: Arc<Mutex<Renderer>>,
+    picture: Option<PictureJob>,
+    selection: Option<Selection>,
+    commands: Vec<Command>,
+}
+
+impl PitchframeApp {
+    /// Sets up the app on the window's GL context.
+    pub fn new(
+        gl: Arc<three_d::context::Context>,
+        document: Document,
+        view: ViewPreset,
+        picture: Option<PictureJob>,
+    ) -> anyhow::Result<Self> {
+        let renderer = Renderer::new(gl).context("three-d could not use the window's GL context")?;
+        let scene = Arc::new(scene_for(&document));
+        let camera = OrbitCamera::framing(scene.min, scene.max, view);
+        Ok(Self {
+            document,
+            scene,
+            camera,
+            renderer: Arc::new(Mutex::new(renderer)),
+            picture,
+            selection: None,
+            commands: Vec::new(),
+        })
+    }
+
+    fn toolbar_ui(&mut self, ui: &mut egui::Ui) {
+        ui.horizontal(|ui| {
+            ui.label("View:");
+            for view in ViewPreset::ALL {
+                let key = VIEW_KEYS.iter().find(|(_, v)| *v == view).map(|(key, _)| key.name());
+                let button = ui.button(view.label());
+                let button = match key {
+                    Some(key) => button.on_hover_text(format!("Key: {key}")),
+                    None => button,
+                };
+                if button.clicked() {
+                    self.commands.push(Command::SetView(view));
+                }
+            }
+        });
+    }
+
+    fn shortcuts(&mut self, ctx: &egui::Context) {
+        // Typing in a text field must not turn the camera.
+        if ctx.egui_wants_keyboard_input() {
+            return;
+        }
+        for (key, view) in VIEW_KEYS {
+            if ctx.input(|input| input.key_pressed(key)) {
+                self.commands.push(Command::SetView(view));
+            }
+        }
+    }
+
+    fn apply_commands(&mut self) {
+        for command in std::mem::take(&mut self.commands) {
+            match command {
+                Command::SetView(view) => self.camera.set_view(view),
+                Command::PickAt { at, view_size } => {
+                    let ray = self.camera.ray(at, view_size);
+                    self.selection = pick(&self.scene, &ray).map(|hit| Selection { part: hit.part });
+                }
+            }
+        }
+    }
+}
+
+/// Everything drawn, derived from the document.
+fn scene_for(document: &Document) -> Scene {
+    Scene::build(&document.outline, document.wall_height_in, document.wall_thickness_in)
+}
+
+impl eframe::App for PitchframeApp {
+    fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
+        let ctx = ui.ctx().clone();
+        self.shortcuts(&ctx);
+        egui::Panel::top("toolbar").show(ui, |ui| self.toolbar_ui(ui));
+        egui::Panel::left("numbers").default_size(280.0).show(ui, |ui| {
+            let selected = self.selection.and_then(|selection| self.scene.parts.get(selection.part));
+            side_panel_ui(ui, &self.document, selected);
+        });
+        egui::CentralPanel::no_frame().show(ui, |ui| {
+            let input = viewport_ui(ui, &self.renderer, &self.scene, &mut self.camera);
+            if let Some(at) = input.clicked_at {
+                self.commands.push(Command::PickAt { at, view_size: input.view_size });
+            }
+        });
+        self.apply_commands();
+        if let Some(picture) = &mut self.picture {
+            picture.on_frame(&ctx);
+        }
+    }
+}

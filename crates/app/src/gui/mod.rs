@@ -1,0 +1,146 @@
+//! The desktop window: a 3D view of the house and its roof frame, with the
+//! numbers a framer reads beside it.
+//!
+//! Layout of this module: `app` owns the document and applies commands,
+//! `camera` is the orbit camera (plain f64 maths, no GL), `scene` turns the
+//! geometry crate's output into triangle lists, `viewport` draws those with
+//! three-d inside an egui paint callback, `side_panel` shows the numbers and
+//! `picture` saves a screenshot for `--picture`.
+
+mod app;
+mod camera;
+mod pick;
+mod picture;
+mod scene;
+mod side_panel;
+mod viewport;
+
+use std::path::PathBuf;
+use std::sync::{Arc, Mutex};
+
+use anyhow::{Context as _, anyhow};
+
+use app::PitchframeApp;
+use picture::PictureJob;
+
+/// What the window is asked to do when it starts.
+#[derive(Debug, Clone, Default)]
+pub struct GuiOptions {
+    /// The plan file to open; the built-in demo house when `None`.
+    pub plan_path: Option<PathBuf>,
+    /// Save a PNG of the first full frame here, then exit.
+    pub picture: Option<PathBuf>,
+    /// The camera direction the window opens with.
+    pub view: ViewPreset,
+}
+
+/// A preset camera direction for the 3D view.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, clap::ValueEnum)]
+pub enum ViewPreset {
+    /// From above a front corner, looking down at the house.
+    #[default]
+    Corner,
+    /// Straight down on the plan.
+    Top,
+    /// From the front (the low-Y side of the plan).
+    Front,
+    /// From the back (the high-Y side of the plan).
+    Back,
+    /// From the left (the low-X side of the plan).
+    Left,
+    /// From the right (the high-X side of the plan).
+    Right,
+}
+
+impl ViewPreset {
+    /// Every preset, in toolbar order.
+    pub const ALL: [ViewPreset; 6] = [
+        ViewPreset::Corner,
+        ViewPreset::Top,
+        ViewPreset::Front,
+        ViewPreset::Back,
+        ViewPreset::Left,
+        ViewPreset::Right,
+    ];
+
+    /// The preset's name on its toolbar button.
+    pub fn label(self) -> &'static str {
+        match self {
+            ViewPreset::Corner => "Corner",
+            ViewPreset::Top => "Top",
+            ViewPreset::Front => "Front",
+            ViewPreset::Back => "Back",
+            ViewPreset::Left => "Left",
+            ViewPreset::Right => "Right",
+        }
+    }
+}
+
+/// The start of the message shown when no OpenGL context can be made.
+const NO_GL_MESSAGE: &str = "Pitchframe needs OpenGL 3.3 or software OpenGL (Mesa llvmpipe); \
+                             could not create a GL context";
+
+/// Opens the Pitchframe window and runs it until it is closed (or, with
+/// `picture`, until the picture is saved).
+pub fn run(options: GuiOptions) -> anyhow::Result<()> {
+    if let Some(path) = &options.plan_path {
+        return Err(anyhow!(
+            "cannot open {}: reading plan files is not available yet; \
+             run without a plan to see the demo house",
+            path.display()
+        ));
+    }
+    let document = app::Document::demo()?;
+    let picture = options.picture.clone().map(PictureJob::new);
+    let picture_outcome = picture.as_ref().map(PictureJob::outcome);
+
+    let native_options = eframe::NativeOptions {
+        viewport: egui::ViewportBuilder::default().with_title("Pitchframe").with_inner_size([1200.0, 760.0]),
+        renderer: eframe::Renderer::Glow,
+        // The 3D view needs a depth buffer; egui alone draws without one.
+        depth_buffer: 24,
+        ..Default::default()
+    };
+
+    // The app creator cannot hand back a typed error, so a missing GL
+    // context is recorded here and reported after the event loop ends.
+    let gl_failure: Arc<Mutex<Option<String>>> = Arc::default();
+    let gl_failure_in_creator = Arc::clone(&gl_failure);
+    let view = options.view;
+    let result = eframe::run_native(
+        "Pitchframe",
+        native_options,
+        Box::new(move |cc| {
+            let Some(gl) = cc.gl.clone() else {
+                let reason = "the window has no OpenGL context".to_owned();
+                record(&gl_failure_in_creator, reason.clone());
+                return Err(reason.into());
+            };
+            match PitchframeApp::new(gl, document, view, picture) {
+                Ok(app) => Ok(Box::new(app)),
+                Err(err) => {
+                    record(&gl_failure_in_creator, format!("{err:#}"));
+                    Err(err.into())
+                }
+            }
+        }),
+    );
+
+    if let Some(reason) = gl_failure.lock().ok().and_then(|mut slot| slot.take()) {
+        return Err(anyhow!("{NO_GL_MESSAGE}: {reason}"));
+    }
+    // Every error eframe returns before the first frame is about making the
+    // window or its GL context.
+    result.map_err(|err| anyhow!("{NO_GL_MESSAGE}: {err}"))?;
+    if let Some(outcome) = picture_outcome {
+        outcome.finish().context("the picture was not saved")?;
+    }
+    Ok(())
+}
+
+/// Keeps the first failure reason; later ones add nothing.
+fn record(slot: &Mutex<Option<String>>, reason: String) {
+    if let Ok(mut slot) = slot.lock() {
+        slot.get_or_insert(reason);
+    }
+}

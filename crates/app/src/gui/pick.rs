@@ -1,0 +1,105 @@
+//! Picking: which drawn part a click lands on, by a ray against the
+//! scene's triangles.
+
+use glam::DVec3;
+
+use super::camera::Ray;
+use super::scene::{Scene, Triangles};
+
+/// Where a ray first meets the scene.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Hit {
+    /// Index of the part hit, in [`Scene::parts`].
+    pub part: usize,
+    /// Index of the triangle hit within that part.
+    pub triangle: usize,
+    /// Distance from the ray's origin, in inches.
+    pub distance_in: f64,
+}
+
+/// The nearest part the ray meets, if any.
+pub fn pick(scene: &Scene, ray: &Ray) -> Option<Hit> {
+    scene
+        .parts
+        .iter()
+        .enumerate()
+        .filter_map(|(part, scene_part)| {
+            nearest_triangle(&scene_part.triangles, ray).map(|(triangle, distance_in)| Hit {
+                part,
+                triangle,
+                distance_in,
+            })
+        })
+        .min_by(|a, b| a.distance_in.total_cmp(&b.distance_in))
+}
+
+/// The nearest triangle the ray meets, with its distance.
+fn nearest_triangle(triangles: &Triangles, ray: &Ray) -> Option<(usize, f64)> {
+    triangles
+        .corners
+        .chunks_exact(3)
+        .enumerate()
+        .filter_map(|(index, corners)| match corners {
+            [a, b, c] => ray_triangle(ray, *a, *b, *c).map(|distance| (index, distance)),
+            _ => None,
+        })
+        .min_by(|a, b| a.1.total_cmp(&b.1))
+}
+
+/// Distance along the ray to the triangle `a b c` (either side), by the
+/// Moller-Trumbore method: solve origin + t dir = a + u (b - a) + v (c - a).
+fn ray_triangle(ray: &Ray, a: DVec3, b: DVec3, c: DVec3) -> Option<f64> {
+    let edge1 = b - a;
+    let edge2 = c - a;
+    let p = ray.direction.cross(edge2);
+    let determinant = edge1.dot(p);
+    // A ray in the triangle's plane (or a degenerate triangle) meets no area.
+    if determinant.abs() < 1e-12 * edge1.length() * edge2.length() {
+        return None;
+    }
+    let to_origin = ray.origin - a;
+    let u = to_origin.dot(p) / determinant;
+    if !(0.0..=1.0).contains(&u) {
+        return None;
+    }
+    let q = to_origin.cross(edge1);
+    let v = ray.direction.dot(q) / determinant;
+    if v < 0.0 || u + v > 1.0 {
+        return None;
+    }
+    let t = edge2.dot(q) / determinant;
+    (t > 0.0).then_some(t)
+}
+
+#[cfg(test)]
+mod tests {
+    use approx::assert_abs_diff_eq;
+
+    use super::*;
+
+    fn down_from(x: f64, y: f64) -> Ray {
+        Ray { origin: DVec3::new(x, y, 100.0), direction: DVec3::NEG_Z }
+    }
+
+    #[test]
+    fn ray_meets_a_triangle_inside_and_misses_outside() {
+        let (a, b, c) = (DVec3::ZERO, DVec3::X * 10.0, DVec3::Y * 10.0);
+        // Derivation: the triangle lies in z = 0, 100 below the origin.
+        assert_abs_diff_eq!(ray_triangle(&down_from(2.0, 2.0), a, b, c).unwrap(), 100.0, epsilon = 1e-12);
+        assert_eq!(ray_triangle(&down_from(6.0, 6.0), a, b, c), None);
+        // Behind the origin does not count.
+        let up = Ray { origin: DVec3::new(2.0, 2.0, 100.0), direction: DVec3::Z };
+        assert_eq!(ray_triangle(&up, a, b, c), None);
+    }
+
+    #[test]
+    fn pick_finds_the_wall_top_under_a_ray_from_above() {
+        use super::super::scene::{DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN, temporary_demo_outline};
+        let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
+        // 3 in inside the front wall's outside face: on the wall's top.
+        let hit = pick(&scene, &down_from(100.0, 3.0)).unwrap();
+        assert_abs_diff_eq!(hit.distance_in, 100.0 - DEMO_WALL_HEIGHT_IN, epsilon = 1e-9);
+        // The middle of the main room holds no wall.
+        assert_eq!(pick(&scene, &down_from(240.0, 144.0)), None);
+    }
+}

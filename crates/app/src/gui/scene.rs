@@ -1,0 +1,233 @@
+//! Turns the geometry crate's outline, roof and members into triangle lists
+//! the viewport can draw and the picker can hit. Lengths stay in f64 inches
+//! here; the viewport converts to f32 when it uploads.
+
+use glam::{DVec2, DVec3};
+use pitchframe_geometry::{Outline, Wall, WallRoof};
+
+/// What a group of triangles shows, which sets its colour.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum PartKind {
+    /// The house walls, from floor to the top of the top plate.
+    Walls,
+}
+
+/// Flat-shaded triangles: three corners per triangle and one normal each.
+#[derive(Debug, Clone, Default, PartialEq)]
+pub struct Triangles {
+    /// Triangle corners, three per triangle, in inches.
+    pub corners: Vec<DVec3>,
+    /// One outward unit normal per triangle.
+    pub normals: Vec<DVec3>,
+}
+
+impl Triangles {
+    /// Adds the planar quad `a b c d` (counter-clockwise seen from outside).
+    fn push_quad(&mut self, a: DVec3, b: DVec3, c: DVec3, d: DVec3) {
+        let normal = (b - a).cross(d - a).normalize_or_zero();
+        self.corners.extend_from_slice(&[a, b, c, a, c, d]);
+        self.normals.extend_from_slice(&[normal, normal]);
+    }
+
+    /// Number of triangles.
+    pub fn len(&self) -> usize {
+        self.normals.len()
+    }
+}
+
+/// One drawable group of triangles.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ScenePart {
+    /// What it shows.
+    pub kind: PartKind,
+    /// Its triangles.
+    pub triangles: Triangles,
+}
+
+/// Everything the 3D view draws, derived from the document.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Scene {
+    /// Drawable groups.
+    pub parts: Vec<ScenePart>,
+    /// Lowest corner of the box holding every part.
+    pub min: DVec3,
+    /// Highest corner of that box.
+    pub max: DVec3,
+}
+
+impl Scene {
+    /// Builds the scene for an outline with walls of the given height and
+    /// thickness.
+    pub fn build(outline: &Outline, wall_height_in: f64, wall_thickness_in: f64) -> Self {
+        let walls = wall_triangles(outline, wall_height_in, wall_thickness_in);
+        let parts = vec![ScenePart { kind: PartKind::Walls, triangles: walls }];
+        let (min, max) = bounds(&parts);
+        Self { parts, min, max }
+    }
+}
+
+/// The box round every triangle corner; a unit box at the origin when empty.
+fn bounds(parts: &[ScenePart]) -> (DVec3, DVec3) {
+    let mut corners = parts.iter().flat_map(|part| part.triangles.corners.iter().copied());
+    let Some(first) = corners.next() else {
+        return (DVec3::ZERO, DVec3::ONE);
+    };
+    corners.fold((first, first), |(min, max), p| (min.min(p), max.max(p)))
+}
+
+/// Walls stood on every ring of the outline: outside face on the wall line,
+/// inside face `thickness` in, tops level at `height`.
+fn wall_triangles(outline: &Outline, height_in: f64, thickness_in: f64) -> Triangles {
+    let mut triangles = Triangles::default();
+    let corners = |ring: &[Wall]| ring.iter().map(|wall| wall.corner).collect::<Vec<_>>();
+    // The building lies inside the outer ring and outside each courtyard
+    // ring; each ring is turned so the building is on its left.
+    let mut outer = corners(outline.outer());
+    if signed_area(&outer) < 0.0 {
+        outer.reverse();
+    }
+    add_ring(&mut triangles, &outer, height_in, thickness_in);
+    for ring in outline.courtyards() {
+        let mut ring = corners(ring);
+        if signed_area(&ring) > 0.0 {
+            ring.reverse();
+        }
+        add_ring(&mut triangles, &ring, height_in, thickness_in);
+    }
+    triangles
+}
+
+/// The signed area of a ring, positive when counter-clockwise.
+fn signed_area(ring: &[DVec2]) -> f64 {
+    let count = ring.len();
+    (0..count).map(|i| ring[i].perp_dot(ring[(i + 1) % count])).sum::<f64>() / 2.0
+}
+
+/// One closed ring of wall whose building side is on the ring's left.
+fn add_ring(triangles: &mut Triangles, outer: &[DVec2], height_in: f64, thickness_in: f64) {
+    let Some(inner) = inset_ring(outer, thickness_in) else {
+        return;
+    };
+    let up = DVec3::Z * height_in;
+    let count = outer.len();
+    for i in 0..count {
+        let j = (i + 1) % count;
+        let (o0, o1) = (outer[i].extend(0.0), outer[j].extend(0.0));
+        let (i0, i1) = (inner[i].extend(0.0), inner[j].extend(0.0));
+        // Outside face, seen from outside: bottom left to right, then up.
+        triangles.push_quad(o0, o1, o1 + up, o0 + up);
+        // Inside face, seen from the room.
+        triangles.push_quad(i1, i0, i0 + up, i1 + up);
+        // Top of the wall.
+        triangles.push_quad(o0 + up, o1 + up, i1 + up, i0 + up);
+    }
+}
+
+/// The ring offset `inset_in` to the left of each edge, corners mitred.
+/// `None` when two neighbouring edges fold back on each other (no mitre).
+fn inset_ring(ring: &[DVec2], inset_in: f64) -> Option<Vec<DVec2>> {
+    let count = ring.len();
+    let left_normal = |from: DVec2, to: DVec2| (to - from).normalize_or_zero().perp();
+    (0..count)
+        .map(|i| {
+            let prev = ring[(i + count - 1) % count];
+            let here = ring[i];
+            let next = ring[(i + 1) % count];
+            let n_in = left_normal(prev, here);
+            let n_out = left_normal(here, next);
+            // The mitre point lies inset from both edges: p . n_k = inset
+            // for both normals, solved as p = inset (n1 + n2) / (1 + n1.n2).
+            let denominator = 1.0 + n_in.dot(n_out);
+            (denominator > 1e-9).then(|| here + inset_in * (n_in + n_out) / denominator)
+        })
+        .collect()
+}
+
+/// Height of the demo house's walls: 8 ft.
+pub const DEMO_WALL_HEIGHT_IN: f64 = 96.0;
+/// Thickness of the demo house's walls: 6 in.
+pub const DEMO_WALL_THICKNESS_IN: f64 = 6.0;
+/// The demo house's pitch, rise per unit run: 6 in 12.
+pub const DEMO_RISE_PER_RUN: f64 = 0.5;
+
+/// TEMPORARY: an invented L-shaped house (40 ft x 24 ft main, 16 ft x 14 ft
+/// wing), to be replaced by the built-in demo plan from the geometry crate.
+pub fn temporary_demo_outline() -> Outline {
+    let roof = WallRoof::Pitched { rise_per_run: DEMO_RISE_PER_RUN };
+    let corners_ft = [(0.0, 0.0), (40.0, 0.0), (40.0, 24.0), (16.0, 24.0), (16.0, 38.0), (0.0, 38.0)];
+    let walls = corners_ft
+        .iter()
+        .map(|&(x, y)| Wall { corner: DVec2::new(x, y) * 12.0, roof, overhang_in: 12.0 })
+        .collect();
+    match Outline::new(walls, Vec::new()) {
+        Ok(outline) => outline,
+        // Six corners always pass; an empty outline draws nothing.
+        Err(_) => unreachable!("the demo outline has six corners"),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use approx::assert_abs_diff_eq;
+
+    use super::*;
+
+    #[test]
+    fn inset_of_a_square_is_a_smaller_square() {
+        let square =
+            [DVec2::new(0.0, 0.0), DVec2::new(10.0, 0.0), DVec2::new(10.0, 10.0), DVec2::new(0.0, 10.0)];
+        let inner = inset_ring(&square, 1.0).unwrap();
+        // Derivation: a counter-clockwise square inset by 1 on every side.
+        assert_abs_diff_eq!(inner[0].x, 1.0, epsilon = 1e-12);
+        assert_abs_diff_eq!(inner[0].y, 1.0, epsilon = 1e-12);
+        assert_abs_diff_eq!(inner[2].x, 9.0, epsilon = 1e-12);
+        assert_abs_diff_eq!(inner[2].y, 9.0, epsilon = 1e-12);
+    }
+
+    #[test]
+    fn demo_walls_fill_the_plan_and_stand_eight_feet() {
+        let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
+        // Derivation: the L spans 40 ft by 38 ft (24 + 14) in plan.
+        assert_abs_diff_eq!(scene.max.x - scene.min.x, 480.0, epsilon = 1e-9);
+        assert_abs_diff_eq!(scene.max.y - scene.min.y, 456.0, epsilon = 1e-9);
+        assert_abs_diff_eq!(scene.max.z, 96.0, epsilon = 1e-9);
+        // Six walls, three quads each, two triangles per quad.
+        assert_eq!(scene.parts[0].triangles.len(), 6 * 3 * 2);
+    }
+
+    #[test]
+    fn wall_top_area_is_perimeter_times_thickness_less_corners() {
+        let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
+        let tris = &scene.parts[0].triangles;
+        let top_area: f64 = tris
+            .corners
+            .chunks(3)
+            .zip(&tris.normals)
+            .filter(|(_, n)| n.z > 0.5)
+            .map(|(c, _)| (c[1] - c[0]).cross(c[2] - c[0]).length() / 2.0)
+            .sum();
+        // Derivation: area between the outline and its 6 in inset equals
+        // perimeter x t - t^2 x (convex corners - reflex corners) for a
+        // right-angled ring; the L has 5 convex corners and 1 reflex, and a
+        // perimeter of 2 x (40 + 38) ft = 1872 in.
+        let expected = 1872.0 * 6.0 - 36.0 * (5.0 - 1.0);
+        assert_abs_diff_eq!(top_area, expected, epsilon = 1e-6);
+        // Every top triangle faces up, every side one is level.
+        assert!(tris.normals.iter().all(|n| n.z.abs() < 1e-12 || (n.z - 1.0).abs() < 1e-12));
+    }
+
+    #[test]
+    fn outside_faces_point_away_from_the_house() {
+        let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
+        let tris = &scene.parts[0].triangles;
+        // The front wall's outside face lies on y = 0; it must face -Y.
+        let front = tris
+            .corners
+            .chunks(3)
+            .zip(&tris.normals)
+            .find(|(c, n)| n.z.abs() < 1e-12 && c.iter().all(|p| p.y.abs() < 1e-12))
+            .map(|(_, n)| *n)
+            .unwrap();
+        assert_abs_diff_eq!(front.y, -1.0, epsilon = 1e-12);
+    }
+}

@@ -1,0 +1,167 @@
+//! Runs the real window under a virtual X display with software OpenGL and
+//! checks what it drew, from the PNG it saves with `--picture`.
+#![allow(clippy::expect_used, reason = "in a test a failed expectation is a failed test")]
+
+use std::io::Read;
+use std::path::{Path, PathBuf};
+use std::process::{Child, Command, Stdio};
+use std::time::{Duration, Instant};
+
+/// The 3D view's background, as drawn (must match the app's clear colour).
+const BACKGROUND_RGB: [u8; 3] = [206, 218, 232];
+
+/// A virtual X display, stopped when dropped.
+struct VirtualDisplay {
+    server: Child,
+    display: String,
+}
+
+impl VirtualDisplay {
+    /// Starts Xvfb on a free display number, which it reports on a pipe.
+    fn start() -> Self {
+        match Command::new("Xvfb").arg("-version").stdout(Stdio::null()).stderr(Stdio::null()).status() {
+            Ok(_) => {}
+            Err(err) if err.kind() == std::io::ErrorKind::NotFound => panic!(
+                "the window tests need Xvfb, a virtual X server: install the `xvfb` package \
+                 (apt-get install xvfb)"
+            ),
+            Err(err) => panic!("cannot run Xvfb: {err}"),
+        }
+        // `-displayfd 3` makes Xvfb pick a free display and write its number
+        // to descriptor 3, which the shell points at our pipe; `exec` makes
+        // the child's id Xvfb's own, so dropping this kills the server.
+        let mut server = Command::new("sh")
+            .args(["-c", "exec Xvfb -displayfd 3 -screen 0 1280x800x24 -nolisten tcp 3>&1 1>/dev/null 2>&1"])
+            .stdout(Stdio::piped())
+            .stderr(Stdio::null())
+            .spawn()
+            .expect("cannot start Xvfb");
+        let mut reader = server.stdout.take().expect("Xvfb's pipe");
+        let mut number = String::new();
+        let mut byte = [0u8; 1];
+        while reader.read(&mut byte).expect("cannot read from Xvfb") == 1 && byte[0] != b'\n' {
+            number.push(char::from(byte[0]));
+        }
+        assert!(!number.trim().is_empty(), "Xvfb exited without reporting a display number");
+        Self { server, display: format!(":{}", number.trim()) }
+    }
+}
+
+impl Drop for VirtualDisplay {
+    fn drop(&mut self) {
+        let _ = self.server.kill();
+        let _ = self.server.wait();
+    }
+}
+
+/// Where the test pictures are kept for people to look at.
+fn artifact(name: &str) -> PathBuf {
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("../../tests/artifacts");
+    std::fs::create_dir_all(&dir).expect("cannot create tests/artifacts");
+    dir.join(name)
+}
+
+/// Runs the app with `args` plus `--picture out`, waits for it, returns the picture.
+fn picture(display: &VirtualDisplay, name: &str, args: &[&str]) -> image::RgbaImage {
+    let out = artifact(name);
+    let _ = std::fs::remove_file(&out);
+    let mut child = Command::new(env!("CARGO_BIN_EXE_pitchframe"))
+        .args(args)
+        .arg("--picture")
+        .arg(&out)
+        .env("DISPLAY", &display.display)
+        .env("LIBGL_ALWAYS_SOFTWARE", "1")
+        .env_remove("WAYLAND_DISPLAY")
+        .stdout(Stdio::piped())
+        .stderr(Stdio::piped())
+        .spawn()
+        .expect("cannot start pitchframe");
+    let started = Instant::now();
+    let status = loop {
+        if let Some(status) = child.try_wait().expect("cannot wait for pitchframe") {
+            break status;
+        }
+        if started.elapsed() > Duration::from_secs(120) {
+            let _ = child.kill();
+            panic!("pitchframe did not exit within 120 s of being asked for a picture");
+        }
+        std::thread::sleep(Duration::from_millis(100));
+    };
+    let output = child.wait_with_output().expect("cannot read pitchframe's output");
+    assert!(
+        status.success(),
+        "pitchframe --picture failed ({status}):\n{}",
+        String::from_utf8_lossy(&output.stderr)
+    );
+    image::open(&out).expect("cannot read the saved picture").to_rgba8()
+}
+
+/// The bounding box of pixels within `tolerance` of `rgb`: (x0, y0, x1, y1).
+fn bounding_box_of(picture: &image::RgbaImage, rgb: [u8; 3], tolerance: u8) -> Option<(u32, u32, u32, u32)> {
+    let mut found: Option<(u32, u32, u32, u32)> = None;
+    for (x, y, pixel) in picture.enumerate_pixels() {
+        if close(pixel.0, rgb, tolerance) {
+            found = Some(match found {
+                None => (x, y, x, y),
+                Some((x0, y0, x1, y1)) => (x0.min(x), y0.min(y), x1.max(x), y1.max(y)),
+            });
+        }
+    }
+    found
+}
+
+fn close(pixel: [u8; 4], rgb: [u8; 3], tolerance: u8) -> bool {
+    pixel[..3].iter().zip(rgb).all(|(&a, b)| a.abs_diff(b) <= tolerance)
+}
+
+/// Pixels inside the box for which `test` holds.
+fn count_in(picture: &image::RgbaImage, bbox: (u32, u32, u32, u32), test: impl Fn([u8; 4]) -> bool) -> usize {
+    let (x0, y0, x1, y1) = bbox;
+    (y0..=y1)
+        .flat_map(|y| (x0..=x1).map(move |x| (x, y)))
+        .filter(|&(x, y)| test(picture.get_pixel(x, y).0))
+        .count()
+}
+
+/// Warm tan, as the lit walls are drawn: clearly more red than blue, far
+/// from both the blue-grey background and egui's neutral greys.
+fn wall_coloured(pixel: [u8; 4]) -> bool {
+    let [r, g, b, _] = pixel.map(i32::from);
+    r - b > 30 && r >= g && g > b
+}
+
+#[test]
+fn window_draws_the_demo_walls_in_the_3d_view() {
+    let display = VirtualDisplay::start();
+    let picture = picture(&display, "window.png", &[]);
+
+    // The view is the one large area cleared to the background colour.
+    let view = bounding_box_of(&picture, BACKGROUND_RGB, 2)
+        .expect("no pixel of the 3D view's background colour: the view was not drawn");
+    let (x0, y0, x1, y1) = view;
+    let (view_w, view_h) = (x1 - x0 + 1, y1 - y0 + 1);
+    assert!(
+        view_w > picture.width() / 2 && view_h > picture.height() / 2,
+        "the 3D view covers only {view_w} x {view_h} of a {} x {} window",
+        picture.width(),
+        picture.height()
+    );
+
+    // Walls: a good share of the view shows the lit wall colour (the house
+    // is framed to fill the view; its walls are a thin L seen from above a
+    // corner, so a few percent of the view is already plenty).
+    let view_pixels = (view_w * view_h) as usize;
+    let walls = count_in(&picture, view, wall_coloured);
+    assert!(walls * 100 > view_pixels * 2, "only {walls} of {view_pixels} view pixels show the wall colour");
+    // And the walls sit in the view's middle, where the camera aims.
+    let middle = (x0 + view_w / 4, y0 + view_h / 4, x1 - view_w / 4, y1 - view_h / 4);
+    assert!(count_in(&picture, middle, wall_coloured) > 500, "no walls in the middle of the view");
+    // The lit walls show more than one shade: the light is directional.
+    let shades: std::collections::BTreeSet<[u8; 3]> = (y0..=y1)
+        .flat_map(|y| (x0..=x1).map(move |x| (x, y)))
+        .map(|(x, y)| picture.get_pixel(x, y).0)
+        .filter(|&p| wall_coloured(p))
+        .map(|p| [p[0] / 16, p[1] / 16, p[2] / 16])
+        .collect();
+    assert!(shades.len() >= 2, "the walls show a single flat shade: {shades:?}");
+}
