@@ -15,7 +15,7 @@ use super::scene::{
     DEMO_RISE_PER_RUN, DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN, Scene, temporary_demo_outline,
 };
 use super::side_panel::side_panel_ui;
-use super::viewport::{Renderer, viewport_ui};
+use super::viewport::{Renderer, ViewStyle, viewport_ui};
 
 /// What the user edits; everything drawn is derived from it.
 #[derive(Debug, Clone, PartialEq)]
@@ -47,6 +47,8 @@ impl Document {
 pub enum Command {
     /// Turn the camera to a preset direction.
     SetView(ViewPreset),
+    /// Switch between the framing view and the client view.
+    SetClientView(bool),
     /// Select what lies under a click in the 3D view (nothing if empty),
     /// given from the view's top-left in points, with the view's size.
     PickAt {
@@ -82,6 +84,7 @@ pub struct PitchframeApp {
     renderer: Arc<Mutex<Renderer>>,
     picture: Option<PictureJob>,
     selection: Option<Selection>,
+    style: ViewStyle,
     commands: Vec<Command>,
 }
 
@@ -103,6 +106,7 @@ impl PitchframeApp {
             renderer: Arc::new(Mutex::new(renderer)),
             picture,
             selection: None,
+            style: ViewStyle::default(),
             commands: Vec::new(),
         })
     }
@@ -121,6 +125,15 @@ impl PitchframeApp {
                     self.commands.push(Command::SetView(view));
                 }
             }
+            ui.separator();
+            let mut client_view = self.style.client_view;
+            if ui
+                .toggle_value(&mut client_view, "Client view")
+                .on_hover_text("Walls and a solid roof, no frame or labels (key: V)")
+                .changed()
+            {
+                self.commands.push(Command::SetClientView(client_view));
+            }
         });
     }
 
@@ -128,6 +141,9 @@ impl PitchframeApp {
         // Typing in a text field must not turn the camera.
         if ctx.egui_wants_keyboard_input() {
             return;
+        }
+        if ctx.input(|input| input.key_pressed(egui::Key::V)) {
+            self.commands.push(Command::SetClientView(!self.style.client_view));
         }
         for (key, view) in VIEW_KEYS {
             if ctx.input(|input| input.key_pressed(key)) {
@@ -140,6 +156,7 @@ impl PitchframeApp {
         for command in std::mem::take(&mut self.commands) {
             match command {
                 Command::SetView(view) => self.camera.set_view(view),
+                Command::SetClientView(on) => self.style.client_view = on,
                 Command::PickAt { at, view_size } => {
                     let ray = self.camera.ray(at, view_size);
                     self.selection = pick(&self.scene, &ray).map(|hit| Selection { part: hit.part });
@@ -161,10 +178,10 @@ impl eframe::App for PitchframeApp {
         egui::Panel::top("toolbar").show(ui, |ui| self.toolbar_ui(ui));
         egui::Panel::left("numbers").default_size(280.0).show(ui, |ui| {
             let selected = self.selection.and_then(|selection| self.scene.parts.get(selection.part));
-            side_panel_ui(ui, &self.document, selected);
+            side_panel_ui(ui, &self.document, &self.scene, selected);
         });
         egui::CentralPanel::no_frame().show(ui, |ui| {
-            let input = viewport_ui(ui, &self.renderer, &self.scene, &mut self.camera);
+            let input = viewport_ui(ui, &self.renderer, &self.scene, &mut self.camera, self.style);
             if let Some(at) = input.clicked_at {
                 self.commands.push(Command::PickAt { at, view_size: input.view_size });
             }

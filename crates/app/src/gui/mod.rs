@@ -13,6 +13,7 @@ mod pick;
 mod picture;
 mod scene;
 mod side_panel;
+mod triangulate;
 mod viewport;
 
 use std::path::PathBuf;

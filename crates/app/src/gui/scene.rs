@@ -3,13 +3,25 @@
 //! here; the viewport converts to f32 when it uploads.
 
 use glam::{DVec2, DVec3};
-use pitchframe_geometry::{Outline, Wall, WallRoof};
+use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof};
+
+use super::triangulate::{newell_normal, triangulate};
+
+/// Width of the square bar drawn along a ridge, hip or valley line, in
+/// inches: about a board's thickness, so lines read at house scale.
+const ROOF_LINE_WIDTH_IN: f64 = 2.0;
 
 /// What a group of triangles shows, which sets its colour.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum PartKind {
     /// The house walls, from floor to the top of the top plate.
     Walls,
+    /// The roof planes carried out to the fascia.
+    RoofPlanes,
+    /// The vertical faces above gable walls.
+    Gables,
+    /// The ridges, hips or valleys, as thin bars.
+    RoofLines(RoofLineKind),
 }
 
 /// Flat-shaded triangles: three corners per triangle and one normal each.
@@ -22,6 +34,31 @@ pub struct Triangles {
 }
 
 impl Triangles {
+    /// Adds the flat polygon `points` (counter-clockwise seen from the side
+    /// its normal should face).
+    fn push_polygon(&mut self, points: &[DVec3]) {
+        let normal = newell_normal(points).normalize_or_zero();
+        for [a, b, c] in triangulate(points) {
+            self.corners.extend_from_slice(&[points[a], points[b], points[c]]);
+            self.normals.push(normal);
+        }
+    }
+
+    /// Adds a square bar of `width` along `from..to`.
+    fn push_bar(&mut self, from: DVec3, to: DVec3, width: f64) {
+        let along = (to - from).normalize_or_zero();
+        if along == DVec3::ZERO {
+            return;
+        }
+        let side = along.cross(DVec3::Z).try_normalize().unwrap_or(DVec3::X) * (width / 2.0);
+        let up = side.cross(along).normalize_or_zero() * (width / 2.0);
+        let corners = [side + up, -side + up, -side - up, side - up];
+        for k in 0..4 {
+            let (p, q) = (corners[k], corners[(k + 1) % 4]);
+            self.push_quad(from + q, from + p, to + p, to + q);
+        }
+    }
+
     /// Adds the planar quad `a b c d` (counter-clockwise seen from outside).
     fn push_quad(&mut self, a: DVec3, b: DVec3, c: DVec3, d: DVec3) {
         let normal = (b - a).cross(d - a).normalize_or_zero();
@@ -49,6 +86,8 @@ pub struct ScenePart {
 pub struct Scene {
     /// Drawable groups.
     pub parts: Vec<ScenePart>,
+    /// Why the roof could not be drawn, in the user's words.
+    pub roof_error: Option<String>,
     /// Lowest corner of the box holding every part.
     pub min: DVec3,
     /// Highest corner of that box.
@@ -60,10 +99,46 @@ impl Scene {
     /// thickness.
     pub fn build(outline: &Outline, wall_height_in: f64, wall_thickness_in: f64) -> Self {
         let walls = wall_triangles(outline, wall_height_in, wall_thickness_in);
-        let parts = vec![ScenePart { kind: PartKind::Walls, triangles: walls }];
+        let mut parts = vec![ScenePart { kind: PartKind::Walls, triangles: walls }];
+        // Roof heights are measured from the wall line at the top of the
+        // plate, which stands at the wall height.
+        let lift = DVec3::Z * wall_height_in;
+        let roof_error = match Roof::solve(outline) {
+            Ok(roof) => {
+                parts.extend(roof_parts(&roof, lift));
+                None
+            }
+            Err(err) => Some(err.to_string()),
+        };
         let (min, max) = bounds(&parts);
-        Self { parts, min, max }
+        Self { parts, roof_error, min, max }
     }
+}
+
+/// The roof's planes, gables and lines, raised by `lift`.
+fn roof_parts(roof: &Roof, lift: DVec3) -> Vec<ScenePart> {
+    let raised = |points: &[DVec3]| points.iter().map(|&p| p + lift).collect::<Vec<_>>();
+    let mut planes = Triangles::default();
+    for plane in &roof.planes {
+        planes.push_polygon(&raised(&plane.eave_outline));
+    }
+    let mut gables = Triangles::default();
+    for gable in &roof.gables {
+        gables.push_polygon(&raised(&gable.outline));
+    }
+    let mut parts = vec![
+        ScenePart { kind: PartKind::RoofPlanes, triangles: planes },
+        ScenePart { kind: PartKind::Gables, triangles: gables },
+    ];
+    for kind in [RoofLineKind::Ridge, RoofLineKind::Hip, RoofLineKind::Valley] {
+        let mut bars = Triangles::default();
+        for line in roof.lines.iter().filter(|line| line.kind == kind) {
+            bars.push_bar(line.from + lift, line.to + lift, ROOF_LINE_WIDTH_IN);
+        }
+        parts.push(ScenePart { kind: PartKind::RoofLines(kind), triangles: bars });
+    }
+    parts.retain(|part| part.triangles.len() > 0);
+    parts
 }
 
 /// The box round every triangle corner; a unit box at the origin when empty.

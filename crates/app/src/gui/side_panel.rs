@@ -2,23 +2,26 @@
 //! and what is picked in the 3D view.
 
 use egui::RichText;
-use pitchframe_geometry::{Length, LengthStyle, RafterTable};
+use pitchframe_geometry::{Length, LengthStyle, RafterTable, RoofLineKind};
 
 use super::app::Document;
-use super::scene::{PartKind, ScenePart};
+use super::scene::{PartKind, Scene, ScenePart};
 
 /// Size of the figures a framer reads off the panel, in points: large
 /// enough to read at arm's length from a laptop on a sawhorse.
 const FIGURE_SIZE: f32 = 22.0;
 
 /// Shows the pitch, the six rafter-table lines for it, and the pick.
-pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, selected: Option<&ScenePart>) {
+pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, selected: Option<&ScenePart>) {
     ui.heading("Demo house");
     ui.label(format!(
         "Walls {} high, {} thick",
         length_text(document.wall_height_in),
         length_text(document.wall_thickness_in)
     ));
+    if let Some(error) = &scene.roof_error {
+        ui.colored_label(ui.visuals().warn_fg_color, format!("No roof drawn: {error}"));
+    }
     ui.separator();
     rafter_table_ui(ui, &RafterTable::for_pitch(document.pitch));
     ui.separator();
@@ -79,6 +82,11 @@ fn rafter_table_ui(ui: &mut egui::Ui, table: &RafterTable) {
 fn part_name(kind: PartKind) -> &'static str {
     match kind {
         PartKind::Walls => "Wall",
+        PartKind::Gables => "Gable end",
+        PartKind::RoofPlanes => "Roof plane",
+        PartKind::RoofLines(RoofLineKind::Ridge) => "Ridge line",
+        PartKind::RoofLines(RoofLineKind::Hip) => "Hip line",
+        PartKind::RoofLines(RoofLineKind::Valley) => "Valley line",
     }
 }
 

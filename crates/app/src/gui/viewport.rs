@@ -15,6 +15,8 @@ use three_d::{
 };
 
 use super::camera::OrbitCamera;
+use pitchframe_geometry::RoofLineKind;
+
 use super::scene::{PartKind, Scene};
 
 /// The 3D view's background, as 8-bit sRGB (a pale blue-grey sky that no
@@ -25,8 +27,48 @@ pub const BACKGROUND_RGB: [u8; 3] = [206, 218, 232];
 pub fn part_rgb(kind: PartKind) -> [u8; 3] {
     match kind {
         // Warm tan: plainly "building" and far from the sky colour.
-        PartKind::Walls => [214, 178, 128],
+        PartKind::Walls | PartKind::Gables => [214, 178, 128],
+        // A dark clay red, so the roof stands apart from walls and sky.
+        PartKind::RoofPlanes => [150, 84, 66],
+        PartKind::RoofLines(RoofLineKind::Ridge) => [200, 40, 40],
+        PartKind::RoofLines(RoofLineKind::Hip) => [30, 110, 200],
+        PartKind::RoofLines(RoofLineKind::Valley) => [40, 160, 70],
     }
+}
+
+/// Opacity of the roof planes in the framing view: enough to see the
+/// planes' shape, little enough to see the frame through them.
+const FRAMING_VIEW_ROOF_ALPHA: u8 = 60;
+
+/// How the scene is shown this frame.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub struct ViewStyle {
+    /// The client view: walls and a solid roof, no frame and no labels.
+    pub client_view: bool,
+}
+
+/// Which view styles show a model.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum ShownIn {
+    Both,
+    FramingView,
+    ClientView,
+}
+
+impl ShownIn {
+    fn includes(self, style: ViewStyle) -> bool {
+        match self {
+            ShownIn::Both => true,
+            ShownIn::FramingView => !style.client_view,
+            ShownIn::ClientView => style.client_view,
+        }
+    }
+}
+
+/// One uploaded mesh with its material.
+struct Model {
+    shown_in: ShownIn,
+    gm: Gm<Mesh, PhysicalMaterial>,
 }
 
 /// GL-side state for the 3D view, created once per window.
@@ -34,7 +76,7 @@ pub struct Renderer {
     context: Context,
     /// The scene the uploaded meshes came from, to spot a new one.
     uploaded: Option<Arc<Scene>>,
-    models: Vec<Gm<Mesh, PhysicalMaterial>>,
+    models: Vec<Model>,
 }
 
 impl Renderer {
@@ -48,28 +90,38 @@ impl Renderer {
         if self.uploaded.as_ref().is_some_and(|uploaded| Arc::ptr_eq(uploaded, scene)) {
             return;
         }
-        self.models = scene
-            .parts
-            .iter()
-            .filter(|part| part.triangles.len() > 0)
-            .map(|part| {
-                let mesh = Mesh::new(&self.context, &cpu_mesh(&part.triangles));
-                let [r, g, b] = part_rgb(part.kind);
-                let material = PhysicalMaterial::new_opaque(
-                    &self.context,
-                    &CpuMaterial {
-                        albedo: Srgba::new(r, g, b, 255),
-                        // Fully rough, not metal: plain diffuse shading,
-                        // which reads best for painted or timber surfaces.
-                        roughness: 1.0,
-                        metallic: 0.0,
-                        ..Default::default()
-                    },
-                );
-                Gm::new(mesh, material)
-            })
-            .collect();
+        self.models.clear();
+        for part in scene.parts.iter().filter(|part| part.triangles.len() > 0) {
+            let cpu = cpu_mesh(&part.triangles);
+            let rgb = part_rgb(part.kind);
+            match part.kind {
+                PartKind::RoofPlanes => {
+                    self.add_model(&cpu, rgb, 255, ShownIn::ClientView);
+                    self.add_model(&cpu, rgb, FRAMING_VIEW_ROOF_ALPHA, ShownIn::FramingView);
+                }
+                PartKind::RoofLines(_) => self.add_model(&cpu, rgb, 255, ShownIn::FramingView),
+                PartKind::Walls | PartKind::Gables => self.add_model(&cpu, rgb, 255, ShownIn::Both),
+            }
+        }
         self.uploaded = Some(Arc::clone(scene));
+    }
+
+    fn add_model(&mut self, cpu: &CpuMesh, [r, g, b]: [u8; 3], alpha: u8, shown_in: ShownIn) {
+        let description = CpuMaterial {
+            albedo: Srgba::new(r, g, b, alpha),
+            // Fully rough, not metal: plain diffuse shading, which reads
+            // best for painted or timber surfaces.
+            roughness: 1.0,
+            metallic: 0.0,
+            ..Default::default()
+        };
+        let material = if alpha == 255 {
+            PhysicalMaterial::new_opaque(&self.context, &description)
+        } else {
+            PhysicalMaterial::new_transparent(&self.context, &description)
+        };
+        let gm = Gm::new(Mesh::new(&self.context, cpu), material);
+        self.models.push(Model { shown_in, gm });
     }
 
     /// Draws the scene into the part of the window egui gave the view.
@@ -79,6 +131,7 @@ impl Renderer {
         painter: &egui_glow::Painter,
         scene: &Arc<Scene>,
         camera: &OrbitCamera,
+        style: ViewStyle,
     ) {
         self.upload(scene);
         let [screen_w, screen_h] = info.screen_size_px;
@@ -119,7 +172,7 @@ impl Renderer {
         target.clear_partially(scissor, ClearState::color_and_depth(r, g, b, 1.0, 1.0)).render_partially(
             scissor,
             &three_d_camera,
-            &self.models,
+            self.models.iter().filter(|model| model.shown_in.includes(style)).map(|model| &model.gm),
             &[&sun, &sky],
         );
         // The framebuffer belongs to egui: hand it back rather than let the
@@ -165,6 +218,7 @@ pub fn viewport_ui(
     renderer: &Arc<Mutex<Renderer>>,
     scene: &Arc<Scene>,
     camera: &mut OrbitCamera,
+    style: ViewStyle,
 ) -> ViewportInput {
     let (rect, response) = ui.allocate_exact_size(ui.available_size(), Sense::click_and_drag());
     let delta = response.drag_delta();
@@ -193,7 +247,7 @@ pub fn viewport_ui(
         // A poisoned lock means an earlier draw panicked; skipping the draw
         // keeps the rest of the window usable.
         if let Ok(mut renderer) = renderer.lock() {
-            renderer.paint(&info, painter, &scene, &camera);
+            renderer.paint(&info, painter, &scene, &camera, style);
         }
     });
     ui.painter().add(egui::PaintCallback { rect, callback: Arc::new(callback) });
