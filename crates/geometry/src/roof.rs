@@ -1,10 +1,24 @@
 //! The solved roof: one plane per pitched wall, and the lines where they meet.
+//!
+//! [`Roof::solve`] raises every pitched wall's plane at its pitch and finds
+//! where the planes meet with a weighted straight skeleton of the outline
+//! (see the `skeleton` module): the height of the roof over a plan point is
+//! the height at which the wall lines, moving inward at `1 / rise_per_run`
+//! each, reach it. Gable walls do not move; their roof surface is vertical.
 
 use glam::DVec3;
 use serde::Serialize;
 use thiserror::Error;
 
-use crate::Outline;
+use std::collections::HashMap;
+
+use glam::DVec2;
+
+use crate::skeleton::eaves::{EdgeSide, eave_outline};
+use crate::skeleton::lines::WallLine;
+use crate::skeleton::tolerance::Tolerance;
+use crate::skeleton::{self, Ring, Skeleton};
+use crate::{Outline, Wall, WallRoof};
 
 /// The kind of line where two roof planes meet.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
@@ -43,8 +57,15 @@ pub struct RoofPlane {
     /// seen from above, starting at the wall's first corner; z is height
     /// above the wall line.
     pub outline: Vec<DVec3>,
-    /// The same plane carried out to the fascia line (the overhang).
+    /// The same plane carried out to the fascia line (the overhang),
+    /// counter-clockwise from above, starting where the fascia line starts;
+    /// z is negative beyond the wall line.
     pub eave_outline: Vec<DVec3>,
+    /// Other walls whose roof plane is this same plane (in line with this
+    /// wall and at the same pitch). Each keeps its own part, divided from
+    /// its neighbour's along a line square to the wall line through their
+    /// shared corner; no ridge, hip or valley is reported between them.
+    pub coplanar_walls: Vec<usize>,
 }
 
 /// The vertical triangle or trapezoid above a gable wall.
@@ -70,6 +91,42 @@ pub struct Roof {
 /// Why a roof could not be solved.
 #[derive(Debug, Clone, PartialEq, Error)]
 pub enum RoofError {
+    /// A wall's pitch is zero, negative or not a number.
+    #[error("wall {} has a pitch of {rise_per_run}; a pitched wall needs a rise above 0", .wall + 1)]
+    PitchNotPositive {
+        /// Global wall index.
+        wall: usize,
+        /// The rise per unit run given.
+        rise_per_run: f64,
+    },
+    /// A corner or overhang is not a finite number.
+    #[error("wall {} has a corner or overhang that is not a finite number", .wall + 1)]
+    NotFinite {
+        /// Global wall index.
+        wall: usize,
+    },
+    /// A wall has (next to) no length.
+    #[error("wall {} has no length", .wall + 1)]
+    WallHasNoLength {
+        /// Global wall index.
+        wall: usize,
+    },
+    /// A courtyard has fewer than three corners.
+    #[error("courtyard {} has {count} corners; it needs at least 3", .courtyard + 1)]
+    CourtyardTooSmall {
+        /// Courtyard index in the user's order.
+        courtyard: usize,
+        /// How many corners it has.
+        count: usize,
+    },
+    /// A gable wall runs on in line with a pitched wall.
+    #[error("wall {} is a gable in line with pitched wall {}; make both gables or both pitched", .gable + 1, .wall + 1)]
+    GableInLineWithPitched {
+        /// The gable wall (global index).
+        gable: usize,
+        /// The pitched wall in line with it (global index).
+        wall: usize,
+    },
     /// The solver met a configuration it could not resolve.
     #[error("the roof could not be solved: {reason}")]
     Unsolvable {
@@ -79,9 +136,369 @@ pub enum RoofError {
 }
 
 impl Roof {
-    /// Solves the roof over a validated outline.
+    /// Solves the roof over a validated outline (simple rings, courtyards
+    /// inside the outer ring, either orientation).
+    ///
+    /// Wall indices in the result are global: outer walls `0..n` in the
+    /// user's order, then each courtyard's walls continuing the count.
+    ///
+    /// Where two walls run on in line, or two parallel wall lines come to
+    /// meet during the solve, with different pitches, the result is not
+    /// fixed by the planes alone; the rule here is that the lower-pitch
+    /// plane (the faster-moving line in plan) wins: the corner between them
+    /// keeps to the lower plane's line, moving square to it, and the
+    /// steeper plane stands a vertical step above it along that line.
+    ///
+    /// ```
+    /// use glam::DVec2;
+    /// use pitchframe_geometry::{Outline, Roof, Wall, WallRoof};
+    /// let wall = |x, y| Wall {
+    ///     corner: DVec2::new(x, y),
+    ///     roof: WallRoof::Pitched { rise_per_run: 0.5 },
+    ///     overhang_in: 12.0,
+    /// };
+    /// let outline = Outline::new(
+    ///     vec![wall(0.0, 0.0), wall(480.0, 0.0), wall(480.0, 240.0), wall(0.0, 240.0)],
+    ///     vec![],
+    /// )
+    /// .unwrap();
+    /// let roof = Roof::solve(&outline).unwrap();
+    /// assert_eq!(roof.planes.len(), 4);
+    /// ```
     pub fn solve(outline: &Outline) -> Result<Self, RoofError> {
-        let _ = outline;
-        Err(RoofError::Unsolvable { reason: "the roof solver is not written yet".into() })
+        let walls: Vec<Wall> = outline
+            .outer()
+            .iter()
+            .chain(outline.courtyards().iter().flatten())
+            .copied()
+            .collect();
+        check_walls(&walls)?;
+        let mut ring_walls: Vec<Vec<usize>> = vec![(0..outline.outer().len()).collect()];
+        let mut first = outline.outer().len();
+        for (c, ring) in outline.courtyards().iter().enumerate() {
+            if ring.len() < 3 {
+                return Err(RoofError::CourtyardTooSmall {
+                    courtyard: c,
+                    count: ring.len(),
+                });
+            }
+            ring_walls.push((first..first + ring.len()).collect());
+            first += ring.len();
+        }
+
+        // Orient every ring so the roofed region lies on the left.
+        let mut lines: Vec<Option<WallLine>> = vec![None; walls.len()];
+        let mut rings = Vec::new();
+        for (r, idx) in ring_walls.iter().enumerate() {
+            let corners: Vec<DVec2> = idx
+                .iter()
+                .filter_map(|&i| walls.get(i).map(|w| w.corner))
+                .collect();
+            let ccw = signed_area(&corners) > 0.0;
+            let keep = if r == 0 { ccw } else { !ccw };
+            let k = idx.len();
+            let mut order = Vec::with_capacity(k);
+            for j in 0..k {
+                let (Some(&w), Some(&a), Some(&b)) =
+                    (idx.get(j), corners.get(j), corners.get((j + 1) % k))
+                else {
+                    continue;
+                };
+                let Some(wall) = walls.get(w) else { continue };
+                let (start, end) = if keep { (a, b) } else { (b, a) };
+                let rise = match wall.roof {
+                    WallRoof::Pitched { rise_per_run } => Some(rise_per_run),
+                    WallRoof::Gable => None,
+                };
+                if let Some(slot) = lines.get_mut(w) {
+                    *slot = Some(WallLine::new(w, start, end, rise, wall.overhang_in));
+                }
+                order.push(w);
+            }
+            if !keep {
+                order.reverse();
+            }
+            rings.push(Ring { walls: order });
+        }
+        let lines: Vec<WallLine> = lines.into_iter().flatten().collect();
+        if lines.len() != walls.len() {
+            return Err(RoofError::Unsolvable {
+                reason: "a wall could not be read".into(),
+            });
+        }
+        check_in_line(&lines, &rings)?;
+
+        let (mut lo, mut hi) = (DVec2::splat(f64::INFINITY), DVec2::splat(f64::NEG_INFINITY));
+        for w in &walls {
+            lo = lo.min(w.corner);
+            hi = hi.max(w.corner);
+        }
+        let size = (hi - lo).max_element();
+        let min_rise = lines
+            .iter()
+            .filter_map(|l| l.rise)
+            .fold(f64::INFINITY, f64::min);
+        let tol = Tolerance::for_outline(size, if min_rise.is_finite() { min_rise } else { 1.0 });
+        for (i, l) in lines.iter().enumerate() {
+            if (l.end - l.start).length() <= tol.point {
+                return Err(RoofError::WallHasNoLength { wall: i });
+            }
+        }
+
+        let sk = skeleton::solve(lines, &rings, tol)
+            .map_err(|reason| RoofError::Unsolvable { reason })?;
+        Ok(build_roof(&sk, &tol))
     }
+}
+
+/// Rejects pitches and numbers the solve cannot use.
+fn check_walls(walls: &[Wall]) -> Result<(), RoofError> {
+    for (i, w) in walls.iter().enumerate() {
+        if !w.corner.is_finite() || !w.overhang_in.is_finite() {
+            return Err(RoofError::NotFinite { wall: i });
+        }
+        if let WallRoof::Pitched { rise_per_run } = w.roof
+            && !(rise_per_run > 0.0 && rise_per_run.is_finite())
+        {
+            return Err(RoofError::PitchNotPositive {
+                wall: i,
+                rise_per_run,
+            });
+        }
+    }
+    Ok(())
+}
+
+/// Rejects a gable running on in line with a pitched wall: the gable's
+/// vertical face and the plane would have no line to meet along.
+fn check_in_line(lines: &[WallLine], rings: &[Ring]) -> Result<(), RoofError> {
+    for ring in rings {
+        let k = ring.walls.len();
+        for j in 0..k {
+            let (Some(&a), Some(&b)) = (ring.walls.get(j), ring.walls.get((j + 1) % k)) else {
+                continue;
+            };
+            let (Some(la), Some(lb)) = (lines.get(a), lines.get(b)) else {
+                continue;
+            };
+            let turn = robust::orient2d(coord(la.start), coord(la.end), coord(lb.end));
+            if turn == 0.0 && la.rise.is_some() != lb.rise.is_some() {
+                let (gable, wall) = if la.rise.is_none() { (a, b) } else { (b, a) };
+                return Err(RoofError::GableInLineWithPitched { gable, wall });
+            }
+        }
+    }
+    Ok(())
+}
+
+/// A plan point as a `robust` coordinate.
+fn coord(p: DVec2) -> robust::Coord<f64> {
+    robust::Coord { x: p.x, y: p.y }
+}
+
+/// Twice-signed area of a ring (positive counter-clockwise), by the shoelace formula.
+fn signed_area(corners: &[DVec2]) -> f64 {
+    let k = corners.len();
+    (0..k)
+        .filter_map(|i| Some(corners.get(i)?.perp_dot(*corners.get((i + 1) % k)?)))
+        .sum::<f64>()
+}
+
+/// Whether walls `a` and `b` carry one and the same plane.
+fn coplanar(a: &WallLine, b: &WallLine, tol: &Tolerance) -> bool {
+    match (a.rise, b.rise) {
+        (Some(ra), Some(rb)) => {
+            (ra - rb).abs() <= 1e-12 * ra.max(rb)
+                && a.normal.dot(b.normal) > 1.0 - 1e-12
+                && (a.offset - b.offset).abs() <= tol.point
+        }
+        _ => false,
+    }
+}
+
+/// Drops points lying on the straight line between their neighbours,
+/// keeping the first point.
+fn drop_collinear(points: Vec<DVec3>, tol: f64) -> Vec<DVec3> {
+    let mut out = points;
+    let mut i = 1;
+    while out.len() > 3 && i < out.len() {
+        let k = out.len();
+        let (Some(&a), Some(&b), Some(&c)) = (out.get(i - 1), out.get(i), out.get((i + 1) % k))
+        else {
+            break;
+        };
+        let (ab, bc) = (b - a, c - b);
+        let straight =
+            ab.cross(bc).length() <= tol * (ab.length() + bc.length()) && ab.dot(bc) >= 0.0;
+        if straight || ab.length() <= tol {
+            out.remove(i);
+        } else {
+            i += 1;
+        }
+    }
+    out
+}
+
+/// Turns the skeleton's faces into planes, roof lines and gable faces.
+fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
+    let mut owner: HashMap<(usize, usize), usize> = HashMap::new();
+    for (w, face) in sk.faces.iter().enumerate() {
+        let k = face.len();
+        for i in 0..k {
+            if let (Some(&a), Some(&b)) = (face.get(i), face.get((i + 1) % k)) {
+                owner.insert((a, b), w);
+            }
+        }
+    }
+    let node_pos = |n: usize| sk.nodes.get(n).map_or(DVec2::ZERO, |x| x.pos);
+    let node_time = |n: usize| sk.nodes.get(n).map_or(0.0, |x| x.time);
+    let canonical = |w: usize| -> usize {
+        let Some(line) = sk.lines.get(w) else {
+            return w;
+        };
+        sk.lines
+            .iter()
+            .filter(|o| coplanar(line, o, tol))
+            .map(|o| o.wall)
+            .fold(w, usize::min)
+    };
+    let mut planes = Vec::new();
+    let mut gables = Vec::new();
+    let mut segments: HashMap<(usize, usize), Vec<(usize, usize)>> = HashMap::new();
+    for (w, face) in sk.faces.iter().enumerate() {
+        let Some(line) = sk.lines.get(w) else {
+            continue;
+        };
+        let k = face.len();
+        if line.rise.is_none() {
+            let outline = face
+                .iter()
+                .map(|&n| node_pos(n).extend(node_time(n)))
+                .collect();
+            gables.push(GableFace {
+                wall: w,
+                outline: drop_collinear(outline, tol.point),
+            });
+            continue;
+        }
+        let mut sides = Vec::with_capacity(k);
+        for i in 0..k {
+            let (Some(&a), Some(&b)) = (face.get(i), face.get((i + 1) % k)) else {
+                continue;
+            };
+            let side = if i == 0 {
+                EdgeSide::OwnWall
+            } else {
+                match owner.get(&(b, a)).and_then(|&o| sk.lines.get(o)) {
+                    Some(other) if other.rise.is_none() => EdgeSide::Gable(other.wall),
+                    Some(other) => {
+                        // Walls sharing one plane report their lines once,
+                        // under the lowest-numbered of them.
+                        let (cw, co) = (canonical(w), canonical(other.wall));
+                        if co > cw {
+                            segments.entry((cw, co)).or_default().push((a, b));
+                        }
+                        EdgeSide::Plane(other.wall)
+                    }
+                    None => EdgeSide::Other,
+                }
+            };
+            sides.push(side);
+        }
+        let outline = face
+            .iter()
+            .map(|&n| node_pos(n).extend(line.plane_height(node_pos(n))))
+            .collect();
+        let eave = eave_outline(w, &sk.lines, &sk.nodes, face, &sides);
+        let coplanar_walls = sk
+            .lines
+            .iter()
+            .filter(|o| o.wall != w && coplanar(line, o, tol))
+            .map(|o| o.wall)
+            .collect();
+        planes.push(RoofPlane {
+            wall: w,
+            rise_per_run: line.rise.unwrap_or(0.0),
+            outline: drop_collinear(outline, tol.point),
+            eave_outline: drop_collinear(eave, tol.point),
+            coplanar_walls,
+        });
+    }
+    let mut keys: Vec<_> = segments.keys().copied().collect();
+    keys.sort_unstable();
+    let mut lines = Vec::new();
+    for key in keys {
+        let Some(segs) = segments.get(&key) else {
+            continue;
+        };
+        let (Some(la), Some(lb)) = (sk.lines.get(key.0), sk.lines.get(key.1)) else {
+            continue;
+        };
+        for (a, b) in merge_segments(segs, &node_pos, tol.point) {
+            let (pa, pb) = (node_pos(a), node_pos(b));
+            let (za, zb) = (node_time(a), node_time(b));
+            // The planes' difference grows into face `key.0` (on the left of
+            // a -> b): if that face is the lower plane there, the roof is
+            // the lower of the two (a convex line).
+            let left = (pb - pa).perp();
+            let grad_a = la.normal * la.rise.unwrap_or(0.0);
+            let grad_b = lb.normal * lb.rise.unwrap_or(0.0);
+            let convex = (grad_a - grad_b).dot(left) < 0.0;
+            let level = (za - zb).abs() <= tol.time.max(1e-9 * (za.abs() + zb.abs()));
+            let kind = match (level, convex) {
+                (true, true) => RoofLineKind::Ridge,
+                (_, false) => RoofLineKind::Valley,
+                (false, true) => RoofLineKind::Hip,
+            };
+            let (from, to) = if za <= zb {
+                (pa.extend(za), pb.extend(zb))
+            } else {
+                (pb.extend(zb), pa.extend(za))
+            };
+            lines.push(RoofLine {
+                kind,
+                from,
+                to,
+                walls: [key.0, key.1],
+            });
+        }
+    }
+    Roof {
+        planes,
+        lines,
+        gables,
+    }
+}
+
+/// Joins segments (node pairs) that continue each other in a straight line.
+fn merge_segments(
+    segs: &[(usize, usize)],
+    pos: &dyn Fn(usize) -> DVec2,
+    tol: f64,
+) -> Vec<(usize, usize)> {
+    let mut out: Vec<(usize, usize)> = segs.to_vec();
+    let mut merged = true;
+    while merged {
+        merged = false;
+        'outer: for i in 0..out.len() {
+            for j in 0..out.len() {
+                let (Some(&(a, b)), Some(&(c, d))) = (out.get(i), out.get(j)) else {
+                    continue;
+                };
+                if i == j || b != c {
+                    continue;
+                }
+                let (u, v) = (pos(b) - pos(a), pos(d) - pos(c));
+                if u.perp_dot(v).abs() <= tol * (u.length() + v.length()) && u.dot(v) > 0.0 {
+                    if let Some(x) = out.get_mut(i) {
+                        *x = (a, d);
+                    }
+                    out.remove(j);
+                    merged = true;
+                    break 'outer;
+                }
+            }
+        }
+    }
+    out
 }

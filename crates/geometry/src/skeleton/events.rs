@@ -1,0 +1,177 @@
+//! Wavefront events: when an edge piece shrinks to nothing, and when a reflex
+//! vertex runs into a wall line.
+
+use std::cmp::Ordering;
+
+use super::wavefront::{Corner, EdgeId, VertexId, Wavefront};
+
+/// How many split candidates a reflex vertex keeps at a time; the rest are
+/// recomputed only if all of these turn out not to happen.
+const SPLIT_CANDIDATES_KEPT: usize = 16;
+
+/// What happens at an event.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub(crate) enum EventKind {
+    /// Edge piece `edge`, running from `start` to `end`, shrinks to a point.
+    Edge {
+        /// The shrinking piece.
+        edge: EdgeId,
+        /// Its start vertex when the event was computed.
+        start: VertexId,
+        /// Its end vertex when the event was computed.
+        end: VertexId,
+    },
+    /// Reflex vertex `vertex` reaches the moving line `line`.
+    Split {
+        /// The reflex vertex.
+        vertex: VertexId,
+        /// The wall line it reaches.
+        line: usize,
+    },
+}
+
+/// An event at a height, ordered so the lowest comes first out of a max-heap.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Event {
+    /// Height at which it happens.
+    pub time: f64,
+    /// What happens.
+    pub kind: EventKind,
+}
+
+impl Eq for Event {}
+
+impl PartialOrd for Event {
+    fn partial_cmp(&self, other: &Self) -> Option<Ordering> {
+        Some(self.cmp(other))
+    }
+}
+
+impl Ord for Event {
+    fn cmp(&self, other: &Self) -> Ordering {
+        other.time.total_cmp(&self.time)
+    }
+}
+
+/// Height at which edge piece `e` shrinks to a point, if it shrinks at all.
+pub(crate) fn edge_collapse(wf: &Wavefront, e: EdgeId, now: f64) -> Option<Event> {
+    let edge = wf.edges.get(e)?;
+    if !edge.alive {
+        return None;
+    }
+    let (s, f) = (wf.vertices.get(edge.start)?, wf.vertices.get(edge.end)?);
+    let dir = wf.lines.get(edge.line)?.dir;
+    let rate = dir.dot(f.vel - s.vel);
+    let t_ref = s.t0.max(f.t0);
+    let length = dir.dot(wf.pos(edge.end, t_ref) - wf.pos(edge.start, t_ref));
+    if rate >= 0.0 {
+        // A piece that is not shrinking but already has no length is
+        // resolved at once; otherwise it never collapses.
+        if length.abs() <= wf.tol.point && edge.start != edge.end {
+            return Some(Event {
+                time: now,
+                kind: EventKind::Edge {
+                    edge: e,
+                    start: edge.start,
+                    end: edge.end,
+                },
+            });
+        }
+        return None;
+    }
+    let time = (t_ref - length / rate).max(now);
+    time.is_finite().then_some(Event {
+        time,
+        kind: EventKind::Edge {
+            edge: e,
+            start: edge.start,
+            end: edge.end,
+        },
+    })
+}
+
+/// Computes the split candidates of reflex vertex `v` later than `after`
+/// (or at `after` if `inclusive`), keeping the earliest few.
+pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclusive: bool) {
+    let Some(vx) = wf.vertices.get(v) else { return };
+    if vx.corner != Corner::Reflex || !vx.alive {
+        return;
+    }
+    let (anchor, vel, t0, own) = (vx.anchor, vx.vel, vx.t0, [vx.in_line, vx.out_line]);
+    let mut found: Vec<(f64, usize)> = Vec::new();
+    for (i, line) in wf.lines.iter().enumerate() {
+        if own.contains(&i) {
+            continue;
+        }
+        let d0 = line.distance_at(anchor, t0);
+        let rate = line.normal.dot(vel) - line.speed;
+        if d0 < -wf.tol.point || rate >= 0.0 {
+            continue;
+        }
+        let t = t0 + d0.max(0.0) / -rate;
+        if !t.is_finite() || t < after || (!inclusive && t <= after) {
+            continue;
+        }
+        found.push((t, i));
+    }
+    found.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let mut truncated = false;
+    if found.len() > SPLIT_CANDIDATES_KEPT {
+        // Keep every candidate tied with the last one kept, so a recompute
+        // "strictly later" never skips one.
+        let limit = found
+            .get(SPLIT_CANDIDATES_KEPT - 1)
+            .map_or(f64::INFINITY, |c| c.0);
+        let keep = found.iter().take_while(|c| c.0 <= limit).count();
+        truncated = keep < found.len();
+        found.truncate(keep);
+    }
+    found.reverse();
+    if let Some(vx) = wf.vertices.get_mut(v) {
+        vx.splits = found;
+        vx.splits_truncated = truncated;
+    }
+}
+
+/// The next split candidate of `v` as an event, recomputing when the kept
+/// ones have run out.
+pub(crate) fn next_split(wf: &mut Wavefront, v: VertexId, last: f64) -> Option<Event> {
+    let needs_more = wf
+        .vertices
+        .get(v)
+        .is_some_and(|x| x.alive && x.splits.is_empty() && x.splits_truncated);
+    if needs_more {
+        compute_splits(wf, v, last, false);
+    }
+    let vx = wf.vertices.get_mut(v)?;
+    if !vx.alive {
+        return None;
+    }
+    let (time, line) = vx.splits.pop()?;
+    Some(Event {
+        time,
+        kind: EventKind::Split { vertex: v, line },
+    })
+}
+
+/// The live edge piece of `line` that reflex vertex `v` touches at height `t`, if any.
+pub(crate) fn split_target(wf: &Wavefront, v: VertexId, line: usize, t: f64) -> Option<EdgeId> {
+    let p = wf.pos(v, t);
+    let l = wf.lines.get(line)?;
+    if l.distance_at(p, t).abs() > 10.0 * wf.tol.point {
+        return None;
+    }
+    let pieces = wf.pieces_by_line.get(line)?;
+    let tol = wf.tol.point;
+    pieces.iter().copied().find(|&e| {
+        let Some(edge) = wf.edges.get(e) else {
+            return false;
+        };
+        if !edge.alive || edge.start == v || edge.end == v {
+            return false;
+        }
+        let a = l.dir.dot(p - wf.pos(edge.start, t));
+        let b = l.dir.dot(wf.pos(edge.end, t) - p);
+        a >= -tol && b >= -tol
+    })
+}

@@ -1,0 +1,318 @@
+//! The weighted straight skeleton of the wall outline, with gables.
+//!
+//! Every wall line moves inward at its own plan speed `1 / rise_per_run`
+//! per unit of height (a gable wall does not move), so the height at which
+//! the wavefront passes a plan point is the roof's height there. The
+//! wavefront is simulated event by event from a priority queue:
+//! - an **edge event**: a piece of wall line shrinks to a point;
+//! - a **split event**: a reflex vertex runs into another wall line;
+//! - everything that happens at one point at one height (a square's four
+//!   hips, equal wings, a valley running into a ridge) is resolved as one
+//!   site by re-pairing the lines met there in angular order
+//!   ([`resolve::resolve_site`]);
+//! - opposite lines that meet (a level ridge) leave zero-width spikes and
+//!   flat cycles that [`cleanup::clean_up`] closes.
+//!
+//! Topology decisions about the outline's corners use exact orientation
+//! predicates; event heights and points use `f64` with the tolerances of
+//! [`tolerance::Tolerance`].
+
+mod cleanup;
+pub(crate) mod eaves;
+mod events;
+mod faces;
+pub(crate) mod lines;
+mod resolve;
+pub(crate) mod tolerance;
+mod wavefront;
+
+use std::collections::BinaryHeap;
+
+use glam::DVec2;
+
+use events::{Event, EventKind};
+use lines::WallLine;
+use resolve::Site;
+use tolerance::Tolerance;
+pub(crate) use wavefront::Node;
+use wavefront::{EdgeId, VertexId, Wavefront};
+
+/// One closed ring of the outline, counter-clockwise around the roofed
+/// region (holes therefore clockwise): global wall indices in ring order.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct Ring {
+    /// Global wall indices; wall `k` runs from corner `k` to corner `k + 1`.
+    pub walls: Vec<usize>,
+}
+
+/// The solved skeleton: nodes and one face polygon per wall.
+#[derive(Debug, Clone)]
+pub(crate) struct Skeleton {
+    /// Skeleton nodes (plan point and height).
+    pub nodes: Vec<Node>,
+    /// For each global wall index, its face as nodes counter-clockwise,
+    /// starting with the wall's start and end corners.
+    pub faces: Vec<Vec<usize>>,
+    /// The wall lines, by global wall index.
+    pub lines: Vec<WallLine>,
+}
+
+/// Computes the skeleton of `rings` (the first the outer ring) over the
+/// wall `lines` (indexed by global wall index).
+pub(crate) fn solve(
+    lines: Vec<WallLine>,
+    rings: &[Ring],
+    tol: Tolerance,
+) -> Result<Skeleton, String> {
+    let n = lines.len();
+    let mut wf = Wavefront {
+        lines,
+        vertices: Vec::new(),
+        edges: Vec::new(),
+        nodes: Vec::new(),
+        pieces_by_line: vec![Vec::new(); n],
+        arcs: vec![Vec::new(); n],
+        wall_start_node: vec![0; n],
+        wall_end_node: vec![0; n],
+        tol,
+    };
+    let mut heap: BinaryHeap<Event> = BinaryHeap::new();
+    let mut all_new: Vec<VertexId> = Vec::new();
+    for ring in rings {
+        let k = ring.walls.len();
+        let first_node = wf.nodes.len();
+        for &w in &ring.walls {
+            let start = wf.lines.get(w).map_or(DVec2::ZERO, |l| l.start);
+            let node = wf.add_node(start, 0.0);
+            if let Some(s) = wf.wall_start_node.get_mut(w) {
+                *s = node;
+            }
+        }
+        let first_edge = wf.edges.len();
+        for &w in &ring.walls {
+            wf.add_edge(w, 0, 0);
+        }
+        let first_vertex = wf.vertices.len();
+        for i in 0..k {
+            let prev_edge = first_edge + (i + k - 1) % k;
+            let v = wf.add_vertex(prev_edge, first_edge + i, first_node + i);
+            all_new.push(v);
+        }
+        for i in 0..k {
+            let v = first_vertex + i;
+            wf.link(v, first_vertex + (i + 1) % k);
+            wf.set_edge_start(first_edge + i, v);
+            wf.set_edge_end(first_edge + (i + k - 1) % k, v);
+            if let Some(&w) = ring.walls.get((i + k - 1) % k)
+                && let Some(e) = wf.wall_end_node.get_mut(w)
+            {
+                *e = first_node + i;
+            }
+        }
+    }
+    schedule(&mut wf, &mut heap, &all_new, 0.0);
+
+    let limit = 200 * (wf.vertices.len() + 10);
+    let mut steps = 0usize;
+    while let Some(first) = pop_valid(&mut wf, &mut heap, f64::INFINITY) {
+        steps += 1;
+        if steps > limit {
+            return Err("the wavefront did not settle (too many events)".into());
+        }
+        let t0 = first.0.time;
+        let mut batch = vec![first];
+        let batch_end = t0 + wf.tol.time;
+        while let Some(next) = pop_valid(&mut wf, &mut heap, batch_end) {
+            batch.push(next);
+        }
+        let sites = cluster(&wf, &batch);
+
+        let mut created = Vec::new();
+        for site in &sites {
+            created.extend(resolve::resolve_site(&mut wf, site));
+        }
+        let t_batch = sites.iter().map(|s| s.time).fold(t0, f64::max);
+        let touched = cleanup::clean_up(&mut wf, created, t_batch);
+        schedule(&mut wf, &mut heap, &touched, t0);
+    }
+
+    if let Some(v) = wf.vertices.iter().find(|v| v.alive && v.vel.length() > 0.0) {
+        let wall = wf.lines.get(v.in_line).map_or(0, |l| l.wall) + 1;
+        return Err(format!("the roof never closes above wall {wall}"));
+    }
+
+    let mut faces = vec![Vec::new(); n];
+    for (w, face) in faces.iter_mut().enumerate() {
+        let (Some(&s), Some(&e), Some(arcs)) = (
+            wf.wall_start_node.get(w),
+            wf.wall_end_node.get(w),
+            wf.arcs.get(w),
+        ) else {
+            continue;
+        };
+        match faces::chain_face((s, e), arcs) {
+            Some(chain) => *face = chain,
+            None => return Err(format!("the roof plane over wall {} does not close", w + 1)),
+        }
+    }
+    Ok(Skeleton {
+        nodes: wf.nodes,
+        faces,
+        lines: wf.lines,
+    })
+}
+
+/// Pushes edge events for the pieces at `vertices` and split candidates for
+/// the new reflex ones.
+fn schedule(wf: &mut Wavefront, heap: &mut BinaryHeap<Event>, vertices: &[VertexId], now: f64) {
+    let mut edges: Vec<EdgeId> = Vec::new();
+    for &v in vertices {
+        let Some(x) = wf.vertices.get(v) else {
+            continue;
+        };
+        if !x.alive {
+            continue;
+        }
+        edges.push(x.in_edge);
+        edges.push(x.out_edge);
+        if x.splits.is_empty() && !x.splits_truncated {
+            events::compute_splits(wf, v, now, true);
+            if let Some(ev) = events::next_split(wf, v, now) {
+                heap.push(ev);
+            }
+        }
+    }
+    edges.sort_unstable();
+    edges.dedup();
+    for e in edges {
+        if let Some(ev) = events::edge_collapse(wf, e, now) {
+            heap.push(ev);
+        }
+    }
+}
+
+/// Pops events no later than `limit` until one is still valid; split
+/// events name the edge piece hit.
+fn pop_valid(
+    wf: &mut Wavefront,
+    heap: &mut BinaryHeap<Event>,
+    limit: f64,
+) -> Option<(Event, Option<EdgeId>)> {
+    while heap.peek().is_some_and(|e| e.time <= limit) {
+        let Some(ev) = heap.pop() else { break };
+        match ev.kind {
+            EventKind::Edge { edge, start, end } => {
+                if wf
+                    .edges
+                    .get(edge)
+                    .is_some_and(|e| e.alive && e.start == start && e.end == end)
+                {
+                    return Some((ev, None));
+                }
+            }
+            EventKind::Split { vertex, line } => {
+                if !wf.alive(vertex) {
+                    continue;
+                }
+                let hit = events::split_target(wf, vertex, line, ev.time);
+                if let Some(next) = events::next_split(wf, vertex, ev.time) {
+                    heap.push(next);
+                }
+                if hit.is_some() {
+                    return Some((ev, hit));
+                }
+            }
+        }
+    }
+    None
+}
+
+/// Groups a batch of simultaneous events into sites by plan point.
+fn cluster(wf: &Wavefront, batch: &[(Event, Option<EdgeId>)]) -> Vec<Site> {
+    let near = 2.0 * wf.tol.point;
+    let mut raw: Vec<Site> = Vec::new();
+    for (ev, hit) in batch {
+        let t = ev.time;
+        match ev.kind {
+            EventKind::Edge { start, end, .. } => {
+                let pos = (wf.pos(start, t) + wf.pos(end, t)) * 0.5;
+                raw.push(Site {
+                    pos,
+                    time: t,
+                    vertices: vec![start, end],
+                    through_lines: Vec::new(),
+                });
+            }
+            EventKind::Split { vertex, .. } => {
+                let lines = hit.map(|e| vec![wf.edge_line(e)]).unwrap_or_default();
+                raw.push(Site {
+                    pos: wf.pos(vertex, t),
+                    time: t,
+                    vertices: vec![vertex],
+                    through_lines: lines,
+                });
+            }
+        }
+    }
+    // Sort along x so only neighbours in x need comparing.
+    raw.sort_by(|a, b| a.pos.x.total_cmp(&b.pos.x));
+    let mut parent: Vec<usize> = (0..raw.len()).collect();
+    fn root(parent: &mut [usize], mut i: usize) -> usize {
+        while let Some(&p) = parent.get(i) {
+            if p == i {
+                break;
+            }
+            let gp = parent.get(p).copied().unwrap_or(p);
+            if let Some(x) = parent.get_mut(i) {
+                *x = gp;
+            }
+            i = p;
+        }
+        i
+    }
+    for i in 0..raw.len() {
+        for j in i + 1..raw.len() {
+            let (Some(a), Some(b)) = (raw.get(i), raw.get(j)) else {
+                break;
+            };
+            if b.pos.x - a.pos.x > near {
+                break;
+            }
+            if (a.pos - b.pos).length() <= near {
+                let (ri, rj) = (root(&mut parent, i), root(&mut parent, j));
+                if let Some(x) = parent.get_mut(ri) {
+                    *x = rj;
+                }
+            }
+        }
+    }
+    let mut groups: std::collections::HashMap<usize, Vec<usize>> = std::collections::HashMap::new();
+    for i in 0..raw.len() {
+        let r = root(&mut parent, i);
+        groups.entry(r).or_default().push(i);
+    }
+    let mut keys: Vec<usize> = groups.keys().copied().collect();
+    keys.sort_unstable();
+    let mut sites = Vec::new();
+    for k in keys {
+        let Some(members) = groups.get(&k) else {
+            continue;
+        };
+        let mut site = Site::default();
+        let mut count = 0.0;
+        for &i in members {
+            let Some(s) = raw.get(i) else { continue };
+            site.pos += s.pos;
+            site.time += s.time;
+            count += 1.0;
+            site.vertices.extend(&s.vertices);
+            site.through_lines.extend(&s.through_lines);
+        }
+        if count > 0.0 {
+            site.pos /= count;
+            site.time /= count;
+        }
+        sites.push(site);
+    }
+    sites
+}

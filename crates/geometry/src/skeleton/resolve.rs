@@ -1,0 +1,324 @@
+//! Resolving everything that happens at one point at one height: edge
+//! events, split events and vertex events alike, by re-pairing the wall
+//! lines that meet there in angular order.
+
+use std::collections::HashSet;
+
+use glam::DVec2;
+
+use super::wavefront::{EdgeId, VertexId, Wavefront};
+
+/// One wall-line ray at the event point: an edge arriving or leaving.
+#[derive(Debug, Clone, Copy)]
+struct Ray {
+    /// Angle of the ray's direction, pointing away from the event point.
+    angle: f64,
+    /// True for an edge leaving the point, false for one arriving.
+    leaving: bool,
+    /// The edge piece.
+    edge: EdgeId,
+    /// Index into the list of edges passing through the point, if the ray is
+    /// one half of such an edge.
+    through: Option<usize>,
+}
+
+/// Everything met at one event point.
+#[derive(Debug, Clone, Default)]
+pub(crate) struct Site {
+    /// Plan point.
+    pub pos: DVec2,
+    /// Height.
+    pub time: f64,
+    /// Vertices known to be there.
+    pub vertices: Vec<VertexId>,
+    /// Lines of edges known to pass through the point.
+    pub through_lines: Vec<usize>,
+}
+
+/// Resolves one event site; returns the vertices created.
+pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
+    let (p, t) = (site.pos, site.time);
+    let near = 4.0 * wf.tol.point;
+    let at_p = |wf: &Wavefront, v: VertexId| wf.alive(v) && (wf.pos(v, t) - p).length() <= near;
+
+    // Gather the vertices standing at the point, walking along their cycles.
+    let mut members: HashSet<VertexId> = HashSet::new();
+    let mut stack: Vec<VertexId> = site
+        .vertices
+        .iter()
+        .copied()
+        .filter(|&v| at_p(wf, v))
+        .collect();
+    let mut through: Vec<EdgeId> = Vec::new();
+    let mut pending_lines = site.through_lines.clone();
+    loop {
+        while let Some(v) = stack.pop() {
+            if !members.insert(v) {
+                continue;
+            }
+            for w in [wf.prev(v), wf.next(v)] {
+                if !members.contains(&w) && at_p(wf, w) {
+                    stack.push(w);
+                }
+            }
+        }
+        // Edges through the point: an end standing at the point makes it an
+        // ordinary member instead.
+        let mut grew = false;
+        for line in std::mem::take(&mut pending_lines) {
+            let Some(e) = piece_through(wf, line, p, t, near) else {
+                continue;
+            };
+            let Some(edge) = wf.edges.get(e).copied() else {
+                continue;
+            };
+            let mut end_here = false;
+            for v in [edge.start, edge.end] {
+                if members.contains(&v) {
+                    end_here = true;
+                } else if at_p(wf, v) {
+                    stack.push(v);
+                    end_here = true;
+                    grew = true;
+                }
+            }
+            if !end_here && !through.contains(&e) {
+                through.push(e);
+            }
+        }
+        if !grew {
+            break;
+        }
+    }
+    through.retain(|&e| {
+        wf.edges
+            .get(e)
+            .is_some_and(|x| !members.contains(&x.start) && !members.contains(&x.end))
+    });
+    if members.is_empty() && through.len() < 2 {
+        return Vec::new();
+    }
+
+    // Runs of consecutive members; each leaves one arriving and one leaving edge.
+    let mut rays: Vec<Ray> = Vec::new();
+    let mut seen: HashSet<VertexId> = HashSet::new();
+    let mut sorted: Vec<VertexId> = members.iter().copied().collect();
+    sorted.sort_unstable();
+    let mut dead_edges: Vec<EdgeId> = Vec::new();
+    for &v in &sorted {
+        if seen.contains(&v) {
+            continue;
+        }
+        let mut first = v;
+        let mut whole_cycle = false;
+        loop {
+            let pv = wf.prev(first);
+            if !members.contains(&pv) {
+                break;
+            }
+            if pv == v {
+                whole_cycle = true;
+                break;
+            }
+            first = pv;
+        }
+        let mut last = first;
+        seen.insert(first);
+        loop {
+            let nv = wf.next(last);
+            if whole_cycle && nv == first {
+                if let Some(x) = wf.vertices.get(last) {
+                    dead_edges.push(x.out_edge);
+                }
+                break;
+            }
+            if !members.contains(&nv) {
+                break;
+            }
+            if let Some(x) = wf.vertices.get(last) {
+                dead_edges.push(x.out_edge);
+            }
+            seen.insert(nv);
+            last = nv;
+        }
+        if whole_cycle {
+            continue;
+        }
+        let (Some(fx), Some(lx)) = (wf.vertices.get(first), wf.vertices.get(last)) else {
+            continue;
+        };
+        let (a, b) = (fx.in_edge, lx.out_edge);
+        let (Some(la), Some(lb)) = (wf.lines.get(wf.edge_line(a)), wf.lines.get(wf.edge_line(b)))
+        else {
+            continue;
+        };
+        rays.push(Ray {
+            angle: angle_of(-la.dir),
+            leaving: false,
+            edge: a,
+            through: None,
+        });
+        rays.push(Ray {
+            angle: angle_of(lb.dir),
+            leaving: true,
+            edge: b,
+            through: None,
+        });
+    }
+    for (i, &e) in through.iter().enumerate() {
+        let Some(l) = wf.lines.get(wf.edge_line(e)) else {
+            continue;
+        };
+        rays.push(Ray {
+            angle: angle_of(-l.dir),
+            leaving: false,
+            edge: e,
+            through: Some(i),
+        });
+        rays.push(Ray {
+            angle: angle_of(l.dir),
+            leaving: true,
+            edge: e,
+            through: Some(i),
+        });
+    }
+
+    // Retire the members at one node.
+    let node = wf.add_node(p, t);
+    for &v in &sorted {
+        wf.retire(v, node);
+    }
+    for e in dead_edges {
+        wf.kill_edge(e);
+    }
+
+    let pairs = pair_rays(&mut rays, 1e-9);
+
+    // Split the through edges whose halves go separate ways.
+    let mut halves: Vec<Option<(EdgeId, EdgeId)>> = vec![None; through.len()];
+    for &(arr, lea) in &pairs {
+        let (Some(ra), Some(rl)) = (rays.get(arr), rays.get(lea)) else {
+            continue;
+        };
+        if ra.through.is_some() && ra.through == rl.through {
+            continue;
+        }
+        for i in [ra.through, rl.through].into_iter().flatten() {
+            if halves.get(i).is_some_and(Option::is_none) {
+                let Some(&e) = through.get(i) else { continue };
+                let Some(edge) = wf.edges.get(e).copied() else {
+                    continue;
+                };
+                let first = wf.add_edge(edge.line, edge.start, edge.end);
+                let second = wf.add_edge(edge.line, edge.start, edge.end);
+                wf.kill_edge(e);
+                wf.set_edge_start(first, edge.start);
+                wf.set_edge_end(second, edge.end);
+                if let Some(h) = halves.get_mut(i) {
+                    *h = Some((first, second));
+                }
+            }
+        }
+    }
+
+    let mut created = Vec::new();
+    for &(arr, lea) in &pairs {
+        let (Some(ra), Some(rl)) = (rays.get(arr).copied(), rays.get(lea).copied()) else {
+            continue;
+        };
+        if ra.through.is_some() && ra.through == rl.through {
+            continue;
+        }
+        let a = match ra.through.and_then(|i| halves.get(i).copied().flatten()) {
+            Some((first, _)) => first,
+            None => ra.edge,
+        };
+        let b = match rl.through.and_then(|i| halves.get(i).copied().flatten()) {
+            Some((_, second)) => second,
+            None => rl.edge,
+        };
+        let (Some(ea), Some(eb)) = (wf.edges.get(a).copied(), wf.edges.get(b).copied()) else {
+            continue;
+        };
+        let w = wf.add_vertex(a, b, node);
+        wf.link(ea.start, w);
+        wf.link(w, eb.end);
+        wf.set_edge_end(a, w);
+        wf.set_edge_start(b, w);
+        created.push(w);
+    }
+    created
+}
+
+/// The live piece of `line` whose segment holds `p` at height `t`.
+fn piece_through(wf: &Wavefront, line: usize, p: DVec2, t: f64, near: f64) -> Option<EdgeId> {
+    let l = wf.lines.get(line)?;
+    if l.distance_at(p, t).abs() > near {
+        return None;
+    }
+    wf.pieces_by_line.get(line)?.iter().copied().find(|&e| {
+        wf.edges.get(e).is_some_and(|x| {
+            x.alive
+                && l.dir.dot(p - wf.pos(x.start, t)) >= -near
+                && l.dir.dot(wf.pos(x.end, t) - p) >= -near
+        })
+    })
+}
+
+/// Angle of `d` in `[0, 2 pi)`.
+fn angle_of(d: DVec2) -> f64 {
+    let a = d.y.atan2(d.x);
+    if a < 0.0 {
+        a + std::f64::consts::TAU
+    } else {
+        a
+    }
+}
+
+/// Pairs each leaving ray with the next arriving ray counter-clockwise
+/// (the region between them is what is left to roof). Rays at the same
+/// angle put the leaving one first, so two opposite lines that meet give a
+/// zero-width pair that the clean-up removes. Returns `(arriving, leaving)`
+/// index pairs into `rays` (which is sorted in place).
+fn pair_rays(rays: &mut [Ray], tie: f64) -> Vec<(usize, usize)> {
+    rays.sort_by(|a, b| a.angle.total_cmp(&b.angle));
+    let n = rays.len();
+    if n < 2 {
+        return Vec::new();
+    }
+    for _ in 0..n {
+        let mut swapped = false;
+        for i in 0..n {
+            let j = (i + 1) % n;
+            let (Some(ri), Some(rj)) = (rays.get(i).copied(), rays.get(j).copied()) else {
+                continue;
+            };
+            let gap = (rj.angle - ri.angle).rem_euclid(std::f64::consts::TAU);
+            if !ri.leaving && rj.leaving && gap <= tie && i != j {
+                rays.swap(i, j);
+                swapped = true;
+            }
+        }
+        if !swapped {
+            break;
+        }
+    }
+    let mut used = vec![false; n];
+    let mut pairs = Vec::new();
+    for i in 0..n {
+        if !rays.get(i).is_some_and(|r| r.leaving) {
+            continue;
+        }
+        for k in 1..n {
+            let j = (i + k) % n;
+            if rays.get(j).is_some_and(|r| !r.leaving) && used.get(j) == Some(&false) {
+                if let Some(u) = used.get_mut(j) {
+                    *u = true;
+                }
+                pairs.push((j, i));
+                break;
+            }
+        }
+    }
+    pairs
+}

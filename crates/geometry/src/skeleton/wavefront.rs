@@ -1,0 +1,290 @@
+//! The wavefront: cycles of moving vertices joined by pieces of wall lines.
+
+use glam::DVec2;
+
+use super::lines::WallLine;
+use super::tolerance::Tolerance;
+
+/// Index of a wavefront vertex.
+pub(crate) type VertexId = usize;
+/// Index of a wavefront edge piece.
+pub(crate) type EdgeId = usize;
+/// Index of a skeleton node.
+pub(crate) type NodeId = usize;
+
+/// A point of the skeleton: where wavefront vertices start or stop.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Node {
+    /// Plan position.
+    pub pos: DVec2,
+    /// Height (the time at which the wavefront passed here).
+    pub time: f64,
+}
+
+/// How a vertex's two wall lines meet.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub(crate) enum Corner {
+    /// The wavefront turns left: the vertex runs along a hip (or rake).
+    Convex,
+    /// The wavefront turns right: the vertex runs along a valley and may split an edge.
+    Reflex,
+    /// The two lines are parallel and run the same way: the vertex moves
+    /// square to them.
+    Straight,
+    /// The two lines are parallel and run opposite ways: a sliver of zero
+    /// width that the clean-up removes at once.
+    Spike,
+}
+
+/// A wavefront vertex: the moving crossing of two wall lines.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct Vertex {
+    /// Wall line arriving at the vertex.
+    pub in_line: usize,
+    /// Wall line leaving the vertex.
+    pub out_line: usize,
+    /// Edge piece arriving at the vertex.
+    pub in_edge: EdgeId,
+    /// Edge piece leaving the vertex.
+    pub out_edge: EdgeId,
+    /// Previous vertex in the cycle.
+    pub prev: VertexId,
+    /// Next vertex in the cycle.
+    pub next: VertexId,
+    /// Node where the vertex started.
+    pub node: NodeId,
+    /// Plan position at `t0`.
+    pub anchor: DVec2,
+    /// Height at which the vertex started.
+    pub t0: f64,
+    /// Plan velocity per unit of height.
+    pub vel: DVec2,
+    /// Kind of corner.
+    pub corner: Corner,
+    /// Still part of the wavefront.
+    pub alive: bool,
+    /// Pending split candidates `(height, line)`, latest first, so the next
+    /// candidate is popped from the end.
+    pub splits: Vec<(f64, usize)>,
+    /// Whether candidates later than the last one in `splits` were left out.
+    pub splits_truncated: bool,
+}
+
+/// A piece of a wall line between two consecutive wavefront vertices.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct EdgePiece {
+    /// Wall line the piece lies on.
+    pub line: usize,
+    /// Vertex at the piece's start.
+    pub start: VertexId,
+    /// Vertex at the piece's end.
+    pub end: VertexId,
+    /// Still part of the wavefront.
+    pub alive: bool,
+}
+
+/// The whole moving wavefront plus what it has traced so far.
+#[derive(Debug, Clone)]
+pub(crate) struct Wavefront {
+    /// Wall lines, indexed by global wall index.
+    pub lines: Vec<WallLine>,
+    /// All vertices ever created.
+    pub vertices: Vec<Vertex>,
+    /// All edge pieces ever created.
+    pub edges: Vec<EdgePiece>,
+    /// Skeleton nodes.
+    pub nodes: Vec<Node>,
+    /// Edge pieces created on each line (dead ones are pruned lazily).
+    pub pieces_by_line: Vec<Vec<EdgeId>>,
+    /// Boundary arcs traced for each wall's face, face on the left.
+    pub arcs: Vec<Vec<(NodeId, NodeId)>>,
+    /// Node of each wall's start corner, by global wall index.
+    pub wall_start_node: Vec<NodeId>,
+    /// Node of each wall's end corner, by global wall index.
+    pub wall_end_node: Vec<NodeId>,
+    /// Tolerances.
+    pub tol: Tolerance,
+}
+
+/// Velocity and corner kind of the crossing of lines `a` (arriving) and `b` (leaving).
+pub(crate) fn vertex_motion(a: &WallLine, b: &WallLine, tol: &Tolerance) -> (DVec2, Corner) {
+    let det = a.normal.perp_dot(b.normal);
+    if det.abs() > tol.angle {
+        let vel = DVec2::new(
+            a.speed * b.normal.y - b.speed * a.normal.y,
+            a.normal.x * b.speed - b.normal.x * a.speed,
+        ) / det;
+        let corner = if det > 0.0 {
+            Corner::Convex
+        } else {
+            Corner::Reflex
+        };
+        (vel, corner)
+    } else if a.dir.dot(b.dir) > 0.0 {
+        // Parallel and running the same way: the lower-pitch (faster) line
+        // leads and the shared corner keeps to it.
+        (a.normal * a.speed.max(b.speed), Corner::Straight)
+    } else {
+        (DVec2::ZERO, Corner::Spike)
+    }
+}
+
+impl Wavefront {
+    /// Position of vertex `v` at height `t`.
+    pub fn pos(&self, v: VertexId, t: f64) -> DVec2 {
+        match self.vertices.get(v) {
+            Some(vx) => vx.anchor + vx.vel * (t - vx.t0),
+            None => DVec2::ZERO,
+        }
+    }
+
+    /// Adds a skeleton node.
+    pub fn add_node(&mut self, pos: DVec2, time: f64) -> NodeId {
+        self.nodes.push(Node { pos, time });
+        self.nodes.len() - 1
+    }
+
+    /// Adds an edge piece on `line` (links are set by the caller).
+    pub fn add_edge(&mut self, line: usize, start: VertexId, end: VertexId) -> EdgeId {
+        self.edges.push(EdgePiece {
+            line,
+            start,
+            end,
+            alive: true,
+        });
+        let id = self.edges.len() - 1;
+        if let Some(list) = self.pieces_by_line.get_mut(line) {
+            list.push(id);
+        }
+        id
+    }
+
+    /// Line of edge piece `e`.
+    pub fn edge_line(&self, e: EdgeId) -> usize {
+        self.edges.get(e).map_or(0, |x| x.line)
+    }
+
+    /// Adds a vertex at `node` between edge pieces `in_edge` and `out_edge`
+    /// (cycle links are set by the caller).
+    pub fn add_vertex(&mut self, in_edge: EdgeId, out_edge: EdgeId, node: NodeId) -> VertexId {
+        let in_line = self.edge_line(in_edge);
+        let out_line = self.edge_line(out_edge);
+        let (vel, corner) = match (self.lines.get(in_line), self.lines.get(out_line)) {
+            (Some(a), Some(b)) => vertex_motion(a, b, &self.tol),
+            _ => (DVec2::ZERO, Corner::Spike),
+        };
+        let (anchor, t0) = self
+            .nodes
+            .get(node)
+            .map_or((DVec2::ZERO, 0.0), |n| (n.pos, n.time));
+        self.vertices.push(Vertex {
+            in_line,
+            out_line,
+            in_edge,
+            out_edge,
+            prev: 0,
+            next: 0,
+            node,
+            anchor,
+            t0,
+            vel,
+            corner,
+            alive: true,
+            splits: Vec::new(),
+            splits_truncated: false,
+        });
+        self.vertices.len() - 1
+    }
+
+    /// Ends vertex `v` at `node`, recording its trail on both faces it bounds.
+    pub fn retire(&mut self, v: VertexId, node: NodeId) {
+        let Some(vx) = self.vertices.get_mut(v) else {
+            return;
+        };
+        if !vx.alive {
+            return;
+        }
+        vx.alive = false;
+        vx.splits = Vec::new();
+        let (start, a, b) = (vx.node, vx.in_line, vx.out_line);
+        if start != node {
+            self.add_arc(a, start, node);
+            self.add_arc(b, node, start);
+        }
+    }
+
+    /// Records a boundary arc of `line`'s face (face on the left).
+    pub fn add_arc(&mut self, line: usize, from: NodeId, to: NodeId) {
+        if from == to {
+            return;
+        }
+        if let Some(list) = self.arcs.get_mut(line) {
+            list.push((from, to));
+        }
+    }
+
+    /// Node where vertex `v` stands at height `t`: its own start node if it
+    /// has not moved, else a new node.
+    pub fn node_at(&mut self, v: VertexId, t: f64) -> NodeId {
+        let p = self.pos(v, t);
+        if let Some(vx) = self.vertices.get(v)
+            && (p - vx.anchor).length() <= self.tol.point
+            && (t - vx.t0).abs() <= self.tol.time
+        {
+            return vx.node;
+        }
+        self.add_node(p, t)
+    }
+
+    /// Makes `v` the vertex after `u` in its cycle.
+    pub fn link(&mut self, u: VertexId, v: VertexId) {
+        if let Some(x) = self.vertices.get_mut(u) {
+            x.next = v;
+        }
+        if let Some(x) = self.vertices.get_mut(v) {
+            x.prev = u;
+        }
+    }
+
+    /// Sets the end vertex of edge `e`.
+    pub fn set_edge_end(&mut self, e: EdgeId, v: VertexId) {
+        if let Some(x) = self.edges.get_mut(e) {
+            x.end = v;
+        }
+        if let Some(x) = self.vertices.get_mut(v) {
+            x.in_edge = e;
+        }
+    }
+
+    /// Sets the start vertex of edge `e`.
+    pub fn set_edge_start(&mut self, e: EdgeId, v: VertexId) {
+        if let Some(x) = self.edges.get_mut(e) {
+            x.start = v;
+        }
+        if let Some(x) = self.vertices.get_mut(v) {
+            x.out_edge = e;
+        }
+    }
+
+    /// Marks edge `e` as gone from the wavefront.
+    pub fn kill_edge(&mut self, e: EdgeId) {
+        if let Some(x) = self.edges.get_mut(e) {
+            x.alive = false;
+        }
+    }
+
+    /// Whether vertex `v` is alive.
+    pub fn alive(&self, v: VertexId) -> bool {
+        self.vertices.get(v).is_some_and(|x| x.alive)
+    }
+
+    /// Next vertex of `v` in its cycle.
+    pub fn next(&self, v: VertexId) -> VertexId {
+        self.vertices.get(v).map_or(v, |x| x.next)
+    }
+
+    /// Previous vertex of `v` in its cycle.
+    pub fn prev(&self, v: VertexId) -> VertexId {
+        self.vertices.get(v).map_or(v, |x| x.prev)
+    }
+}

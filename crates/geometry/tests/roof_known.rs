@@ -1,0 +1,781 @@
+//! Known roofs: the solver's planes, hips, valleys and ridges against
+//! values worked out by hand or published in the trade.
+
+// Tests may unwrap: a failure here is a failed test.
+#![allow(clippy::unwrap_used)]
+
+use approx::assert_relative_eq;
+use glam::{DVec2, DVec3};
+use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof};
+
+/// Plan and height tolerance for the comparisons below, in inches.
+const EPS: f64 = 1e-6;
+
+fn pitched(x: f64, y: f64, rise_per_run: f64) -> Wall {
+    Wall {
+        corner: DVec2::new(x, y),
+        roof: WallRoof::Pitched { rise_per_run },
+        overhang_in: 12.0,
+    }
+}
+
+fn gable(x: f64, y: f64) -> Wall {
+    Wall {
+        corner: DVec2::new(x, y),
+        roof: WallRoof::Gable,
+        overhang_in: 12.0,
+    }
+}
+
+fn ring(points: &[(f64, f64)], rise: f64) -> Vec<Wall> {
+    points.iter().map(|&(x, y)| pitched(x, y, rise)).collect()
+}
+
+/// Solves, and lists each wall's two ends by global wall index.
+fn solve(outer: Vec<Wall>, courtyards: Vec<Vec<Wall>>) -> (Roof, Vec<(DVec2, DVec2)>) {
+    let mut ends = Vec::new();
+    for r in std::iter::once(&outer).chain(&courtyards) {
+        for i in 0..r.len() {
+            ends.push((r[i].corner, r[(i + 1) % r.len()].corner));
+        }
+    }
+    let outline = Outline::new(outer, courtyards).unwrap();
+    (Roof::solve(&outline).unwrap(), ends)
+}
+
+fn shoelace(points: impl Iterator<Item = DVec2> + Clone) -> f64 {
+    let v: Vec<DVec2> = points.collect();
+    (0..v.len())
+        .map(|i| v[i].perp_dot(v[(i + 1) % v.len()]))
+        .sum::<f64>()
+        / 2.0
+}
+
+/// Plan area of the outline: outer ring less the courtyards.
+fn outline_area(outer: &[Wall], courtyards: &[Vec<Wall>]) -> f64 {
+    let a = shoelace(outer.iter().map(|w| w.corner)).abs();
+    a - courtyards
+        .iter()
+        .map(|c| shoelace(c.iter().map(|w| w.corner)).abs())
+        .sum::<f64>()
+}
+
+/// Checks that hold for every roof: each plane starts on its wall line at
+/// z = 0, is counter-clockwise, rises at its pitch away from its wall, the
+/// plan areas add up to the outline, and planes that share a plan point
+/// there have the same height.
+fn check_invariants(roof: &Roof, walls: &[(DVec2, DVec2)], area: f64) {
+    let mut sum = 0.0;
+    for plane in &roof.planes {
+        let w = plane.wall;
+        let (a, b) = walls[w];
+        let o = &plane.outline;
+        assert!(o.len() >= 3, "plane {w} has {} points", o.len());
+        // First two points are the wall's ends, at z = 0.
+        let ends = [o[0].truncate(), o[1].truncate()];
+        assert!(
+            (ends[0].distance(a) < EPS && ends[1].distance(b) < EPS)
+                || (ends[0].distance(b) < EPS && ends[1].distance(a) < EPS),
+            "plane {w} does not start on its wall: {:?}",
+            ends
+        );
+        assert!(o[0].z.abs() < EPS && o[1].z.abs() < EPS);
+        let plan_area = shoelace(o.iter().map(|p| p.truncate()));
+        assert!(plan_area > 0.0, "plane {w} is not counter-clockwise");
+        sum += plan_area;
+        // Every point's height is its distance from the wall line times the pitch.
+        let dir = (o[1] - o[0]).truncate().normalize();
+        for p in o {
+            let dist = dir.perp_dot(p.truncate() - o[0].truncate());
+            assert!(dist > -EPS, "plane {w} reaches outside its wall line");
+            assert_relative_eq!(p.z, dist * plane.rise_per_run, epsilon = EPS);
+        }
+    }
+    assert_relative_eq!(sum, area, epsilon = 1e-6 * area);
+    // Planes meeting at a plan point agree on its height.
+    for p in &roof.planes {
+        for q in &roof.planes {
+            for a in &p.outline {
+                for b in &q.outline {
+                    if a.truncate().distance(b.truncate()) < EPS {
+                        assert_relative_eq!(a.z, b.z, epsilon = 1e-6);
+                    }
+                }
+            }
+        }
+    }
+}
+
+fn lines_of(roof: &Roof, kind: RoofLineKind) -> Vec<(DVec3, DVec3)> {
+    roof.lines
+        .iter()
+        .filter(|l| l.kind == kind)
+        .map(|l| (l.from, l.to))
+        .collect()
+}
+
+fn plan_len(l: &(DVec3, DVec3)) -> f64 {
+    l.0.truncate().distance(l.1.truncate())
+}
+
+#[test]
+fn rectangle_at_one_pitch() {
+    // 40 ft x 24 ft at 6 in 12. Common practice, no source: the ridge of a
+    // regular hip roof is length - width = 16 ft long and stands
+    // width / 2 * slope = 144 * 0.5 = 72 in above the wall line; the four
+    // hips run at 45 degrees in plan.
+    let outer = ring(
+        &[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert_eq!(roof.planes.len(), 4);
+    let ridges = lines_of(&roof, RoofLineKind::Ridge);
+    assert_eq!(ridges.len(), 1, "{:?}", roof.lines);
+    assert_relative_eq!(plan_len(&ridges[0]), 192.0, epsilon = EPS);
+    assert_relative_eq!(ridges[0].0.z, 72.0, epsilon = EPS);
+    let hips = lines_of(&roof, RoofLineKind::Hip);
+    assert_eq!(hips.len(), 4);
+    for h in &hips {
+        let d = (h.1 - h.0).truncate();
+        assert_relative_eq!(d.x.abs(), d.y.abs(), epsilon = EPS);
+        assert_relative_eq!(h.1.z, 72.0, epsilon = EPS);
+    }
+    assert!(lines_of(&roof, RoofLineKind::Valley).is_empty());
+}
+
+#[test]
+fn square_has_four_hips_to_one_apex() {
+    // Common practice, no source: a square hip roof is a pyramid; the apex
+    // stands half the width times the slope above the plates (120 * 8/12).
+    let outer = ring(
+        &[(0.0, 0.0), (240.0, 0.0), (240.0, 240.0), (0.0, 240.0)],
+        8.0 / 12.0,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert!(lines_of(&roof, RoofLineKind::Ridge).is_empty());
+    let hips = lines_of(&roof, RoofLineKind::Hip);
+    assert_eq!(hips.len(), 4);
+    for h in hips {
+        assert_relative_eq!(
+            h.1.truncate().distance(DVec2::new(120.0, 120.0)),
+            0.0,
+            epsilon = EPS
+        );
+        assert_relative_eq!(h.1.z, 80.0, epsilon = EPS);
+    }
+    for p in &roof.planes {
+        assert_eq!(p.outline.len(), 3);
+    }
+}
+
+#[test]
+fn rectangle_with_two_gables_is_a_gable_roof() {
+    // Common practice, no source: two gable ends give two planes meeting in
+    // one ridge the full length of the building, at half the span times
+    // the slope (144 * 0.5 = 72 in); each gable is a triangle.
+    let outer = vec![
+        pitched(0.0, 0.0, 0.5),
+        gable(480.0, 0.0),
+        pitched(480.0, 288.0, 0.5),
+        gable(0.0, 288.0),
+    ];
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert_eq!(roof.planes.len(), 2);
+    assert_eq!(roof.lines.len(), 1, "{:?}", roof.lines);
+    let ridge = &roof.lines[0];
+    assert_eq!(ridge.kind, RoofLineKind::Ridge);
+    assert_relative_eq!(
+        ridge.from.truncate().distance(ridge.to.truncate()),
+        480.0,
+        epsilon = EPS
+    );
+    assert_relative_eq!(ridge.from.z, 72.0, epsilon = EPS);
+    assert_eq!(roof.gables.len(), 2);
+    for g in &roof.gables {
+        assert_eq!(g.outline.len(), 3);
+        assert_relative_eq!(g.outline[2].z, 72.0, epsilon = EPS);
+        assert_relative_eq!(g.outline[0].z, 0.0, epsilon = EPS);
+    }
+}
+
+#[test]
+fn clockwise_input_gives_the_same_roof() {
+    let pts = [
+        (0.0, 0.0),
+        (480.0, 0.0),
+        (480.0, 288.0),
+        (300.0, 288.0),
+        (300.0, 500.0),
+        (0.0, 500.0),
+    ];
+    let ccw = ring(&pts, 0.5);
+    let mut rev: Vec<(f64, f64)> = pts.to_vec();
+    rev.reverse();
+    let cw = ring(&rev, 0.5);
+    let (a, _) = solve(ccw, vec![]);
+    let (b, _) = solve(cw, vec![]);
+    assert_eq!(a.planes.len(), b.planes.len());
+    assert_eq!(a.lines.len(), b.lines.len());
+    // The same physical wall has the same plane: wall i of the clockwise
+    // list runs from corner i to corner i + 1 of the reversed list.
+    let n = pts.len();
+    for pa in &a.planes {
+        // Wall i (ccw) runs pts[i] -> pts[i+1]; in the reversed list that
+        // segment is wall n - 2 - i (mod n).
+        let j = (2 * n - 2 - pa.wall) % n;
+        let pb = b.planes.iter().find(|p| p.wall == j).unwrap();
+        assert_eq!(pa.outline.len(), pb.outline.len());
+        for (x, y) in pa.outline.iter().zip(&pb.outline) {
+            assert_relative_eq!(x.distance(*y), 0.0, epsilon = EPS);
+        }
+    }
+}
+
+fn assert_near(p: DVec3, x: f64, y: f64, z: f64) {
+    assert!(
+        p.distance(DVec3::new(x, y, z)) < EPS,
+        "{p:?} is not ({x}, {y}, {z})"
+    );
+}
+
+/// Whether some line of `kind` runs between the two 3D points (either way).
+fn has_line(roof: &Roof, kind: RoofLineKind, a: DVec3, b: DVec3) -> bool {
+    roof.lines.iter().any(|l| {
+        l.kind == kind
+            && ((l.from.distance(a) < EPS && l.to.distance(b) < EPS)
+                || (l.from.distance(b) < EPS && l.to.distance(a) < EPS))
+    })
+}
+
+#[test]
+fn rectangle_with_steeper_ends() {
+    // Long walls at 6 in 12, ends at 12 in 12. trade.md section 5 (after
+    // the published unequal-pitch method): hip plan angle from the long
+    // plate tan(beta_A) = R_b / R_a = 2, and hip pitch
+    // tan(theta_h) = (R_a R_b / 12) / sqrt(R_a^2 + R_b^2) = 6 / sqrt(180).
+    let outer = vec![
+        pitched(0.0, 0.0, 0.5),
+        pitched(480.0, 0.0, 1.0),
+        pitched(480.0, 288.0, 0.5),
+        pitched(0.0, 288.0, 1.0),
+    ];
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    let hips = lines_of(&roof, RoofLineKind::Hip);
+    assert_eq!(hips.len(), 4);
+    for h in &hips {
+        let d = (h.1 - h.0).truncate();
+        assert_relative_eq!(d.y.abs() / d.x.abs(), 2.0, epsilon = 1e-9);
+        assert_relative_eq!(
+            (h.1.z - h.0.z) / d.length(),
+            6.0 / 180f64.sqrt(),
+            epsilon = 1e-9
+        );
+    }
+    // Derivation: the ridge stands at 144 * 0.5 = 72 and the hips reach it
+    // 72 / 1.0 = 72 in from each end wall, so it is 480 - 144 = 336 long.
+    let ridges = lines_of(&roof, RoofLineKind::Ridge);
+    assert_eq!(ridges.len(), 1);
+    assert_relative_eq!(plan_len(&ridges[0]), 336.0, epsilon = EPS);
+    assert_relative_eq!(ridges[0].0.z, 72.0, epsilon = EPS);
+}
+
+#[test]
+fn gable_roof_with_unequal_pitches_has_its_ridge_off_centre() {
+    // Derivation: the ridge sits where 0.5 y = 1.0 (288 - y), y = 192, at
+    // height 96.
+    let outer = vec![
+        pitched(0.0, 0.0, 0.5),
+        gable(480.0, 0.0),
+        pitched(480.0, 288.0, 1.0),
+        gable(0.0, 288.0),
+    ];
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert_eq!(roof.lines.len(), 1);
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(0.0, 192.0, 96.0),
+        DVec3::new(480.0, 192.0, 96.0)
+    ));
+    for g in &roof.gables {
+        assert!(
+            g.outline
+                .iter()
+                .any(|p| p.distance(DVec3::new(g.outline[0].x, 192.0, 96.0)) < EPS)
+        );
+    }
+}
+
+#[test]
+fn hip_at_one_end_gable_at_the_other() {
+    // Common practice, no source: the ridge runs from the hip point, half
+    // the width in from the hipped end, to the gable: 480 - 144 = 336 long.
+    let outer = vec![
+        pitched(0.0, 0.0, 0.5),
+        gable(480.0, 0.0),
+        pitched(480.0, 288.0, 0.5),
+        pitched(0.0, 288.0, 0.5),
+    ];
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert_eq!(roof.planes.len(), 3);
+    assert_eq!(lines_of(&roof, RoofLineKind::Hip).len(), 2);
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(144.0, 144.0, 72.0),
+        DVec3::new(480.0, 144.0, 72.0)
+    ));
+    assert_eq!(roof.gables.len(), 1);
+    assert_eq!(roof.gables[0].wall, 1);
+    assert_near(roof.gables[0].outline[2], 480.0, 144.0, 72.0);
+}
+
+#[test]
+fn l_plan_with_equal_wings_meets_in_one_point() {
+    // Derivation: both wings are 240 wide, so both ridges stand at
+    // 120 * 0.5 = 60; the valley from the inside corner (240, 240) runs at
+    // 45 degrees to (120, 120), where both ridges and the outside hip end.
+    let outer = ring(
+        &[
+            (0.0, 0.0),
+            (480.0, 0.0),
+            (480.0, 240.0),
+            (240.0, 240.0),
+            (240.0, 480.0),
+            (0.0, 480.0),
+        ],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    let meet = DVec3::new(120.0, 120.0, 60.0);
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Valley,
+        DVec3::new(240.0, 240.0, 0.0),
+        meet
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Hip,
+        DVec3::new(0.0, 0.0, 0.0),
+        meet
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        meet,
+        DVec3::new(360.0, 120.0, 60.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        meet,
+        DVec3::new(120.0, 360.0, 60.0)
+    ));
+    assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 1);
+    assert_eq!(lines_of(&roof, RoofLineKind::Hip).len(), 5);
+    assert_eq!(lines_of(&roof, RoofLineKind::Ridge).len(), 2);
+}
+
+#[test]
+fn l_plan_with_unequal_wings() {
+    // Derivation: wings 288 and 300 wide give ridges at 72 and 75; the
+    // valley from (300, 288) meets the lower ridge at (156, 144), and a
+    // short hip climbs from there to the higher ridge's end at (150, 150).
+    let outer = ring(
+        &[
+            (0.0, 0.0),
+            (480.0, 0.0),
+            (480.0, 288.0),
+            (300.0, 288.0),
+            (300.0, 500.0),
+            (0.0, 500.0),
+        ],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Valley,
+        DVec3::new(300.0, 288.0, 0.0),
+        DVec3::new(156.0, 144.0, 72.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(156.0, 144.0, 72.0),
+        DVec3::new(336.0, 144.0, 72.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(150.0, 150.0, 75.0),
+        DVec3::new(150.0, 350.0, 75.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Hip,
+        DVec3::new(156.0, 144.0, 72.0),
+        DVec3::new(150.0, 150.0, 75.0)
+    ));
+}
+
+#[test]
+fn t_plan_valleys_meet_the_main_ridge() {
+    // Derivation: bar and stem both 240 wide; the valleys from the inside
+    // corners run at 45 degrees to the bar's ridge (height 60) at
+    // (360, 360), where the stem's ridge ends.
+    let outer = ring(
+        &[
+            (240.0, 0.0),
+            (480.0, 0.0),
+            (480.0, 240.0),
+            (720.0, 240.0),
+            (720.0, 480.0),
+            (0.0, 480.0),
+            (0.0, 240.0),
+            (240.0, 240.0),
+        ],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    let meet = DVec3::new(360.0, 360.0, 60.0);
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Valley,
+        DVec3::new(480.0, 240.0, 0.0),
+        meet
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Valley,
+        DVec3::new(240.0, 240.0, 0.0),
+        meet
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(360.0, 120.0, 60.0),
+        meet
+    ));
+    assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 2);
+}
+
+#[test]
+fn u_plan_has_two_valleys() {
+    // Derivation: all legs 240 wide, ridges at 60; valleys run at 45
+    // degrees from the inside corners to (120, 120) and (600, 120).
+    let outer = ring(
+        &[
+            (0.0, 0.0),
+            (720.0, 0.0),
+            (720.0, 480.0),
+            (480.0, 480.0),
+            (480.0, 240.0),
+            (240.0, 240.0),
+            (240.0, 480.0),
+            (0.0, 480.0),
+        ],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Valley,
+        DVec3::new(240.0, 240.0, 0.0),
+        DVec3::new(120.0, 120.0, 60.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Valley,
+        DVec3::new(480.0, 240.0, 0.0),
+        DVec3::new(600.0, 120.0, 60.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(120.0, 120.0, 60.0),
+        DVec3::new(600.0, 120.0, 60.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(120.0, 120.0, 60.0),
+        DVec3::new(120.0, 360.0, 60.0)
+    ));
+    assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 2);
+}
+
+#[test]
+fn h_plan_has_four_valleys() {
+    // Derivation: wings 240 wide and 720 long, a 240-wide link between
+    // them; the four valleys run at 45 degrees from the inside corners to
+    // the wings' ridges (height 60), where the link's ridge ends.
+    let outer = ring(
+        &[
+            (0.0, 0.0),
+            (240.0, 0.0),
+            (240.0, 240.0),
+            (480.0, 240.0),
+            (480.0, 0.0),
+            (720.0, 0.0),
+            (720.0, 720.0),
+            (480.0, 720.0),
+            (480.0, 480.0),
+            (240.0, 480.0),
+            (240.0, 720.0),
+            (0.0, 720.0),
+        ],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Valley,
+        DVec3::new(240.0, 240.0, 0.0),
+        DVec3::new(120.0, 360.0, 60.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Valley,
+        DVec3::new(480.0, 480.0, 0.0),
+        DVec3::new(600.0, 360.0, 60.0)
+    ));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(120.0, 360.0, 60.0),
+        DVec3::new(600.0, 360.0, 60.0)
+    ));
+    assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 4);
+}
+
+#[test]
+fn octagon_has_eight_hips_to_one_apex() {
+    // Derivation: a regular octagon's planes all reach the centre at the
+    // apothem times the slope; eight hips, no ridge.
+    let r = 200.0;
+    let pts: Vec<(f64, f64)> = (0..8)
+        .map(|i| {
+            let a = std::f64::consts::TAU * (i as f64 + 0.5) / 8.0;
+            (r * a.cos(), r * a.sin())
+        })
+        .collect();
+    let outer = ring(&pts, 0.75);
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    let apothem = r * (std::f64::consts::PI / 8.0).cos();
+    let hips = lines_of(&roof, RoofLineKind::Hip);
+    assert_eq!(hips.len(), 8);
+    assert!(lines_of(&roof, RoofLineKind::Ridge).is_empty());
+    for h in hips {
+        assert_relative_eq!(h.1.truncate().length(), 0.0, epsilon = 1e-6);
+        assert_relative_eq!(h.1.z, apothem * 0.75, epsilon = 1e-6);
+    }
+}
+
+#[test]
+fn angled_bay_on_a_long_wall() {
+    // A 45-degree bay on the front wall: no published value, the checks
+    // are the invariants and that the bay's corners grow hips and valleys.
+    let outer = ring(
+        &[
+            (0.0, 0.0),
+            (180.0, 0.0),
+            (210.0, -30.0),
+            (270.0, -30.0),
+            (300.0, 0.0),
+            (480.0, 0.0),
+            (480.0, 288.0),
+            (0.0, 288.0),
+        ],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert_eq!(roof.planes.len(), 8);
+    assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 2);
+}
+
+#[test]
+fn square_ring_round_a_courtyard() {
+    // Derivation: a band 120 wide all round, so its ridge is the square
+    // 60 in from every wall at height 60 * 0.5 = 30; hips at the outer
+    // corners, valleys at the courtyard's corners.
+    for hole_ccw in [true, false] {
+        let outer = ring(
+            &[(0.0, 0.0), (480.0, 0.0), (480.0, 480.0), (0.0, 480.0)],
+            0.5,
+        );
+        let mut hole_pts = vec![
+            (120.0, 120.0),
+            (360.0, 120.0),
+            (360.0, 360.0),
+            (120.0, 360.0),
+        ];
+        if !hole_ccw {
+            hole_pts.reverse();
+        }
+        let hole = ring(&hole_pts, 0.5);
+        let (roof, walls) = solve(outer.clone(), vec![hole.clone()]);
+        check_invariants(&roof, &walls, outline_area(&outer, &[hole]));
+        assert_eq!(roof.planes.len(), 8);
+        assert_eq!(lines_of(&roof, RoofLineKind::Hip).len(), 4);
+        assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 4);
+        let ridges = lines_of(&roof, RoofLineKind::Ridge);
+        assert_eq!(ridges.len(), 4, "{:?}", roof.lines);
+        for r in &ridges {
+            assert_relative_eq!(plan_len(r), 360.0, epsilon = EPS);
+            assert_relative_eq!(r.0.z, 30.0, epsilon = EPS);
+        }
+        assert!(has_line(
+            &roof,
+            RoofLineKind::Valley,
+            DVec3::new(120.0, 120.0, 0.0),
+            DVec3::new(60.0, 60.0, 30.0)
+        ));
+    }
+}
+
+#[test]
+fn walls_in_line_share_one_plane() {
+    // The front wall is given as two walls in line at one pitch: the roof
+    // is the plain hip roof (ridge 480 - 288 = 192 at 72, common practice),
+    // with no line between the two front walls' parts.
+    let outer = ring(
+        &[
+            (0.0, 0.0),
+            (100.0, 0.0),
+            (480.0, 0.0),
+            (480.0, 288.0),
+            (0.0, 288.0),
+        ],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert_eq!(roof.planes.len(), 5);
+    assert!(roof.lines.iter().all(|l| l.walls != [0, 1]));
+    let ridges = lines_of(&roof, RoofLineKind::Ridge);
+    assert_eq!(ridges.len(), 1);
+    assert_relative_eq!(plan_len(&ridges[0]), 192.0, epsilon = EPS);
+    assert_eq!(roof.planes[0].coplanar_walls, vec![1]);
+    assert_eq!(lines_of(&roof, RoofLineKind::Hip).len(), 4);
+}
+
+#[test]
+fn eaves_meet_at_the_fascia_corner() {
+    // Equal overhangs at one pitch: the hip extended down meets the fascia
+    // corner 12 in out on both sides, 12 * 0.5 = 6 in below the wall line
+    // (common practice, no source).
+    let outer = ring(
+        &[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)],
+        0.5,
+    );
+    let (roof, _) = solve(outer, vec![]);
+    let e = &roof.planes[0].eave_outline;
+    assert_near(e[0], -12.0, -12.0, -6.0);
+    assert_near(e[1], 492.0, -12.0, -6.0);
+    assert_eq!(e.len(), 4);
+}
+
+#[test]
+fn eaves_with_overhangs_in_the_pitch_ratio_stay_level() {
+    // trade.md section 5: fascias stay level only with O_B = O_A R_a / R_b;
+    // 12 in at 6 in 12 against 6 in at 12 in 12: both fascias at -6 and the
+    // hip extension ends on the fascia corner (-6, -12).
+    let mut outer = vec![
+        pitched(0.0, 0.0, 0.5),
+        pitched(480.0, 0.0, 1.0),
+        pitched(480.0, 288.0, 0.5),
+        pitched(0.0, 288.0, 1.0),
+    ];
+    outer[1].overhang_in = 6.0;
+    outer[3].overhang_in = 6.0;
+    let (roof, _) = solve(outer, vec![]);
+    let e = &roof.planes[0].eave_outline;
+    assert_near(e[0], -6.0, -12.0, -6.0);
+    assert_near(e[1], 486.0, -12.0, -6.0);
+    let end = roof.planes.iter().find(|p| p.wall == 1).unwrap();
+    assert!(end.eave_outline.iter().all(|p| p.z > -6.0 - EPS));
+    assert!(
+        end.eave_outline
+            .iter()
+            .any(|p| p.distance(DVec3::new(486.0, -12.0, -6.0)) < EPS)
+    );
+}
+
+#[test]
+fn eaves_with_unequal_overhangs_cover_the_fascia_corner() {
+    // Derivation: at 6 in 12 all round with 12 in on the front and 24 in on
+    // the end, the hip (y = x near the corner) extended down meets the
+    // front fascia y = -12 at (-12, -12) before the end fascia x = -24, so
+    // the end plane also covers the fascia from there to the corner
+    // (-24, -12).
+    let mut outer = ring(
+        &[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)],
+        0.5,
+    );
+    outer[3].overhang_in = 24.0;
+    let (roof, _) = solve(outer, vec![]);
+    let front = &roof.planes[0].eave_outline;
+    assert_near(front[0], -12.0, -12.0, -6.0);
+    let end = &roof
+        .planes
+        .iter()
+        .find(|p| p.wall == 3)
+        .unwrap()
+        .eave_outline;
+    assert!(
+        end.iter()
+            .any(|p| p.distance(DVec3::new(-12.0, -12.0, -6.0)) < EPS),
+        "{end:?}"
+    );
+    assert!(
+        end.iter()
+            .any(|p| p.distance(DVec3::new(-24.0, -12.0, -12.0)) < EPS),
+        "{end:?}"
+    );
+}
+
+#[test]
+fn gable_rake_carries_the_plane_out_to_the_barge_line() {
+    // Derivation: a gable roof 480 x 288 at 6 in 12 with 12 in rakes: the
+    // front plane runs out to x = -12 and x = 492 and up to the ridge at 72.
+    let outer = vec![
+        pitched(0.0, 0.0, 0.5),
+        gable(480.0, 0.0),
+        pitched(480.0, 288.0, 0.5),
+        gable(0.0, 288.0),
+    ];
+    let (roof, _) = solve(outer, vec![]);
+    let e = &roof.planes[0].eave_outline;
+    assert_eq!(e.len(), 4, "{e:?}");
+    assert_near(e[0], -12.0, -12.0, -6.0);
+    assert_near(e[1], 492.0, -12.0, -6.0);
+    assert_near(e[2], 492.0, 144.0, 72.0);
+    assert_near(e[3], -12.0, 144.0, 72.0);
+}
+
+#[test]
+fn bad_pitch_is_an_error_not_a_panic() {
+    let outer = ring(
+        &[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)],
+        0.0,
+    );
+    let outline = Outline::new(outer, vec![]).unwrap();
+    let err = Roof::solve(&outline).unwrap_err();
+    assert!(err.to_string().contains("wall 1"), "{err}");
+}
