@@ -166,21 +166,14 @@ impl Roof {
     /// assert_eq!(roof.planes.len(), 4);
     /// ```
     pub fn solve(outline: &Outline) -> Result<Self, RoofError> {
-        let walls: Vec<Wall> = outline
-            .outer()
-            .iter()
-            .chain(outline.courtyards().iter().flatten())
-            .copied()
-            .collect();
+        let walls: Vec<Wall> =
+            outline.outer().iter().chain(outline.courtyards().iter().flatten()).copied().collect();
         check_walls(&walls)?;
         let mut ring_walls: Vec<Vec<usize>> = vec![(0..outline.outer().len()).collect()];
         let mut first = outline.outer().len();
         for (c, ring) in outline.courtyards().iter().enumerate() {
             if ring.len() < 3 {
-                return Err(RoofError::CourtyardTooSmall {
-                    courtyard: c,
-                    count: ring.len(),
-                });
+                return Err(RoofError::CourtyardTooSmall { courtyard: c, count: ring.len() });
             }
             ring_walls.push((first..first + ring.len()).collect());
             first += ring.len();
@@ -190,17 +183,13 @@ impl Roof {
         let mut lines: Vec<Option<WallLine>> = vec![None; walls.len()];
         let mut rings = Vec::new();
         for (r, idx) in ring_walls.iter().enumerate() {
-            let corners: Vec<DVec2> = idx
-                .iter()
-                .filter_map(|&i| walls.get(i).map(|w| w.corner))
-                .collect();
+            let corners: Vec<DVec2> = idx.iter().filter_map(|&i| walls.get(i).map(|w| w.corner)).collect();
             let ccw = signed_area(&corners) > 0.0;
             let keep = if r == 0 { ccw } else { !ccw };
             let k = idx.len();
             let mut order = Vec::with_capacity(k);
             for j in 0..k {
-                let (Some(&w), Some(&a), Some(&b)) =
-                    (idx.get(j), corners.get(j), corners.get((j + 1) % k))
+                let (Some(&w), Some(&a), Some(&b)) = (idx.get(j), corners.get(j), corners.get((j + 1) % k))
                 else {
                     continue;
                 };
@@ -222,9 +211,7 @@ impl Roof {
         }
         let lines: Vec<WallLine> = lines.into_iter().flatten().collect();
         if lines.len() != walls.len() {
-            return Err(RoofError::Unsolvable {
-                reason: "a wall could not be read".into(),
-            });
+            return Err(RoofError::Unsolvable { reason: "a wall could not be read".into() });
         }
         check_in_line(&lines, &rings)?;
 
@@ -234,10 +221,7 @@ impl Roof {
             hi = hi.max(w.corner);
         }
         let size = (hi - lo).max_element();
-        let min_rise = lines
-            .iter()
-            .filter_map(|l| l.rise)
-            .fold(f64::INFINITY, f64::min);
+        let min_rise = lines.iter().filter_map(|l| l.rise).fold(f64::INFINITY, f64::min);
         let tol = Tolerance::for_outline(size, if min_rise.is_finite() { min_rise } else { 1.0 });
         for (i, l) in lines.iter().enumerate() {
             if (l.end - l.start).length() <= tol.point {
@@ -245,8 +229,7 @@ impl Roof {
             }
         }
 
-        let sk = skeleton::solve(lines, &rings, tol)
-            .map_err(|reason| RoofError::Unsolvable { reason })?;
+        let sk = skeleton::solve(lines, &rings, tol).map_err(|reason| RoofError::Unsolvable { reason })?;
         Ok(build_roof(&sk, &tol))
     }
 }
@@ -260,10 +243,7 @@ fn check_walls(walls: &[Wall]) -> Result<(), RoofError> {
         if let WallRoof::Pitched { rise_per_run } = w.roof
             && !(rise_per_run > 0.0 && rise_per_run.is_finite())
         {
-            return Err(RoofError::PitchNotPositive {
-                wall: i,
-                rise_per_run,
-            });
+            return Err(RoofError::PitchNotPositive { wall: i, rise_per_run });
         }
     }
     Ok(())
@@ -299,9 +279,7 @@ fn coord(p: DVec2) -> robust::Coord<f64> {
 /// Twice-signed area of a ring (positive counter-clockwise), by the shoelace formula.
 fn signed_area(corners: &[DVec2]) -> f64 {
     let k = corners.len();
-    (0..k)
-        .filter_map(|i| Some(corners.get(i)?.perp_dot(*corners.get((i + 1) % k)?)))
-        .sum::<f64>()
+    (0..k).filter_map(|i| Some(corners.get(i)?.perp_dot(*corners.get((i + 1) % k)?))).sum::<f64>()
 }
 
 /// Whether walls `a` and `b` carry one and the same plane.
@@ -323,13 +301,11 @@ fn drop_collinear(points: Vec<DVec3>, tol: f64) -> Vec<DVec3> {
     let mut i = 1;
     while out.len() > 3 && i < out.len() {
         let k = out.len();
-        let (Some(&a), Some(&b), Some(&c)) = (out.get(i - 1), out.get(i), out.get((i + 1) % k))
-        else {
+        let (Some(&a), Some(&b), Some(&c)) = (out.get(i - 1), out.get(i), out.get((i + 1) % k)) else {
             break;
         };
         let (ab, bc) = (b - a, c - b);
-        let straight =
-            ab.cross(bc).length() <= tol * (ab.length() + bc.length()) && ab.dot(bc) >= 0.0;
+        let straight = ab.cross(bc).length() <= tol * (ab.length() + bc.length()) && ab.dot(bc) >= 0.0;
         if straight || ab.length() <= tol {
             out.remove(i);
         } else {
@@ -356,11 +332,7 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         let Some(line) = sk.lines.get(w) else {
             return w;
         };
-        sk.lines
-            .iter()
-            .filter(|o| coplanar(line, o, tol))
-            .map(|o| o.wall)
-            .fold(w, usize::min)
+        sk.lines.iter().filter(|o| coplanar(line, o, tol)).map(|o| o.wall).fold(w, usize::min)
     };
     let mut planes = Vec::new();
     let mut gables = Vec::new();
@@ -371,14 +343,8 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         };
         let k = face.len();
         if line.rise.is_none() {
-            let outline = face
-                .iter()
-                .map(|&n| node_pos(n).extend(node_time(n)))
-                .collect();
-            gables.push(GableFace {
-                wall: w,
-                outline: drop_collinear(outline, tol.point),
-            });
+            let outline = face.iter().map(|&n| node_pos(n).extend(node_time(n))).collect();
+            gables.push(GableFace { wall: w, outline: drop_collinear(outline, tol.point) });
             continue;
         }
         let mut sides = Vec::with_capacity(k);
@@ -405,17 +371,10 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             };
             sides.push(side);
         }
-        let outline = face
-            .iter()
-            .map(|&n| node_pos(n).extend(line.plane_height(node_pos(n))))
-            .collect();
+        let outline = face.iter().map(|&n| node_pos(n).extend(line.plane_height(node_pos(n)))).collect();
         let eave = eave_outline(w, &sk.lines, &sk.nodes, face, &sides);
-        let coplanar_walls = sk
-            .lines
-            .iter()
-            .filter(|o| o.wall != w && coplanar(line, o, tol))
-            .map(|o| o.wall)
-            .collect();
+        let coplanar_walls =
+            sk.lines.iter().filter(|o| o.wall != w && coplanar(line, o, tol)).map(|o| o.wall).collect();
         planes.push(RoofPlane {
             wall: w,
             rise_per_run: line.rise.unwrap_or(0.0),
@@ -450,32 +409,16 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
                 (_, false) => RoofLineKind::Valley,
                 (false, true) => RoofLineKind::Hip,
             };
-            let (from, to) = if za <= zb {
-                (pa.extend(za), pb.extend(zb))
-            } else {
-                (pb.extend(zb), pa.extend(za))
-            };
-            lines.push(RoofLine {
-                kind,
-                from,
-                to,
-                walls: [key.0, key.1],
-            });
+            let (from, to) =
+                if za <= zb { (pa.extend(za), pb.extend(zb)) } else { (pb.extend(zb), pa.extend(za)) };
+            lines.push(RoofLine { kind, from, to, walls: [key.0, key.1] });
         }
     }
-    Roof {
-        planes,
-        lines,
-        gables,
-    }
+    Roof { planes, lines, gables }
 }
 
 /// Joins segments (node pairs) that continue each other in a straight line.
-fn merge_segments(
-    segs: &[(usize, usize)],
-    pos: &dyn Fn(usize) -> DVec2,
-    tol: f64,
-) -> Vec<(usize, usize)> {
+fn merge_segments(segs: &[(usize, usize)], pos: &dyn Fn(usize) -> DVec2, tol: f64) -> Vec<(usize, usize)> {
     let mut out: Vec<(usize, usize)> = segs.to_vec();
     let mut merged = true;
     while merged {

@@ -12,19 +12,11 @@ use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof};
 const EPS: f64 = 1e-6;
 
 fn pitched(x: f64, y: f64, rise_per_run: f64) -> Wall {
-    Wall {
-        corner: DVec2::new(x, y),
-        roof: WallRoof::Pitched { rise_per_run },
-        overhang_in: 12.0,
-    }
+    Wall { corner: DVec2::new(x, y), roof: WallRoof::Pitched { rise_per_run }, overhang_in: 12.0 }
 }
 
 fn gable(x: f64, y: f64) -> Wall {
-    Wall {
-        corner: DVec2::new(x, y),
-        roof: WallRoof::Gable,
-        overhang_in: 12.0,
-    }
+    Wall { corner: DVec2::new(x, y), roof: WallRoof::Gable, overhang_in: 12.0 }
 }
 
 fn ring(points: &[(f64, f64)], rise: f64) -> Vec<Wall> {
@@ -45,19 +37,13 @@ fn solve(outer: Vec<Wall>, courtyards: Vec<Vec<Wall>>) -> (Roof, Vec<(DVec2, DVe
 
 fn shoelace(points: impl Iterator<Item = DVec2> + Clone) -> f64 {
     let v: Vec<DVec2> = points.collect();
-    (0..v.len())
-        .map(|i| v[i].perp_dot(v[(i + 1) % v.len()]))
-        .sum::<f64>()
-        / 2.0
+    (0..v.len()).map(|i| v[i].perp_dot(v[(i + 1) % v.len()])).sum::<f64>() / 2.0
 }
 
 /// Plan area of the outline: outer ring less the courtyards.
 fn outline_area(outer: &[Wall], courtyards: &[Vec<Wall>]) -> f64 {
     let a = shoelace(outer.iter().map(|w| w.corner)).abs();
-    a - courtyards
-        .iter()
-        .map(|c| shoelace(c.iter().map(|w| w.corner)).abs())
-        .sum::<f64>()
+    a - courtyards.iter().map(|c| shoelace(c.iter().map(|w| w.corner)).abs()).sum::<f64>()
 }
 
 /// Checks that hold for every roof: each plane starts on its wall line at
@@ -107,11 +93,7 @@ fn check_invariants(roof: &Roof, walls: &[(DVec2, DVec2)], area: f64) {
 }
 
 fn lines_of(roof: &Roof, kind: RoofLineKind) -> Vec<(DVec3, DVec3)> {
-    roof.lines
-        .iter()
-        .filter(|l| l.kind == kind)
-        .map(|l| (l.from, l.to))
-        .collect()
+    roof.lines.iter().filter(|l| l.kind == kind).map(|l| (l.from, l.to)).collect()
 }
 
 fn plan_len(l: &(DVec3, DVec3)) -> f64 {
@@ -124,10 +106,7 @@ fn rectangle_at_one_pitch() {
     // regular hip roof is length - width = 16 ft long and stands
     // width / 2 * slope = 144 * 0.5 = 72 in above the wall line; the four
     // hips run at 45 degrees in plan.
-    let outer = ring(
-        &[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)],
-        0.5,
-    );
+    let outer = ring(&[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)], 0.5);
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     assert_eq!(roof.planes.len(), 4);
@@ -149,21 +128,14 @@ fn rectangle_at_one_pitch() {
 fn square_has_four_hips_to_one_apex() {
     // Common practice, no source: a square hip roof is a pyramid; the apex
     // stands half the width times the slope above the plates (120 * 8/12).
-    let outer = ring(
-        &[(0.0, 0.0), (240.0, 0.0), (240.0, 240.0), (0.0, 240.0)],
-        8.0 / 12.0,
-    );
+    let outer = ring(&[(0.0, 0.0), (240.0, 0.0), (240.0, 240.0), (0.0, 240.0)], 8.0 / 12.0);
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     assert!(lines_of(&roof, RoofLineKind::Ridge).is_empty());
     let hips = lines_of(&roof, RoofLineKind::Hip);
     assert_eq!(hips.len(), 4);
     for h in hips {
-        assert_relative_eq!(
-            h.1.truncate().distance(DVec2::new(120.0, 120.0)),
-            0.0,
-            epsilon = EPS
-        );
+        assert_relative_eq!(h.1.truncate().distance(DVec2::new(120.0, 120.0)), 0.0, epsilon = EPS);
         assert_relative_eq!(h.1.z, 80.0, epsilon = EPS);
     }
     for p in &roof.planes {
@@ -176,23 +148,15 @@ fn rectangle_with_two_gables_is_a_gable_roof() {
     // Common practice, no source: two gable ends give two planes meeting in
     // one ridge the full length of the building, at half the span times
     // the slope (144 * 0.5 = 72 in); each gable is a triangle.
-    let outer = vec![
-        pitched(0.0, 0.0, 0.5),
-        gable(480.0, 0.0),
-        pitched(480.0, 288.0, 0.5),
-        gable(0.0, 288.0),
-    ];
+    let outer =
+        vec![pitched(0.0, 0.0, 0.5), gable(480.0, 0.0), pitched(480.0, 288.0, 0.5), gable(0.0, 288.0)];
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     assert_eq!(roof.planes.len(), 2);
     assert_eq!(roof.lines.len(), 1, "{:?}", roof.lines);
     let ridge = &roof.lines[0];
     assert_eq!(ridge.kind, RoofLineKind::Ridge);
-    assert_relative_eq!(
-        ridge.from.truncate().distance(ridge.to.truncate()),
-        480.0,
-        epsilon = EPS
-    );
+    assert_relative_eq!(ridge.from.truncate().distance(ridge.to.truncate()), 480.0, epsilon = EPS);
     assert_relative_eq!(ridge.from.z, 72.0, epsilon = EPS);
     assert_eq!(roof.gables.len(), 2);
     for g in &roof.gables {
@@ -204,14 +168,7 @@ fn rectangle_with_two_gables_is_a_gable_roof() {
 
 #[test]
 fn clockwise_input_gives_the_same_roof() {
-    let pts = [
-        (0.0, 0.0),
-        (480.0, 0.0),
-        (480.0, 288.0),
-        (300.0, 288.0),
-        (300.0, 500.0),
-        (0.0, 500.0),
-    ];
+    let pts = [(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (300.0, 288.0), (300.0, 500.0), (0.0, 500.0)];
     let ccw = ring(&pts, 0.5);
     let mut rev: Vec<(f64, f64)> = pts.to_vec();
     rev.reverse();
@@ -236,10 +193,7 @@ fn clockwise_input_gives_the_same_roof() {
 }
 
 fn assert_near(p: DVec3, x: f64, y: f64, z: f64) {
-    assert!(
-        p.distance(DVec3::new(x, y, z)) < EPS,
-        "{p:?} is not ({x}, {y}, {z})"
-    );
+    assert!(p.distance(DVec3::new(x, y, z)) < EPS, "{p:?} is not ({x}, {y}, {z})");
 }
 
 /// Whether some line of `kind` runs between the two 3D points (either way).
@@ -270,11 +224,7 @@ fn rectangle_with_steeper_ends() {
     for h in &hips {
         let d = (h.1 - h.0).truncate();
         assert_relative_eq!(d.y.abs() / d.x.abs(), 2.0, epsilon = 1e-9);
-        assert_relative_eq!(
-            (h.1.z - h.0.z) / d.length(),
-            6.0 / 180f64.sqrt(),
-            epsilon = 1e-9
-        );
+        assert_relative_eq!((h.1.z - h.0.z) / d.length(), 6.0 / 180f64.sqrt(), epsilon = 1e-9);
     }
     // Derivation: the ridge stands at 144 * 0.5 = 72 and the hips reach it
     // 72 / 1.0 = 72 in from each end wall, so it is 480 - 144 = 336 long.
@@ -288,12 +238,8 @@ fn rectangle_with_steeper_ends() {
 fn gable_roof_with_unequal_pitches_has_its_ridge_off_centre() {
     // Derivation: the ridge sits where 0.5 y = 1.0 (288 - y), y = 192, at
     // height 96.
-    let outer = vec![
-        pitched(0.0, 0.0, 0.5),
-        gable(480.0, 0.0),
-        pitched(480.0, 288.0, 1.0),
-        gable(0.0, 288.0),
-    ];
+    let outer =
+        vec![pitched(0.0, 0.0, 0.5), gable(480.0, 0.0), pitched(480.0, 288.0, 1.0), gable(0.0, 288.0)];
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     assert_eq!(roof.lines.len(), 1);
@@ -304,11 +250,7 @@ fn gable_roof_with_unequal_pitches_has_its_ridge_off_centre() {
         DVec3::new(480.0, 192.0, 96.0)
     ));
     for g in &roof.gables {
-        assert!(
-            g.outline
-                .iter()
-                .any(|p| p.distance(DVec3::new(g.outline[0].x, 192.0, 96.0)) < EPS)
-        );
+        assert!(g.outline.iter().any(|p| p.distance(DVec3::new(g.outline[0].x, 192.0, 96.0)) < EPS));
     }
 }
 
@@ -316,12 +258,8 @@ fn gable_roof_with_unequal_pitches_has_its_ridge_off_centre() {
 fn hip_at_one_end_gable_at_the_other() {
     // Common practice, no source: the ridge runs from the hip point, half
     // the width in from the hipped end, to the gable: 480 - 144 = 336 long.
-    let outer = vec![
-        pitched(0.0, 0.0, 0.5),
-        gable(480.0, 0.0),
-        pitched(480.0, 288.0, 0.5),
-        pitched(0.0, 288.0, 0.5),
-    ];
+    let outer =
+        vec![pitched(0.0, 0.0, 0.5), gable(480.0, 0.0), pitched(480.0, 288.0, 0.5), pitched(0.0, 288.0, 0.5)];
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     assert_eq!(roof.planes.len(), 3);
@@ -342,44 +280,15 @@ fn l_plan_with_equal_wings_meets_in_one_point() {
     // Derivation: both wings are 240 wide, so both ridges stand at
     // 120 * 0.5 = 60; the valley from the inside corner (240, 240) runs at
     // 45 degrees to (120, 120), where both ridges and the outside hip end.
-    let outer = ring(
-        &[
-            (0.0, 0.0),
-            (480.0, 0.0),
-            (480.0, 240.0),
-            (240.0, 240.0),
-            (240.0, 480.0),
-            (0.0, 480.0),
-        ],
-        0.5,
-    );
+    let outer =
+        ring(&[(0.0, 0.0), (480.0, 0.0), (480.0, 240.0), (240.0, 240.0), (240.0, 480.0), (0.0, 480.0)], 0.5);
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     let meet = DVec3::new(120.0, 120.0, 60.0);
-    assert!(has_line(
-        &roof,
-        RoofLineKind::Valley,
-        DVec3::new(240.0, 240.0, 0.0),
-        meet
-    ));
-    assert!(has_line(
-        &roof,
-        RoofLineKind::Hip,
-        DVec3::new(0.0, 0.0, 0.0),
-        meet
-    ));
-    assert!(has_line(
-        &roof,
-        RoofLineKind::Ridge,
-        meet,
-        DVec3::new(360.0, 120.0, 60.0)
-    ));
-    assert!(has_line(
-        &roof,
-        RoofLineKind::Ridge,
-        meet,
-        DVec3::new(120.0, 360.0, 60.0)
-    ));
+    assert!(has_line(&roof, RoofLineKind::Valley, DVec3::new(240.0, 240.0, 0.0), meet));
+    assert!(has_line(&roof, RoofLineKind::Hip, DVec3::new(0.0, 0.0, 0.0), meet));
+    assert!(has_line(&roof, RoofLineKind::Ridge, meet, DVec3::new(360.0, 120.0, 60.0)));
+    assert!(has_line(&roof, RoofLineKind::Ridge, meet, DVec3::new(120.0, 360.0, 60.0)));
     assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 1);
     assert_eq!(lines_of(&roof, RoofLineKind::Hip).len(), 5);
     assert_eq!(lines_of(&roof, RoofLineKind::Ridge).len(), 2);
@@ -390,17 +299,8 @@ fn l_plan_with_unequal_wings() {
     // Derivation: wings 288 and 300 wide give ridges at 72 and 75; the
     // valley from (300, 288) meets the lower ridge at (156, 144), and a
     // short hip climbs from there to the higher ridge's end at (150, 150).
-    let outer = ring(
-        &[
-            (0.0, 0.0),
-            (480.0, 0.0),
-            (480.0, 288.0),
-            (300.0, 288.0),
-            (300.0, 500.0),
-            (0.0, 500.0),
-        ],
-        0.5,
-    );
+    let outer =
+        ring(&[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (300.0, 288.0), (300.0, 500.0), (0.0, 500.0)], 0.5);
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     assert!(has_line(
@@ -450,24 +350,9 @@ fn t_plan_valleys_meet_the_main_ridge() {
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     let meet = DVec3::new(360.0, 360.0, 60.0);
-    assert!(has_line(
-        &roof,
-        RoofLineKind::Valley,
-        DVec3::new(480.0, 240.0, 0.0),
-        meet
-    ));
-    assert!(has_line(
-        &roof,
-        RoofLineKind::Valley,
-        DVec3::new(240.0, 240.0, 0.0),
-        meet
-    ));
-    assert!(has_line(
-        &roof,
-        RoofLineKind::Ridge,
-        DVec3::new(360.0, 120.0, 60.0),
-        meet
-    ));
+    assert!(has_line(&roof, RoofLineKind::Valley, DVec3::new(480.0, 240.0, 0.0), meet));
+    assert!(has_line(&roof, RoofLineKind::Valley, DVec3::new(240.0, 240.0, 0.0), meet));
+    assert!(has_line(&roof, RoofLineKind::Ridge, DVec3::new(360.0, 120.0, 60.0), meet));
     assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 2);
 }
 
@@ -615,16 +500,8 @@ fn square_ring_round_a_courtyard() {
     // 60 in from every wall at height 60 * 0.5 = 30; hips at the outer
     // corners, valleys at the courtyard's corners.
     for hole_ccw in [true, false] {
-        let outer = ring(
-            &[(0.0, 0.0), (480.0, 0.0), (480.0, 480.0), (0.0, 480.0)],
-            0.5,
-        );
-        let mut hole_pts = vec![
-            (120.0, 120.0),
-            (360.0, 120.0),
-            (360.0, 360.0),
-            (120.0, 360.0),
-        ];
+        let outer = ring(&[(0.0, 0.0), (480.0, 0.0), (480.0, 480.0), (0.0, 480.0)], 0.5);
+        let mut hole_pts = vec![(120.0, 120.0), (360.0, 120.0), (360.0, 360.0), (120.0, 360.0)];
         if !hole_ccw {
             hole_pts.reverse();
         }
@@ -654,16 +531,7 @@ fn walls_in_line_share_one_plane() {
     // The front wall is given as two walls in line at one pitch: the roof
     // is the plain hip roof (ridge 480 - 288 = 192 at 72, common practice),
     // with no line between the two front walls' parts.
-    let outer = ring(
-        &[
-            (0.0, 0.0),
-            (100.0, 0.0),
-            (480.0, 0.0),
-            (480.0, 288.0),
-            (0.0, 288.0),
-        ],
-        0.5,
-    );
+    let outer = ring(&[(0.0, 0.0), (100.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)], 0.5);
     let (roof, walls) = solve(outer.clone(), vec![]);
     check_invariants(&roof, &walls, outline_area(&outer, &[]));
     assert_eq!(roof.planes.len(), 5);
@@ -680,10 +548,7 @@ fn eaves_meet_at_the_fascia_corner() {
     // Equal overhangs at one pitch: the hip extended down meets the fascia
     // corner 12 in out on both sides, 12 * 0.5 = 6 in below the wall line
     // (common practice, no source).
-    let outer = ring(
-        &[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)],
-        0.5,
-    );
+    let outer = ring(&[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)], 0.5);
     let (roof, _) = solve(outer, vec![]);
     let e = &roof.planes[0].eave_outline;
     assert_near(e[0], -12.0, -12.0, -6.0);
@@ -710,11 +575,7 @@ fn eaves_with_overhangs_in_the_pitch_ratio_stay_level() {
     assert_near(e[1], 486.0, -12.0, -6.0);
     let end = roof.planes.iter().find(|p| p.wall == 1).unwrap();
     assert!(end.eave_outline.iter().all(|p| p.z > -6.0 - EPS));
-    assert!(
-        end.eave_outline
-            .iter()
-            .any(|p| p.distance(DVec3::new(486.0, -12.0, -6.0)) < EPS)
-    );
+    assert!(end.eave_outline.iter().any(|p| p.distance(DVec3::new(486.0, -12.0, -6.0)) < EPS));
 }
 
 #[test]
@@ -724,42 +585,22 @@ fn eaves_with_unequal_overhangs_cover_the_fascia_corner() {
     // front fascia y = -12 at (-12, -12) before the end fascia x = -24, so
     // the end plane also covers the fascia from there to the corner
     // (-24, -12).
-    let mut outer = ring(
-        &[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)],
-        0.5,
-    );
+    let mut outer = ring(&[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)], 0.5);
     outer[3].overhang_in = 24.0;
     let (roof, _) = solve(outer, vec![]);
     let front = &roof.planes[0].eave_outline;
     assert_near(front[0], -12.0, -12.0, -6.0);
-    let end = &roof
-        .planes
-        .iter()
-        .find(|p| p.wall == 3)
-        .unwrap()
-        .eave_outline;
-    assert!(
-        end.iter()
-            .any(|p| p.distance(DVec3::new(-12.0, -12.0, -6.0)) < EPS),
-        "{end:?}"
-    );
-    assert!(
-        end.iter()
-            .any(|p| p.distance(DVec3::new(-24.0, -12.0, -12.0)) < EPS),
-        "{end:?}"
-    );
+    let end = &roof.planes.iter().find(|p| p.wall == 3).unwrap().eave_outline;
+    assert!(end.iter().any(|p| p.distance(DVec3::new(-12.0, -12.0, -6.0)) < EPS), "{end:?}");
+    assert!(end.iter().any(|p| p.distance(DVec3::new(-24.0, -12.0, -12.0)) < EPS), "{end:?}");
 }
 
 #[test]
 fn gable_rake_carries_the_plane_out_to_the_barge_line() {
     // Derivation: a gable roof 480 x 288 at 6 in 12 with 12 in rakes: the
     // front plane runs out to x = -12 and x = 492 and up to the ridge at 72.
-    let outer = vec![
-        pitched(0.0, 0.0, 0.5),
-        gable(480.0, 0.0),
-        pitched(480.0, 288.0, 0.5),
-        gable(0.0, 288.0),
-    ];
+    let outer =
+        vec![pitched(0.0, 0.0, 0.5), gable(480.0, 0.0), pitched(480.0, 288.0, 0.5), gable(0.0, 288.0)];
     let (roof, _) = solve(outer, vec![]);
     let e = &roof.planes[0].eave_outline;
     assert_eq!(e.len(), 4, "{e:?}");
@@ -769,13 +610,70 @@ fn gable_rake_carries_the_plane_out_to_the_barge_line() {
     assert_near(e[3], -12.0, 144.0, 72.0);
 }
 
+/// A small deterministic random source (a 64-bit LCG), so the random plans
+/// below are the same on every run.
+struct Lcg(u64);
+
+impl Lcg {
+    fn next(&mut self) -> f64 {
+        self.0 = self.0.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
+        (self.0 >> 11) as f64 / (1u64 << 53) as f64
+    }
+}
+
+/// A star-shaped plan: corners at equal angles, random radii.
+fn star(n: usize, seed: u64) -> Vec<(f64, f64)> {
+    let mut rng = Lcg(seed);
+    (0..n)
+        .map(|i| {
+            let a = std::f64::consts::TAU * i as f64 / n as f64;
+            let r = 300.0 + 300.0 * rng.next();
+            (r * a.cos(), r * a.sin())
+        })
+        .collect()
+}
+
+/// An orthogonal comb: a spine with `teeth` teeth of random depth.
+fn comb(teeth: usize, seed: u64) -> Vec<(f64, f64)> {
+    let mut rng = Lcg(seed);
+    let w = 48.0;
+    let mut pts = vec![(0.0, 0.0), (2.0 * w * teeth as f64, 0.0)];
+    for i in (0..teeth).rev() {
+        let depth = 100.0 + (300.0 * rng.next()).round();
+        let x0 = 2.0 * w * i as f64;
+        pts.push((x0 + 2.0 * w, 100.0 + depth));
+        pts.push((x0 + w, 100.0 + depth));
+        pts.push((x0 + w, 100.0));
+        pts.push((x0, 100.0));
+    }
+    pts
+}
+
 #[test]
-fn bad_pitch_is_an_error_not_a_panic() {
-    let outer = ring(
-        &[(0.0, 0.0), (480.0, 0.0), (480.0, 288.0), (0.0, 288.0)],
-        0.0,
-    );
-    let outline = Outline::new(outer, vec![]).unwrap();
-    let err = Roof::solve(&outline).unwrap_err();
-    assert!(err.to_string().contains("wall 1"), "{err}");
+fn random_star_plans_tile_the_outline() {
+    for seed in 1..40 {
+        for n in [5, 9, 16, 40] {
+            let outer = ring(&star(n, seed), 0.5 + (seed % 3) as f64 * 0.25);
+            let outline = Outline::new(outer.clone(), vec![]).unwrap();
+            let roof = Roof::solve(&outline).unwrap_or_else(|e| panic!("star n={n} seed={seed}: {e}"));
+            let ends: Vec<_> = (0..n).map(|i| (outer[i].corner, outer[(i + 1) % n].corner)).collect();
+            check_invariants(&roof, &ends, outline_area(&outer, &[]));
+        }
+    }
+}
+
+#[test]
+fn random_comb_plans_tile_the_outline() {
+    for seed in 1..20 {
+        for teeth in [1, 3, 8] {
+            let pts = comb(teeth, seed);
+            let outer = ring(&pts, 0.5);
+            let n = outer.len();
+            let outline = Outline::new(outer.clone(), vec![]).unwrap();
+            let roof =
+                Roof::solve(&outline).unwrap_or_else(|e| panic!("comb teeth={teeth} seed={seed}: {e}"));
+            let ends: Vec<_> = (0..n).map(|i| (outer[i].corner, outer[(i + 1) % n].corner)).collect();
+            check_invariants(&roof, &ends, outline_area(&outer, &[]));
+        }
+    }
 }

@@ -24,10 +24,7 @@ pub(crate) fn clean_up(wf: &mut Wavefront, start: Vec<VertexId>, t: f64) -> Vec<
         touched.push(v);
         let n1 = wf.next(v);
         let short = n1 == v || wf.next(n1) == v;
-        let spike = wf
-            .vertices
-            .get(v)
-            .is_some_and(|x| x.corner == Corner::Spike);
+        let spike = wf.vertices.get(v).is_some_and(|x| x.corner == Corner::Spike);
         if short {
             collapse_cycle(wf, v, t);
             continue;
@@ -82,8 +79,7 @@ fn collapse_cycle(wf: &mut Wavefront, v: VertexId, t: f64) {
     }
     let count = cycle.len();
     for i in 0..count {
-        let (Some(&x), Some(&ns), Some(&ne)) =
-            (cycle.get(i), nodes.get(i), nodes.get((i + 1) % count))
+        let (Some(&x), Some(&ns), Some(&ne)) = (cycle.get(i), nodes.get(i), nodes.get((i + 1) % count))
         else {
             continue;
         };

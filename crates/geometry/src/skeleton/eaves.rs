@@ -59,13 +59,7 @@ fn fascia_corner(a: &WallLine, b: &WallLine, fallback: DVec2) -> DVec2 {
 /// face edge running from `c` towards `inner` against the pitched wall
 /// `other`; `own_first` when the fascia edge comes before the hip edge in
 /// the face's order. Returned in the face's order.
-fn corner_points(
-    own: &WallLine,
-    other: &WallLine,
-    c: DVec2,
-    inner: DVec2,
-    own_first: bool,
-) -> Vec<DVec2> {
+fn corner_points(own: &WallLine, other: &WallLine, c: DVec2, inner: DVec2, own_first: bool) -> Vec<DVec2> {
     let d = c - inner;
     let (na, ca) = fascia(own);
     let (nb, cb) = fascia(other);
@@ -74,11 +68,7 @@ fn corner_points(
     match (hit_a, hit_b) {
         (Some(a), Some(b)) if b.0 < a.0 => {
             let f = fascia_corner(own, other, c);
-            if own_first {
-                vec![f, b.1]
-            } else {
-                vec![b.1, f]
-            }
+            if own_first { vec![f, b.1] } else { vec![b.1, f] }
         }
         (Some(a), _) => vec![a.1],
         (None, Some(_)) | (None, None) => vec![fascia_corner(own, other, c)],
@@ -98,11 +88,7 @@ pub(crate) fn eave_outline(
         return Vec::new();
     };
     let k = face.len();
-    let pos = |i: usize| {
-        face.get(i % k)
-            .and_then(|&n| nodes.get(n))
-            .map_or(DVec2::ZERO, |n| n.pos)
-    };
+    let pos = |i: usize| face.get(i % k).and_then(|&n| nodes.get(n)).map_or(DVec2::ZERO, |n| n.pos);
     let side = |i: usize| sides.get(i % k).copied().unwrap_or(EdgeSide::Other);
     let support = |s: EdgeSide| -> Option<&WallLine> {
         match s {
@@ -127,9 +113,7 @@ pub(crate) fn eave_outline(
                     },
                     _ => {
                         let (n, c) = fascia(x);
-                        vec![
-                            meet(here, here - towards, n, c).map_or(here - n * x.overhang, |h| h.1),
-                        ]
+                        vec![meet(here, here - towards, n, c).map_or(here - n * x.overhang, |h| h.1)]
                     }
                 }
             }
@@ -160,7 +144,5 @@ pub(crate) fn eave_outline(
         out.extend(pts);
     }
     out.extend(first.iter().take(first.len().saturating_sub(1)));
-    out.into_iter()
-        .map(|p| p.extend(own.plane_height(p)))
-        .collect()
+    out.into_iter().map(|p| p.extend(own.plane_height(p))).collect()
 }

@@ -70,24 +70,14 @@ pub(crate) fn edge_collapse(wf: &Wavefront, e: EdgeId, now: f64) -> Option<Event
         if length.abs() <= wf.tol.point && edge.start != edge.end {
             return Some(Event {
                 time: now,
-                kind: EventKind::Edge {
-                    edge: e,
-                    start: edge.start,
-                    end: edge.end,
-                },
+                kind: EventKind::Edge { edge: e, start: edge.start, end: edge.end },
             });
         }
         return None;
     }
     let time = (t_ref - length / rate).max(now);
-    time.is_finite().then_some(Event {
-        time,
-        kind: EventKind::Edge {
-            edge: e,
-            start: edge.start,
-            end: edge.end,
-        },
-    })
+    time.is_finite()
+        .then_some(Event { time, kind: EventKind::Edge { edge: e, start: edge.start, end: edge.end } })
 }
 
 /// Computes the split candidates of reflex vertex `v` later than `after`
@@ -119,9 +109,7 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
     if found.len() > SPLIT_CANDIDATES_KEPT {
         // Keep every candidate tied with the last one kept, so a recompute
         // "strictly later" never skips one.
-        let limit = found
-            .get(SPLIT_CANDIDATES_KEPT - 1)
-            .map_or(f64::INFINITY, |c| c.0);
+        let limit = found.get(SPLIT_CANDIDATES_KEPT - 1).map_or(f64::INFINITY, |c| c.0);
         let keep = found.iter().take_while(|c| c.0 <= limit).count();
         truncated = keep < found.len();
         found.truncate(keep);
@@ -136,10 +124,7 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
 /// The next split candidate of `v` as an event, recomputing when the kept
 /// ones have run out.
 pub(crate) fn next_split(wf: &mut Wavefront, v: VertexId, last: f64) -> Option<Event> {
-    let needs_more = wf
-        .vertices
-        .get(v)
-        .is_some_and(|x| x.alive && x.splits.is_empty() && x.splits_truncated);
+    let needs_more = wf.vertices.get(v).is_some_and(|x| x.alive && x.splits.is_empty() && x.splits_truncated);
     if needs_more {
         compute_splits(wf, v, last, false);
     }
@@ -148,10 +133,7 @@ pub(crate) fn next_split(wf: &mut Wavefront, v: VertexId, last: f64) -> Option<E
         return None;
     }
     let (time, line) = vx.splits.pop()?;
-    Some(Event {
-        time,
-        kind: EventKind::Split { vertex: v, line },
-    })
+    Some(Event { time, kind: EventKind::Split { vertex: v, line } })
 }
 
 /// The live edge piece of `line` that reflex vertex `v` touches at height `t`, if any.

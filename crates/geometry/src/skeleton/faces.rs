@@ -9,10 +9,7 @@ use super::wavefront::NodeId;
 /// of a square line between two pieces of the same wall line). Returns the
 /// nodes in order (without repeating the first), or `None` if the arcs do
 /// not close into one boundary.
-pub(crate) fn chain_face(
-    first: (NodeId, NodeId),
-    arcs: &[(NodeId, NodeId)],
-) -> Option<Vec<NodeId>> {
+pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> Option<Vec<NodeId>> {
     let mut count: HashMap<(NodeId, NodeId), i64> = HashMap::new();
     for &arc in std::iter::once(&first).chain(arcs) {
         if arc.0 == arc.1 {
@@ -26,11 +23,7 @@ pub(crate) fn chain_face(
     }
     let mut out: HashMap<NodeId, Vec<NodeId>> = HashMap::new();
     let mut total = 0usize;
-    let mut keys: Vec<_> = count
-        .iter()
-        .filter(|(_, c)| **c > 0)
-        .map(|(k, c)| (*k, *c))
-        .collect();
+    let mut keys: Vec<_> = count.iter().filter(|(_, c)| **c > 0).map(|(k, c)| (*k, *c)).collect();
     keys.sort_unstable();
     for ((a, b), c) in keys {
         for _ in 0..c {

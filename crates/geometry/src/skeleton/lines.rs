@@ -36,17 +36,7 @@ impl WallLine {
         let dir = (end - start).normalize_or_zero();
         let normal = dir.perp();
         let speed = rise.map_or(0.0, |r| 1.0 / r);
-        Self {
-            wall,
-            dir,
-            normal,
-            offset: normal.dot(start),
-            speed,
-            rise,
-            start,
-            end,
-            overhang,
-        }
+        Self { wall, dir, normal, offset: normal.dot(start), speed, rise, start, end, overhang }
     }
 
     /// Signed plan distance from `p` to the moving line at height `t`,
@@ -58,7 +48,6 @@ impl WallLine {
     /// Height of this wall's roof plane above the plan point `p` (negative
     /// outside the wall line); 0 for a gable.
     pub fn plane_height(&self, p: DVec2) -> f64 {
-        self.rise
-            .map_or(0.0, |r| r * (self.normal.dot(p) - self.offset))
+        self.rise.map_or(0.0, |r| r * (self.normal.dot(p) - self.offset))
     }
 }

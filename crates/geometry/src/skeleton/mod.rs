@@ -59,11 +59,7 @@ pub(crate) struct Skeleton {
 
 /// Computes the skeleton of `rings` (the first the outer ring) over the
 /// wall `lines` (indexed by global wall index).
-pub(crate) fn solve(
-    lines: Vec<WallLine>,
-    rings: &[Ring],
-    tol: Tolerance,
-) -> Result<Skeleton, String> {
+pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Result<Skeleton, String> {
     let n = lines.len();
     let mut wf = Wavefront {
         lines,
@@ -143,11 +139,9 @@ pub(crate) fn solve(
 
     let mut faces = vec![Vec::new(); n];
     for (w, face) in faces.iter_mut().enumerate() {
-        let (Some(&s), Some(&e), Some(arcs)) = (
-            wf.wall_start_node.get(w),
-            wf.wall_end_node.get(w),
-            wf.arcs.get(w),
-        ) else {
+        let (Some(&s), Some(&e), Some(arcs)) =
+            (wf.wall_start_node.get(w), wf.wall_end_node.get(w), wf.arcs.get(w))
+        else {
             continue;
         };
         match faces::chain_face((s, e), arcs) {
@@ -155,11 +149,7 @@ pub(crate) fn solve(
             None => return Err(format!("the roof plane over wall {} does not close", w + 1)),
         }
     }
-    Ok(Skeleton {
-        nodes: wf.nodes,
-        faces,
-        lines: wf.lines,
-    })
+    Ok(Skeleton { nodes: wf.nodes, faces, lines: wf.lines })
 }
 
 /// Pushes edge events for the pieces at `vertices` and split candidates for
@@ -202,11 +192,7 @@ fn pop_valid(
         let Some(ev) = heap.pop() else { break };
         match ev.kind {
             EventKind::Edge { edge, start, end } => {
-                if wf
-                    .edges
-                    .get(edge)
-                    .is_some_and(|e| e.alive && e.start == start && e.end == end)
-                {
+                if wf.edges.get(edge).is_some_and(|e| e.alive && e.start == start && e.end == end) {
                     return Some((ev, None));
                 }
             }
@@ -236,12 +222,7 @@ fn cluster(wf: &Wavefront, batch: &[(Event, Option<EdgeId>)]) -> Vec<Site> {
         match ev.kind {
             EventKind::Edge { start, end, .. } => {
                 let pos = (wf.pos(start, t) + wf.pos(end, t)) * 0.5;
-                raw.push(Site {
-                    pos,
-                    time: t,
-                    vertices: vec![start, end],
-                    through_lines: Vec::new(),
-                });
+                raw.push(Site { pos, time: t, vertices: vec![start, end], through_lines: Vec::new() });
             }
             EventKind::Split { vertex, .. } => {
                 let lines = hit.map(|e| vec![wf.edge_line(e)]).unwrap_or_default();

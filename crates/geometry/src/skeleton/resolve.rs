@@ -43,12 +43,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
 
     // Gather the vertices standing at the point, walking along their cycles.
     let mut members: HashSet<VertexId> = HashSet::new();
-    let mut stack: Vec<VertexId> = site
-        .vertices
-        .iter()
-        .copied()
-        .filter(|&v| at_p(wf, v))
-        .collect();
+    let mut stack: Vec<VertexId> = site.vertices.iter().copied().filter(|&v| at_p(wf, v)).collect();
     let mut through: Vec<EdgeId> = Vec::new();
     let mut pending_lines = site.through_lines.clone();
     loop {
@@ -91,9 +86,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         }
     }
     through.retain(|&e| {
-        wf.edges
-            .get(e)
-            .is_some_and(|x| !members.contains(&x.start) && !members.contains(&x.end))
+        wf.edges.get(e).is_some_and(|x| !members.contains(&x.start) && !members.contains(&x.end))
     });
     if members.is_empty() && through.len() < 2 {
         return Vec::new();
@@ -148,39 +141,18 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
             continue;
         };
         let (a, b) = (fx.in_edge, lx.out_edge);
-        let (Some(la), Some(lb)) = (wf.lines.get(wf.edge_line(a)), wf.lines.get(wf.edge_line(b)))
-        else {
+        let (Some(la), Some(lb)) = (wf.lines.get(wf.edge_line(a)), wf.lines.get(wf.edge_line(b))) else {
             continue;
         };
-        rays.push(Ray {
-            angle: angle_of(-la.dir),
-            leaving: false,
-            edge: a,
-            through: None,
-        });
-        rays.push(Ray {
-            angle: angle_of(lb.dir),
-            leaving: true,
-            edge: b,
-            through: None,
-        });
+        rays.push(Ray { angle: angle_of(-la.dir), leaving: false, edge: a, through: None });
+        rays.push(Ray { angle: angle_of(lb.dir), leaving: true, edge: b, through: None });
     }
     for (i, &e) in through.iter().enumerate() {
         let Some(l) = wf.lines.get(wf.edge_line(e)) else {
             continue;
         };
-        rays.push(Ray {
-            angle: angle_of(-l.dir),
-            leaving: false,
-            edge: e,
-            through: Some(i),
-        });
-        rays.push(Ray {
-            angle: angle_of(l.dir),
-            leaving: true,
-            edge: e,
-            through: Some(i),
-        });
+        rays.push(Ray { angle: angle_of(-l.dir), leaving: false, edge: e, through: Some(i) });
+        rays.push(Ray { angle: angle_of(l.dir), leaving: true, edge: e, through: Some(i) });
     }
 
     // Retire the members at one node.
@@ -258,9 +230,7 @@ fn piece_through(wf: &Wavefront, line: usize, p: DVec2, t: f64, near: f64) -> Op
     }
     wf.pieces_by_line.get(line)?.iter().copied().find(|&e| {
         wf.edges.get(e).is_some_and(|x| {
-            x.alive
-                && l.dir.dot(p - wf.pos(x.start, t)) >= -near
-                && l.dir.dot(wf.pos(x.end, t) - p) >= -near
+            x.alive && l.dir.dot(p - wf.pos(x.start, t)) >= -near && l.dir.dot(wf.pos(x.end, t) - p) >= -near
         })
     })
 }
@@ -268,11 +238,7 @@ fn piece_through(wf: &Wavefront, line: usize, p: DVec2, t: f64, near: f64) -> Op
 /// Angle of `d` in `[0, 2 pi)`.
 fn angle_of(d: DVec2) -> f64 {
     let a = d.y.atan2(d.x);
-    if a < 0.0 {
-        a + std::f64::consts::TAU
-    } else {
-        a
-    }
+    if a < 0.0 { a + std::f64::consts::TAU } else { a }
 }
 
 /// Pairs each leaving ray with the next arriving ray counter-clockwise

@@ -28,10 +28,6 @@ impl Tolerance {
     /// Tolerances for an outline of extent `size` whose lowest pitch is `min_rise`.
     pub fn for_outline(size: f64, min_rise: f64) -> Self {
         let point = 1e-7 * size.max(f64::MIN_POSITIVE);
-        Self {
-            point,
-            time: point * min_rise.clamp(1e-3, 1e3),
-            angle: 1e-10,
-        }
+        Self { point, time: point * min_rise.clamp(1e-3, 1e3), angle: 1e-10 }
     }
 }

@@ -114,11 +114,7 @@ pub(crate) fn vertex_motion(a: &WallLine, b: &WallLine, tol: &Tolerance) -> (DVe
             a.speed * b.normal.y - b.speed * a.normal.y,
             a.normal.x * b.speed - b.normal.x * a.speed,
         ) / det;
-        let corner = if det > 0.0 {
-            Corner::Convex
-        } else {
-            Corner::Reflex
-        };
+        let corner = if det > 0.0 { Corner::Convex } else { Corner::Reflex };
         (vel, corner)
     } else if a.dir.dot(b.dir) > 0.0 {
         // Parallel and running the same way: the lower-pitch (faster) line
@@ -146,12 +142,7 @@ impl Wavefront {
 
     /// Adds an edge piece on `line` (links are set by the caller).
     pub fn add_edge(&mut self, line: usize, start: VertexId, end: VertexId) -> EdgeId {
-        self.edges.push(EdgePiece {
-            line,
-            start,
-            end,
-            alive: true,
-        });
+        self.edges.push(EdgePiece { line, start, end, alive: true });
         let id = self.edges.len() - 1;
         if let Some(list) = self.pieces_by_line.get_mut(line) {
             list.push(id);
@@ -173,10 +164,7 @@ impl Wavefront {
             (Some(a), Some(b)) => vertex_motion(a, b, &self.tol),
             _ => (DVec2::ZERO, Corner::Spike),
         };
-        let (anchor, t0) = self
-            .nodes
-            .get(node)
-            .map_or((DVec2::ZERO, 0.0), |n| (n.pos, n.time));
+        let (anchor, t0) = self.nodes.get(node).map_or((DVec2::ZERO, 0.0), |n| (n.pos, n.time));
         self.vertices.push(Vertex {
             in_line,
             out_line,
