@@ -28,7 +28,6 @@ pub mod outline;
 pub mod pitch;
 pub mod rafter_table;
 pub mod roof;
-mod skeleton;
 
 pub use compound_cut::{CompoundCut, CutAngles, CutWarning, MiterSetting, SquareFigures};
 pub use length::{Length, LengthError, LengthStyle, LengthUnit};

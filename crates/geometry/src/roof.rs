@@ -14,11 +14,16 @@ use std::collections::HashMap;
 
 use glam::DVec2;
 
-use crate::skeleton::eaves::{EdgeSide, eave_outline};
-use crate::skeleton::lines::WallLine;
-use crate::skeleton::tolerance::Tolerance;
-use crate::skeleton::{self, Ring, Skeleton};
+// The skeleton has a folder of its own beside this file; it is declared
+// here, as only the roof solve uses it.
+#[path = "skeleton/mod.rs"]
+mod skeleton;
+
 use crate::{Outline, Wall, WallRoof};
+use skeleton::eaves::{EdgeSide, eave_outline};
+use skeleton::lines::WallLine;
+use skeleton::tolerance::Tolerance;
+use skeleton::{Ring, Skeleton};
 
 /// The kind of line where two roof planes meet.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
