@@ -36,3 +36,8 @@ pub use outline::{Outline, OutlineError, Wall, WallRoof};
 pub use pitch::{Pitch, PitchError};
 pub use rafter_table::{AngleSetting, MarkAlong, MetricRafterTable, RafterTable, SquareSetting};
 pub use roof::{GableFace, Roof, RoofError, RoofLine, RoofLineKind, RoofPlane};
+pub mod demo;
+pub mod plan;
+
+pub use demo::{DEMO_PLAN_TOML, demo_plan};
+pub use plan::{FramingInput, Plan, PlanError, PlanWall};

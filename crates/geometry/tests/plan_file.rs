@@ -1,0 +1,156 @@
+//! The plan file format: what it reads, what it refuses, and round trips.
+
+use pitchframe_geometry::{LengthUnit, Pitch, Plan, PlanError, demo_plan};
+
+const SQUARE: &str = r#"
+format = 1
+units = "in"
+[roof]
+pitch = "6/12"
+overhang = 16
+[[wall]]
+at = [0, 0]
+[[wall]]
+at = ["40'", 0]
+pitch = "8/12"
+[[wall]]
+at = ["40'", "24'"]
+gable = true
+[[wall]]
+at = [0, "24'"]
+"#;
+
+fn error(text: &str) -> String {
+    match Plan::from_toml(text) {
+        Ok(_) => panic!("expected the plan to be refused:\n{text}"),
+        Err(e) => e.to_string(),
+    }
+}
+
+#[test]
+fn reads_the_documented_example() {
+    let plan = Plan::from_toml(SQUARE).unwrap();
+    assert_eq!(plan.units, LengthUnit::Inch);
+    assert_eq!(plan.walls.len(), 4);
+    // 40' = 480 in (definition of the foot).
+    assert_eq!(plan.walls[1].at[0].inches(), 480.0);
+    assert_eq!(plan.walls[2].at[1].inches(), 288.0);
+    assert!(plan.walls[2].gable);
+    assert_eq!(plan.wall_pitch(1), Some(Pitch::parse("8/12").unwrap()));
+    assert_eq!(plan.wall_pitch(0), Some(Pitch::parse("6/12").unwrap()));
+    assert_eq!(plan.default_overhang.inches(), 16.0);
+}
+
+#[test]
+fn plain_numbers_take_the_plan_unit() {
+    let text = SQUARE.replace("units = \"in\"", "units = \"mm\"");
+    let plan = Plan::from_toml(&text).unwrap();
+    // 16 mm overhang, 25.4 mm to the inch (international inch, 1959).
+    assert!((plan.default_overhang.inches() - 16.0 / 25.4).abs() < 1e-12);
+    // Text with its own unit keeps it: 40' is still 480 in.
+    assert_eq!(plan.walls[1].at[0].inches(), 480.0);
+}
+
+#[test]
+fn round_trips_through_toml() {
+    for plan in [Plan::from_toml(SQUARE).unwrap(), demo_plan().unwrap()] {
+        let again = Plan::from_toml(&plan.to_toml()).unwrap();
+        assert_eq!(again, plan);
+    }
+}
+
+#[test]
+fn refuses_unknown_keys_with_their_name() {
+    let message = error(&SQUARE.replace("overhang = 16", "overhange = 16"));
+    assert!(message.contains("overhange"), "{message}");
+}
+
+#[test]
+fn refuses_wrong_types() {
+    let message = error(&SQUARE.replace("gable = true", "gable = \"yes\""));
+    assert!(message.contains("gable") || message.contains("bool"), "{message}");
+}
+
+#[test]
+fn refuses_text_that_is_not_toml() {
+    assert!(matches!(Plan::from_toml("this is not [ toml"), Err(PlanError::Syntax { .. })));
+}
+
+#[test]
+fn names_the_wall_with_a_bad_pitch() {
+    let message = error(&SQUARE.replace("\"8/12\"", "\"0/12\""));
+    assert!(message.starts_with("wall 2 pitch"), "{message}");
+}
+
+#[test]
+fn names_the_wall_with_a_bad_length() {
+    let message = error(&SQUARE.replace("[\"40'\", 0]", "[\"40'x\", 0]"));
+    assert!(message.starts_with("wall 2, corner x"), "{message}");
+}
+
+#[test]
+fn refuses_non_finite_and_huge_numbers() {
+    let message = error(&SQUARE.replace("at = [0, 0]", "at = [nan, 0]"));
+    assert!(message.contains("wall 1, corner x"), "{message}");
+    let message = error(&SQUARE.replace("at = [0, 0]", "at = [1e300, 0]"));
+    assert!(message.contains("beyond the largest"), "{message}");
+}
+
+#[test]
+fn refuses_unknown_format_and_units() {
+    assert!(matches!(
+        Plan::from_toml(&SQUARE.replace("format = 1", "format = 7")),
+        Err(PlanError::UnknownFormat { found: 7 })
+    ));
+    assert!(matches!(
+        Plan::from_toml(&SQUARE.replace("units = \"in\"", "units = \"cubits\"")),
+        Err(PlanError::UnknownUnits { .. })
+    ));
+}
+
+#[test]
+fn refuses_a_plan_without_a_pitch() {
+    let message = error(&SQUARE.replace("pitch = \"6/12\"\n", ""));
+    assert!(message.contains("no pitch"), "{message}");
+}
+
+#[test]
+fn caps_the_file_size() {
+    let text = format!("{SQUARE}\n#{}", "x".repeat(pitchframe_geometry::plan::MAX_PLAN_BYTES));
+    assert!(matches!(Plan::from_toml(&text), Err(PlanError::TooLarge { .. })));
+}
+
+#[test]
+fn caps_the_corner_count() {
+    let mut text = String::from("[roof]\npitch = \"6/12\"\n");
+    for i in 0..=pitchframe_geometry::plan::MAX_PLAN_CORNERS {
+        text.push_str(&format!("[[wall]]\nat = [{i}, 0]\n"));
+    }
+    assert!(matches!(Plan::from_toml(&text), Err(PlanError::TooMany { what: "corners", .. })));
+}
+
+#[test]
+fn reads_framing_settings() {
+    let text = format!(
+        "{SQUARE}\n[framing]\nspacing = 16\nrafter = [1.5, 7.25]\nheel = \"auto\"\ntail = \"square\"\nstock = [\"8'\", \"16'\"]\n"
+    );
+    let plan = Plan::from_toml(&text).unwrap();
+    assert_eq!(plan.framing.spacing.map(|s| s.inches()), Some(16.0));
+    assert_eq!(plan.framing.rafter.as_deref(), Some("1.5x7.25"));
+    assert_eq!(plan.framing.heel, None);
+    assert_eq!(plan.framing.stock.as_ref().map(Vec::len), Some(2));
+    let message = error(&format!("{SQUARE}\n[framing]\ntail = \"curly\"\n"));
+    assert!(message.contains("[framing] tail"), "{message}");
+    let message = error(&format!("{SQUARE}\n[framing]\nnotch_limit = 2\n"));
+    assert!(message.contains("notch_limit"), "{message}");
+}
+
+#[test]
+fn reads_courtyards() {
+    let text = format!(
+        "{SQUARE}\n[[courtyard]]\n[[courtyard.wall]]\nat = [100, 100]\n[[courtyard.wall]]\nat = [200, 100]\n[[courtyard.wall]]\nat = [200, 200]\n"
+    );
+    let plan = Plan::from_toml(&text).unwrap();
+    assert_eq!(plan.courtyards.len(), 1);
+    assert_eq!(plan.courtyards[0].len(), 3);
+}
