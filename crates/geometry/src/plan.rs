@@ -656,33 +656,33 @@ impl RawFraming {
             Some(v) => Some(usize::try_from(v).unwrap_or(usize::MAX)),
             None => None,
         };
-        if let Some(limit) = self.notch_limit {
-            if !(limit > 0.0 && limit < 1.0) {
-                return Err(PlanError::OutOfRange {
-                    place: "[framing] notch_limit".into(),
-                    reason: format!("{limit} must be a fraction of the depth between 0 and 1"),
-                });
-            }
+        if let Some(limit) = self.notch_limit
+            && !(limit > 0.0 && limit < 1.0)
+        {
+            return Err(PlanError::OutOfRange {
+                place: "[framing] notch_limit".into(),
+                reason: format!("{limit} must be a fraction of the depth between 0 and 1"),
+            });
         }
-        if let Some(bevel) = self.max_bevel {
-            if !(bevel > 0.0 && bevel < 90.0) {
-                return Err(PlanError::OutOfRange {
-                    place: "[framing] max_bevel".into(),
-                    reason: format!("{bevel} must be an angle in degrees between 0 and 90"),
-                });
-            }
+        if let Some(bevel) = self.max_bevel
+            && !(bevel > 0.0 && bevel < 90.0)
+        {
+            return Err(PlanError::OutOfRange {
+                place: "[framing] max_bevel".into(),
+                reason: format!("{bevel} must be an angle in degrees between 0 and 90"),
+            });
         }
         for (name, value, allowed) in [
             ("tail", &self.tail, &["plumb", "square", "plumb+level"][..]),
             ("hips", &self.hips, &["backed", "dropped"][..]),
         ] {
-            if let Some(v) = value {
-                if !allowed.contains(&v.as_str()) {
-                    return Err(PlanError::OutOfRange {
-                        place: format!("[framing] {name}"),
-                        reason: format!("\"{v}\" is not one of {}", allowed.join(", ")),
-                    });
-                }
+            if let Some(v) = value
+                && !allowed.contains(&v.as_str())
+            {
+                return Err(PlanError::OutOfRange {
+                    place: format!("[framing] {name}"),
+                    reason: format!("\"{v}\" is not one of {}", allowed.join(", ")),
+                });
             }
         }
         let stock = match &self.stock {
