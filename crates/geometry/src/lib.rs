@@ -22,6 +22,7 @@
 //!   calculation.
 
 pub mod compound_cut;
+pub mod framing;
 pub mod length;
 pub mod member_size;
 pub mod outline;
@@ -30,6 +31,7 @@ pub mod rafter_table;
 pub mod roof;
 
 pub use compound_cut::{CompoundCut, CutAngles, CutWarning, MiterSetting, SquareFigures};
+pub use framing::{Frame, FramingError, FramingSettings, Member, MemberKind, frame_roof};
 pub use length::{Length, LengthError, LengthStyle, LengthUnit};
 pub use member_size::{MemberSize, MemberSizeError};
 pub use outline::{Outline, OutlineError, Wall, WallRoof};

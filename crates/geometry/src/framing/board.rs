@@ -1,0 +1,155 @@
+//! A board placed in the roof, and the convex parts its cuts leave.
+
+use glam::{DVec2, DVec3};
+
+use super::{BoardSize, ConvexPart, CutEnd, FaceTag, HalfSpace, MemberKind, Solid};
+
+/// A board's frame: its top edge's centre line and three unit directions.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct BoardFrame {
+    /// A point on the top edge's centre line (for seated members, over the
+    /// wall line or the corner).
+    pub origin: DVec3,
+    /// Up the member, along its edge.
+    pub along: DVec3,
+    /// Square to the top edge, upward.
+    pub up: DVec3,
+    /// Horizontal, square to the member, to its left looking up it.
+    pub side: DVec3,
+}
+
+impl BoardFrame {
+    /// A board rising at `slope` along plan direction `plan_dir`, its top
+    /// centre line passing through `origin`.
+    pub fn new(origin: DVec3, plan_dir: DVec2, slope: f64) -> Option<Self> {
+        let plan_dir = plan_dir.try_normalize()?;
+        let along = plan_dir.extend(slope).try_normalize()?;
+        let side = plan_dir.perp().extend(0.0);
+        let up = along.cross(side);
+        Some(Self { origin, along, up, side })
+    }
+
+    /// Coordinate of `p` along the member from the origin.
+    pub fn along_of(&self, p: DVec3) -> f64 {
+        (p - self.origin).dot(self.along)
+    }
+
+    /// The four long faces of a `size` board: top, bottom, left, right.
+    pub fn box_planes(&self, size: BoardSize) -> Vec<HalfSpace> {
+        let o = self.origin;
+        let half = size.thickness_in / 2.0;
+        [
+            HalfSpace::through(o, self.up, FaceTag::Top, None),
+            HalfSpace::through(o - self.up * size.depth_in, -self.up, FaceTag::Bottom, None),
+            HalfSpace::through(o + self.side * half, self.side, FaceTag::Side, None),
+            HalfSpace::through(o - self.side * half, -self.side, FaceTag::Side, None),
+        ]
+        .into_iter()
+        .flatten()
+        .collect()
+    }
+
+    /// The vertical plane through the centre line keeping the left
+    /// (`left` true) or right half.
+    pub fn centre_half(&self, left: bool) -> Option<HalfSpace> {
+        let n = if left { -self.side } else { self.side };
+        HalfSpace::through(self.origin, n, FaceTag::Interior, None)
+    }
+}
+
+/// The wall a seated member bears on, for one half of it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SeatWall {
+    /// Keeps the side inside the wall line (outward normal).
+    pub inside: HalfSpace,
+}
+
+/// Everything needed to cut one piece's solid.
+#[derive(Debug, Clone, PartialEq)]
+pub struct PieceSpec {
+    /// What the piece is.
+    pub kind: MemberKind,
+    /// Board size.
+    pub size: BoardSize,
+    /// The board's frame.
+    pub frame: BoardFrame,
+    /// Theoretical plan line, lower end first.
+    pub plan_line: [DVec2; 2],
+    /// Rise per unit run along the member.
+    pub slope: f64,
+    /// Planes that cut the top besides the board's own top (backing).
+    pub top_planes: Vec<HalfSpace>,
+    /// Cuts at the upper end (or a level member's far end).
+    pub upper_cuts: Vec<HalfSpace>,
+    /// Cuts at the lower end: tail and soffit, or a bottom cheek.
+    pub lower_cuts: Vec<HalfSpace>,
+    /// The wall(s) the member seats on: none, one, or one per half (left,
+    /// right) for hips and valleys over a corner.
+    pub seat: Vec<SeatWall>,
+    /// Whether the member runs past its wall line to a tail.
+    pub has_tail: bool,
+    /// Drop on the seat (hips).
+    pub drop_in: f64,
+}
+
+impl PieceSpec {
+    /// Cuts the solid: the board less everything its cuts remove, split
+    /// into convex parts at the seat.
+    pub fn solid(&self) -> Solid {
+        let mut base = Vec::new();
+        // Cuts first, so a cut flush with a board face keeps its tag.
+        base.extend(self.upper_cuts.iter().copied());
+        base.extend(self.lower_cuts.iter().copied());
+        base.extend(self.top_planes.iter().copied());
+        base.extend(self.frame.box_planes(self.size));
+        let mut parts = Vec::new();
+        let halves: Vec<(Vec<HalfSpace>, Option<&SeatWall>)> = match self.seat.as_slice() {
+            [] => vec![(base, None)],
+            [wall] => vec![(base, Some(wall))],
+            [left, right] => [(true, left), (false, right)]
+                .into_iter()
+                .map(|(is_left, wall)| {
+                    let mut half = base.clone();
+                    half.extend(self.frame.centre_half(is_left));
+                    (half, Some(wall))
+                })
+                .collect(),
+            _ => Vec::new(),
+        };
+        for (half, wall) in halves {
+            let Some(wall) = wall else {
+                parts.extend(ConvexPart::from_half_spaces(&half));
+                continue;
+            };
+            let inside = wall.inside;
+            let outside = HalfSpace {
+                normal: -inside.normal,
+                offset: -inside.offset,
+                tag: FaceTag::Interior,
+                end: None,
+            };
+            let above_plate =
+                |tag| HalfSpace { normal: -DVec3::Z, offset: 0.0, tag, end: Some(CutEnd::Seat) };
+            let below_plate = HalfSpace { normal: DVec3::Z, offset: 0.0, tag: FaceTag::Interior, end: None };
+            let inside_tag = if self.has_tail { FaceTag::Interior } else { FaceTag::Tail };
+            let inside_end = if self.has_tail { None } else { Some(CutEnd::Tail) };
+            let mut body = half.clone();
+            body.push(HalfSpace { tag: inside_tag, end: inside_end, ..inside });
+            body.push(above_plate(FaceTag::Seat));
+            parts.extend(ConvexPart::from_half_spaces(&body));
+            if self.has_tail {
+                let mut tail_top = half.clone();
+                tail_top.push(outside);
+                let mut interior_plate = above_plate(FaceTag::Interior);
+                interior_plate.end = None;
+                tail_top.push(interior_plate);
+                parts.extend(ConvexPart::from_half_spaces(&tail_top));
+                let mut tail_bottom = half;
+                tail_bottom.push(HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..outside });
+                tail_bottom.push(below_plate);
+                parts.extend(ConvexPart::from_half_spaces(&tail_bottom));
+            }
+        }
+        Solid { parts }
+    }
+}

@@ -1,0 +1,90 @@
+//! Where two pieces meet: the gap and overlap between their mating faces.
+
+use serde::Serialize;
+
+use super::{HalfSpace, Solid};
+
+/// A joint between two placed pieces.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Joint {
+    /// The members' labels: the piece that is cut to fit, then the piece it
+    /// bears on.
+    pub members: [String; 2],
+    /// Indices of the two pieces in the frame's placed pieces.
+    pub pieces: [usize; 2],
+    /// Largest gap between the mating faces, inches.
+    pub max_gap: f64,
+    /// Largest overlap (interpenetration) of the two solids, inches.
+    pub max_overlap: f64,
+}
+
+/// What a joint check finds.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct JointFit {
+    /// Largest gap between the mating faces.
+    pub max_gap: f64,
+    /// Largest interpenetration.
+    pub max_overlap: f64,
+    /// How far the cut face hangs past the face it bears on (a bearing
+    /// member too shallow for the cut).
+    pub max_hang: f64,
+}
+
+/// Checks the fit of `cut` (whose face in `mating` should bear on `bearing`).
+///
+/// Each corner of the cut face is measured square to the mating plane
+/// (gap outside, overlap inside) where its foot lands on the bearing solid;
+/// a foot off the bearing solid is a hang. Overlap also takes every corner
+/// of either solid found inside the other.
+pub fn check_fit(cut: &Solid, mating: &HalfSpace, bearing: &Solid) -> JointFit {
+    let tol = 1e-6;
+    let mut fit = JointFit { max_gap: 0.0, max_overlap: 0.0, max_hang: 0.0 };
+    let mating_corners = cut
+        .faces()
+        .filter(|f| f.normal.dot(mating.normal) > 1.0 - 1e-9 && mating.distance(f.vertices[0]).abs() < 1e-5)
+        .flat_map(|f| f.vertices.iter().copied());
+    for p in mating_corners {
+        // Outward from the cut piece is toward the bearing piece: the
+        // bearing face should be met right at the corner.
+        let entry = bearing
+            .parts
+            .iter()
+            .filter_map(|part| ray_entry(&part.planes, p, mating.normal, tol))
+            .min_by(|a, b| a.abs().total_cmp(&b.abs()));
+        match entry {
+            Some(t) => {
+                fit.max_gap = fit.max_gap.max(t);
+                fit.max_overlap = fit.max_overlap.max(-t);
+            }
+            None => fit.max_hang = fit.max_hang.max(-bearing.depth_of(p)),
+        }
+    }
+    for p in cut.vertices() {
+        fit.max_overlap = fit.max_overlap.max(bearing.depth_of(p));
+    }
+    for p in bearing.vertices() {
+        fit.max_overlap = fit.max_overlap.max(cut.depth_of(p));
+    }
+    fit
+}
+
+/// Where the line `p + t u` enters the convex region of `planes` (the
+/// smallest `t` inside), if it passes through it.
+fn ray_entry(planes: &[HalfSpace], p: glam::DVec3, u: glam::DVec3, tol: f64) -> Option<f64> {
+    let mut enter = f64::NEG_INFINITY;
+    let mut exit = f64::INFINITY;
+    for h in planes {
+        let nu = h.normal.dot(u);
+        let gap = h.offset - h.normal.dot(p);
+        if nu.abs() < 1e-12 {
+            if gap < -tol {
+                return None;
+            }
+        } else if nu > 0.0 {
+            exit = exit.min(gap / nu);
+        } else {
+            enter = enter.max(gap / nu);
+        }
+    }
+    (enter <= exit + tol && enter.is_finite()).then_some(enter)
+}

@@ -1,0 +1,254 @@
+//! Rafter layout: lines square to each wall at the spacing, clipped to the
+//! roof plane and sorted by what bounds their ends.
+
+use glam::DVec2;
+
+use super::plane_frame::{PLAN_TOL_IN, PlaneFrame, distance_to_segment};
+use super::{FramingSettings, MemberKind};
+use crate::RoofLineKind;
+
+/// A roof line in plan, with the planes on its two sides.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct PlanLine {
+    /// Ridge, hip or valley.
+    pub kind: RoofLineKind,
+    /// Lower end in plan (either end for a ridge).
+    pub from: DVec2,
+    /// Upper end in plan.
+    pub to: DVec2,
+    /// Height of the lower end.
+    pub from_z: f64,
+    /// Height of the upper end.
+    pub to_z: f64,
+    /// Indices into the roof's planes.
+    pub planes: [usize; 2],
+}
+
+impl PlanLine {
+    /// Whether plan point `p` lies on this line's segment.
+    pub fn touches(&self, p: DVec2) -> bool {
+        distance_to_segment(p, self.from, self.to) < PLAN_TOL_IN * 1e3
+    }
+}
+
+/// What bounds one end of a rafter line.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum EdgeKind {
+    /// The plane's wall line (eave).
+    Eave,
+    /// A roof line, by index.
+    Line(usize),
+    /// Any other edge (a gable rake).
+    Other,
+}
+
+/// How a king common meets the hip end of a ridge.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum King {
+    /// In a plane beside the ridge: bears on the ridge's side.
+    Side {
+        /// The ridge line.
+        ridge: usize,
+    },
+    /// In the end plane: bears on the ridge's end.
+    End {
+        /// The ridge line.
+        ridge: usize,
+    },
+}
+
+/// One rafter's plan line in one plane.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct RafterLine {
+    /// Index into the roof's planes.
+    pub plane: usize,
+    /// Lower theoretical end in plan.
+    pub lower: DVec2,
+    /// Upper theoretical end in plan.
+    pub upper: DVec2,
+    /// What bounds the lower end.
+    pub lower_edge: EdgeKind,
+    /// What bounds the upper end.
+    pub upper_edge: EdgeKind,
+    /// Set for king commons.
+    pub king: Option<King>,
+}
+
+impl RafterLine {
+    /// The member this line makes, if it is one we frame.
+    pub fn kind(&self, lines: &[PlanLine]) -> Option<MemberKind> {
+        let line_kind = |e: EdgeKind| match e {
+            EdgeKind::Line(i) => lines.get(i).map(|l| l.kind),
+            _ => None,
+        };
+        if self.king.is_some() {
+            return Some(MemberKind::KingCommon);
+        }
+        match (self.lower_edge, line_kind(self.lower_edge), line_kind(self.upper_edge)) {
+            (EdgeKind::Eave, _, Some(RoofLineKind::Ridge)) => Some(MemberKind::Common),
+            (EdgeKind::Eave, _, Some(RoofLineKind::Hip)) => Some(MemberKind::HipJack),
+            (_, Some(RoofLineKind::Valley), Some(RoofLineKind::Ridge)) => Some(MemberKind::ValleyJack),
+            (_, Some(RoofLineKind::Valley), Some(RoofLineKind::Hip | RoofLineKind::Valley)) => {
+                Some(MemberKind::CrippleJack)
+            }
+            _ => None,
+        }
+    }
+}
+
+/// Classifies each edge of a plane's polygon.
+pub fn edge_kinds(plane_index: usize, frame: &PlaneFrame, lines: &[PlanLine]) -> Vec<EdgeKind> {
+    let n = frame.polygon.len();
+    (0..n)
+        .map(|i| {
+            let a = frame.polygon[i];
+            let b = frame.polygon[(i + 1) % n];
+            if frame.dist_in(a).abs() < PLAN_TOL_IN * 1e3 && frame.dist_in(b).abs() < PLAN_TOL_IN * 1e3 {
+                return EdgeKind::Eave;
+            }
+            lines
+                .iter()
+                .position(|l| l.planes.contains(&plane_index) && l.touches(a) && l.touches(b))
+                .map_or(EdgeKind::Other, EdgeKind::Line)
+        })
+        .collect()
+}
+
+/// Lays out one plane's rafter lines.
+///
+/// `origin` is the layout start corner; `kings` are (node, ridge line)
+/// pairs at the hip ends of ridges.
+pub fn rafter_lines(
+    plane_index: usize,
+    frame: &PlaneFrame,
+    lines: &[PlanLine],
+    kings: &[(DVec2, usize)],
+    origin: DVec2,
+    settings: &FramingSettings,
+) -> Vec<RafterLine> {
+    let edges = edge_kinds(plane_index, frame, lines);
+    let n = frame.polygon.len();
+    let tau = |p: DVec2| (p - origin).dot(frame.along);
+    let taus: Vec<f64> = frame.polygon.iter().map(|p| tau(*p)).collect();
+    let tau_min = taus.iter().copied().fold(f64::INFINITY, f64::min);
+    let tau_max = taus.iter().copied().fold(f64::NEG_INFINITY, f64::max);
+    let thickness = settings.rafter.thickness_in;
+    let mut out = Vec::new();
+    let mut reserved: Vec<f64> = Vec::new();
+
+    // King commons: square to the wall through each hip end of a ridge
+    // that is a corner of this plane.
+    let wall_len = frame.start.distance(frame.end);
+    for &(node, ridge) in kings {
+        if !frame.has_corner(node) {
+            continue;
+        }
+        let foot_along = (node - frame.start).dot(frame.along);
+        if foot_along <= thickness / 2.0 || foot_along >= wall_len - thickness / 2.0 {
+            continue;
+        }
+        let has_ridge_edge = edges.contains(&EdgeKind::Line(ridge));
+        let king = if has_ridge_edge { King::Side { ridge } } else { King::End { ridge } };
+        out.push(RafterLine {
+            plane: plane_index,
+            lower: frame.start + frame.along * foot_along,
+            upper: node,
+            lower_edge: EdgeKind::Eave,
+            upper_edge: EdgeKind::Line(ridge),
+            king: Some(king),
+        });
+        reserved.push(tau(node));
+    }
+
+    // Gable-end rafters: flush inside each rake edge running up the slope.
+    let mut taus_to_clip: Vec<f64> = Vec::new();
+    for (i, edge) in edges.iter().enumerate() {
+        if *edge != EdgeKind::Other {
+            continue;
+        }
+        let a = frame.polygon[i];
+        let b = frame.polygon[(i + 1) % n];
+        let Some(dir) = (b - a).try_normalize() else {
+            continue;
+        };
+        if dir.dot(frame.along).abs() > 1e-9 {
+            continue;
+        }
+        let t_edge = tau(a);
+        let inward = if (t_edge - tau_min).abs() < (t_edge - tau_max).abs() { 1.0 } else { -1.0 };
+        let t = t_edge + inward * thickness / 2.0;
+        taus_to_clip.push(t);
+        reserved.push(t);
+    }
+
+    let s = settings.spacing_in;
+    let shift = if settings.layout_start.centred { s / 2.0 } else { 0.0 };
+    let k_first = ((tau_min - shift) / s).ceil() as i64;
+    let k_last = ((tau_max - shift) / s).floor() as i64;
+    for k in k_first..=k_last {
+        let t = k as f64 * s + shift;
+        if t - tau_min < thickness / 2.0 || tau_max - t < thickness / 2.0 {
+            continue;
+        }
+        if reserved.iter().any(|r| (r - t).abs() < thickness) {
+            continue;
+        }
+        taus_to_clip.push(t);
+    }
+
+    for t in taus_to_clip {
+        let base = origin + frame.along * t;
+        out.extend(clip(base, frame, &edges).into_iter().map(|(lower, lower_edge, upper, upper_edge)| {
+            RafterLine { plane: plane_index, lower, upper, lower_edge, upper_edge, king: None }
+        }));
+    }
+    out
+}
+
+/// Clips the line through `base` up the slope to the plane's polygon: the
+/// inside stretches with the edges at their ends.
+fn clip(base: DVec2, frame: &PlaneFrame, edges: &[EdgeKind]) -> Vec<(DVec2, EdgeKind, DVec2, EdgeKind)> {
+    let dir = frame.inward;
+    let n = frame.polygon.len();
+    let mut hits: Vec<(f64, EdgeKind)> = Vec::new();
+    for i in 0..n {
+        let a = frame.polygon[i];
+        let d = frame.polygon[(i + 1) % n] - a;
+        let denom = dir.perp_dot(d);
+        if denom.abs() < 1e-12 {
+            continue;
+        }
+        let r = (a - base).perp_dot(d) / denom;
+        let s = (a - base).perp_dot(dir) / denom;
+        if (-1e-9..=1.0 + 1e-9).contains(&s) {
+            hits.push((r, edges.get(i).copied().unwrap_or(EdgeKind::Other)));
+        }
+    }
+    hits.sort_by(|a, b| a.0.total_cmp(&b.0));
+    // A line through a corner hits both edges there; keep one, preferring
+    // a roof line over the eave or a rake.
+    let mut merged: Vec<(f64, EdgeKind)> = Vec::new();
+    for (r, e) in hits {
+        match merged.last_mut() {
+            Some(last) if (last.0 - r).abs() < 1e-7 => {
+                if matches!(e, EdgeKind::Line(_)) && !matches!(last.1, EdgeKind::Line(_)) {
+                    last.1 = e;
+                }
+            }
+            _ => merged.push((r, e)),
+        }
+    }
+    let mut out = Vec::new();
+    for pair in merged.windows(2) {
+        let (r0, e0) = pair[0];
+        let (r1, e1) = pair[1];
+        if r1 - r0 < 1e-3 {
+            continue;
+        }
+        let mid = base + dir * ((r0 + r1) / 2.0);
+        if frame.contains(mid) {
+            out.push((base + dir * r0, e0, base + dir * r1, e1));
+        }
+    }
+    out
+}

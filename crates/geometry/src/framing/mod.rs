@@ -1,0 +1,30 @@
+//! Roof framing: lays out and cuts every member of a solved roof.
+//!
+//! Each piece is built as a solid (convex parts of its board cut by its
+//! end, cheek, seat, heel and backing planes) and every length and angle is
+//! read off that solid, so the numbers and the 3D view come from one
+//! geometry.
+
+mod board;
+mod cuts;
+mod error;
+mod frame;
+mod joints;
+mod layout;
+mod measure;
+mod member;
+mod piece;
+mod plane_frame;
+mod settings;
+mod solid;
+mod warning;
+
+pub use cuts::{Cut, CutFace, MiterSetup};
+pub use error::FramingError;
+pub use frame::{Frame, frame_roof};
+pub use joints::Joint;
+pub use member::{Hand, Hands, Member, MemberKind};
+pub use piece::PlacedPiece;
+pub use settings::{BoardSize, FramingSettings, Heel, HipTop, LayoutStart, Saws, TailCut};
+pub use solid::{ConvexPart, CutEnd, Face, FaceTag, HalfSpace, Solid};
+pub use warning::{FramingWarning, SawKind};

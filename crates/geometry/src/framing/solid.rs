@@ -1,0 +1,300 @@
+//! Member solids: unions of convex polyhedra cut from a board by planes.
+
+use glam::DVec3;
+use serde::Serialize;
+
+/// Points closer than this (inches) to a plane count as on it. Members are
+/// at most a few hundred inches long, so this is far below any cut tolerance
+/// and far above f64 round-off at that size.
+pub const ON_PLANE_IN: f64 = 1e-7;
+
+/// Faces smaller than this (square inches) are edge-on touches, not faces.
+const MIN_FACE_AREA_SQ_IN: f64 = 1e-9;
+
+/// Which end or place of a member a cut belongs to.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum CutEnd {
+    /// The upper end of a sloped member.
+    Top,
+    /// The lower end of a sloped member that has no seat (valley jacks,
+    /// cripples).
+    Bottom,
+    /// The birdsmouth where the member sits on the wall plate.
+    Seat,
+    /// The tail end at the fascia.
+    Tail,
+    /// The start end of a level member (ridge).
+    Start,
+    /// The far end of a level member (ridge).
+    End,
+    /// Along the whole length (backing).
+    FullLength,
+}
+
+/// What made a face of a member's solid.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum FaceTag {
+    /// A plumb cut square across the board.
+    Plumb,
+    /// A level seat cut of a birdsmouth.
+    Seat,
+    /// The plumb heel cut of a birdsmouth, on the wall line.
+    Heel,
+    /// A cheek (side) cut against a hip, valley or king common.
+    Cheek,
+    /// The tail cut at the fascia.
+    Tail,
+    /// A level soffit cut under the tail.
+    Soffit,
+    /// A hip's top bevelled into a roof plane.
+    Backing,
+    /// One of the board's wide faces.
+    Side,
+    /// The board's top edge.
+    Top,
+    /// The board's bottom edge.
+    Bottom,
+    /// A square end of a level member.
+    End,
+    /// The boundary between two convex parts of one member: not a cut.
+    Interior,
+}
+
+/// One bounding plane: points `p` with `normal . p <= offset` are kept.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct HalfSpace {
+    /// Unit outward normal of the face this plane makes.
+    pub normal: DVec3,
+    /// Plane offset along the normal, in inches.
+    pub offset: f64,
+    /// What the face is.
+    pub tag: FaceTag,
+    /// Which end of the member the face belongs to, for cuts.
+    pub end: Option<CutEnd>,
+}
+
+impl HalfSpace {
+    /// The half-space bounded by the plane through `point` with outward
+    /// `normal` (normalised here; `None` for a zero normal).
+    pub fn through(point: DVec3, normal: DVec3, tag: FaceTag, end: Option<CutEnd>) -> Option<Self> {
+        let normal = normal.try_normalize()?;
+        Some(Self { normal, offset: normal.dot(point), tag, end })
+    }
+
+    /// Signed distance of `p` outside the plane (negative inside).
+    pub fn distance(&self, p: DVec3) -> f64 {
+        self.normal.dot(p) - self.offset
+    }
+}
+
+/// A planar face of a convex part, counter-clockwise seen from outside.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Face {
+    /// The face's corners in order.
+    pub vertices: Vec<DVec3>,
+    /// Unit outward normal.
+    pub normal: DVec3,
+    /// What made the face.
+    pub tag: FaceTag,
+    /// The cut end the face belongs to, if it is a cut.
+    pub end: Option<CutEnd>,
+}
+
+impl Face {
+    /// The face's area in square inches.
+    pub fn area(&self) -> f64 {
+        polygon_area(&self.vertices, self.normal)
+    }
+}
+
+/// A convex polyhedron: the intersection of its half-spaces.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct ConvexPart {
+    /// The polyhedron's corners.
+    pub vertices: Vec<DVec3>,
+    /// Its faces.
+    pub faces: Vec<Face>,
+    /// The planes it was cut by (kept to test points against it).
+    #[serde(skip)]
+    pub planes: Vec<HalfSpace>,
+}
+
+impl ConvexPart {
+    /// Intersects the half-spaces; `None` when the result has no volume or
+    /// is unbounded (no corners on some side).
+    pub fn from_half_spaces(planes: &[HalfSpace]) -> Option<Self> {
+        let mut vertices: Vec<DVec3> = Vec::new();
+        for i in 0..planes.len() {
+            for j in i + 1..planes.len() {
+                for k in j + 1..planes.len() {
+                    let Some(p) = three_plane_point(&planes[i], &planes[j], &planes[k]) else {
+                        continue;
+                    };
+                    if planes.iter().all(|h| h.distance(p) <= ON_PLANE_IN * 10.0)
+                        && !vertices.iter().any(|v| v.distance_squared(p) < 1e-12)
+                    {
+                        vertices.push(p);
+                    }
+                }
+            }
+        }
+        if vertices.len() < 4 {
+            return None;
+        }
+        let mut faces = Vec::new();
+        let mut kept = Vec::new();
+        for plane in planes {
+            let on: Vec<DVec3> =
+                vertices.iter().copied().filter(|v| plane.distance(*v).abs() <= ON_PLANE_IN * 10.0).collect();
+            if on.len() < 3 {
+                continue;
+            }
+            let ordered = order_around(&on, plane.normal);
+            if polygon_area(&ordered, plane.normal) < MIN_FACE_AREA_SQ_IN {
+                continue;
+            }
+            // Two planes may coincide (a cut flush with a box face); keep
+            // the first and let the cut's tag win by putting cuts first.
+            if faces.iter().any(|f: &Face| {
+                f.normal.dot(plane.normal) > 1.0 - 1e-12
+                    && (f.normal.dot(f.vertices[0]) - plane.offset).abs() < ON_PLANE_IN * 10.0
+            }) {
+                continue;
+            }
+            faces.push(Face { vertices: ordered, normal: plane.normal, tag: plane.tag, end: plane.end });
+            kept.push(*plane);
+        }
+        if faces.len() < 4 {
+            return None;
+        }
+        Some(Self { vertices, faces, planes: kept })
+    }
+
+    /// Signed depth of `p` inside the part: positive inside, the distance
+    /// to the nearest face; negative outside.
+    pub fn depth_of(&self, p: DVec3) -> f64 {
+        self.planes.iter().map(|h| -h.distance(p)).fold(f64::INFINITY, f64::min)
+    }
+
+    /// The part's volume in cubic inches.
+    pub fn volume(&self) -> f64 {
+        let Some(origin) = self.vertices.first().copied() else {
+            return 0.0;
+        };
+        self.faces
+            .iter()
+            .map(|f| polygon_area(&f.vertices, f.normal) * f.normal.dot(f.vertices[0] - origin) / 3.0)
+            .sum()
+    }
+}
+
+/// A member's solid: a union of convex parts meeting face to face.
+#[derive(Debug, Clone, PartialEq, Serialize, Default)]
+pub struct Solid {
+    /// The convex parts.
+    pub parts: Vec<ConvexPart>,
+}
+
+impl Solid {
+    /// Every non-interior face of every part.
+    pub fn faces(&self) -> impl Iterator<Item = &Face> {
+        self.parts.iter().flat_map(|p| p.faces.iter()).filter(|f| f.tag != FaceTag::Interior)
+    }
+
+    /// Every corner of every part.
+    pub fn vertices(&self) -> impl Iterator<Item = DVec3> + '_ {
+        self.parts.iter().flat_map(|p| p.vertices.iter().copied())
+    }
+
+    /// Total volume in cubic inches.
+    pub fn volume(&self) -> f64 {
+        self.parts.iter().map(ConvexPart::volume).sum()
+    }
+
+    /// How deep `p` lies inside the solid (largest over the parts).
+    pub fn depth_of(&self, p: DVec3) -> f64 {
+        self.parts.iter().map(|part| part.depth_of(p)).fold(f64::NEG_INFINITY, f64::max)
+    }
+}
+
+/// The point common to three planes, if they meet in one point.
+fn three_plane_point(a: &HalfSpace, b: &HalfSpace, c: &HalfSpace) -> Option<DVec3> {
+    let bc = b.normal.cross(c.normal);
+    let det = a.normal.dot(bc);
+    if det.abs() < 1e-12 {
+        return None;
+    }
+    let p = (bc * a.offset + c.normal.cross(a.normal) * b.offset + a.normal.cross(b.normal) * c.offset) / det;
+    p.is_finite().then_some(p)
+}
+
+/// Orders coplanar points of a convex polygon counter-clockwise about
+/// `normal`.
+fn order_around(points: &[DVec3], normal: DVec3) -> Vec<DVec3> {
+    let centre = points.iter().copied().sum::<DVec3>() / points.len() as f64;
+    let u = normal.any_orthonormal_vector();
+    let w = normal.cross(u);
+    let mut with_angle: Vec<(f64, DVec3)> = points
+        .iter()
+        .map(|p| {
+            let d = *p - centre;
+            (d.dot(w).atan2(d.dot(u)), *p)
+        })
+        .collect();
+    with_angle.sort_by(|a, b| a.0.total_cmp(&b.0));
+    with_angle.into_iter().map(|(_, p)| p).collect()
+}
+
+/// Area of a planar polygon with the given normal.
+fn polygon_area(points: &[DVec3], normal: DVec3) -> f64 {
+    let Some(first) = points.first().copied() else {
+        return 0.0;
+    };
+    let mut sum = DVec3::ZERO;
+    for pair in points.windows(2) {
+        sum += (pair[0] - first).cross(pair[1] - first);
+    }
+    0.5 * sum.dot(normal).abs()
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn cube() -> Vec<HalfSpace> {
+        let mut planes = Vec::new();
+        for axis in [DVec3::X, DVec3::Y, DVec3::Z] {
+            planes.push(HalfSpace::through(axis, axis, FaceTag::Side, None).unwrap());
+            planes.push(HalfSpace::through(DVec3::ZERO, -axis, FaceTag::Side, None).unwrap());
+        }
+        planes
+    }
+
+    #[test]
+    fn unit_cube_has_six_faces_and_unit_volume() {
+        let part = ConvexPart::from_half_spaces(&cube()).unwrap();
+        assert_eq!(part.vertices.len(), 8);
+        assert_eq!(part.faces.len(), 6);
+        approx::assert_relative_eq!(part.volume(), 1.0, epsilon = 1e-12);
+    }
+
+    #[test]
+    fn cutting_a_corner_off_leaves_seven_faces() {
+        let mut planes = cube();
+        // Derivation: the plane x + y + z = 2.5 cuts a corner tetrahedron of
+        // legs 1/2, volume (1/2)^3 / 6.
+        planes.push(HalfSpace::through(DVec3::splat(2.5 / 3.0), DVec3::ONE, FaceTag::Cheek, None).unwrap());
+        let part = ConvexPart::from_half_spaces(&planes).unwrap();
+        assert_eq!(part.faces.len(), 7);
+        approx::assert_relative_eq!(part.volume(), 1.0 - 0.125 / 6.0, epsilon = 1e-12);
+    }
+
+    #[test]
+    fn disjoint_half_spaces_give_no_part() {
+        let mut planes = cube();
+        planes.push(HalfSpace::through(DVec3::new(0.0, 0.0, -1.0), DVec3::Z, FaceTag::Top, None).unwrap());
+        assert!(ConvexPart::from_half_spaces(&planes).is_none());
+    }
+}

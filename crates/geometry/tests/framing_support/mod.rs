@@ -1,0 +1,87 @@
+//! Hand-built roofs for the framing tests: the planes and lines of simple
+//! plans worked out by hand, so framing is tested apart from the solver.
+#![allow(dead_code)]
+
+use glam::{DVec2, DVec3, dvec2, dvec3};
+use pitchframe_geometry::framing::{Frame, FramingSettings, MemberKind};
+use pitchframe_geometry::{Outline, Roof, RoofLine, RoofLineKind, RoofPlane, Wall, WallRoof};
+
+/// An outline from corners, each wall pitched at its slope (0 = gable).
+pub fn outline(corners: &[DVec2], slopes: &[f64], overhang_in: f64) -> Outline {
+    let walls = corners
+        .iter()
+        .zip(slopes)
+        .map(|(c, s)| Wall {
+            corner: *c,
+            roof: if *s > 0.0 { WallRoof::Pitched { rise_per_run: *s } } else { WallRoof::Gable },
+            overhang_in,
+        })
+        .collect();
+    Outline::new(walls, Vec::new()).unwrap_or_else(|e| panic!("test outline: {e}"))
+}
+
+/// A plane with its eave outline taken as the wall-line outline (framing
+/// reads overhangs from the walls, not from the eave outline).
+fn plane(wall: usize, slope: f64, pts: &[DVec3]) -> RoofPlane {
+    RoofPlane { wall, rise_per_run: slope, outline: pts.to_vec(), eave_outline: pts.to_vec() }
+}
+
+/// A rectangle `length` along x by `width` along y, hipped all round: the
+/// long walls (0 and 2) at `side`, the ends (1 and 3) at `end` rise per
+/// run. Corners (0,0), (L,0), (L,W), (0,W).
+///
+/// Derivation: the ridge stands at h = side * W / 2; each hip end sits
+/// where the end plane reaches h, at h / end from the end wall.
+pub fn rect_hip(length: f64, width: f64, side: f64, end: f64, overhang_in: f64) -> (Outline, Roof) {
+    let c = [dvec2(0.0, 0.0), dvec2(length, 0.0), dvec2(length, width), dvec2(0.0, width)];
+    let o = outline(&c, &[side, end, side, end], overhang_in);
+    let h = side * width / 2.0;
+    let n1 = dvec3(h / end, width / 2.0, h);
+    let n2 = dvec3(length - h / end, width / 2.0, h);
+    let p = |v: DVec2| v.extend(0.0);
+    let planes = vec![
+        plane(0, side, &[p(c[0]), p(c[1]), n2, n1]),
+        plane(1, end, &[p(c[1]), p(c[2]), n2]),
+        plane(2, side, &[p(c[2]), p(c[3]), n1, n2]),
+        plane(3, end, &[p(c[3]), p(c[0]), n1]),
+    ];
+    let line = |kind, from, to, walls| RoofLine { kind, from, to, walls };
+    let lines = vec![
+        line(RoofLineKind::Ridge, n1, n2, [0, 2]),
+        line(RoofLineKind::Hip, p(c[0]), n1, [3, 0]),
+        line(RoofLineKind::Hip, p(c[1]), n2, [0, 1]),
+        line(RoofLineKind::Hip, p(c[2]), n2, [1, 2]),
+        line(RoofLineKind::Hip, p(c[3]), n1, [2, 3]),
+    ];
+    (o, Roof { planes, lines, gables: Vec::new() })
+}
+
+/// A rectangle with gables on the ends (walls 1 and 3) and both long walls
+/// at `slope`.
+pub fn rect_gable(length: f64, width: f64, slope: f64, overhang_in: f64) -> (Outline, Roof) {
+    let c = [dvec2(0.0, 0.0), dvec2(length, 0.0), dvec2(length, width), dvec2(0.0, width)];
+    let o = outline(&c, &[slope, 0.0, slope, 0.0], overhang_in);
+    let h = slope * width / 2.0;
+    let r1 = dvec3(0.0, width / 2.0, h);
+    let r2 = dvec3(length, width / 2.0, h);
+    let p = |v: DVec2| v.extend(0.0);
+    let planes =
+        vec![plane(0, slope, &[p(c[0]), p(c[1]), r2, r1]), plane(2, slope, &[p(c[2]), p(c[3]), r1, r2])];
+    let lines = vec![RoofLine { kind: RoofLineKind::Ridge, from: r1, to: r2, walls: [0, 2] }];
+    (o, Roof { planes, lines, gables: Vec::new() })
+}
+
+/// The members of one kind.
+pub fn of_kind(frame: &Frame, kind: MemberKind) -> Vec<&pitchframe_geometry::Member> {
+    frame.members.iter().filter(|m| m.kind == kind).collect()
+}
+
+/// Settings with a given spacing and otherwise the defaults.
+pub fn spaced(spacing_in: f64) -> FramingSettings {
+    FramingSettings { spacing_in, ..FramingSettings::default() }
+}
+
+/// Length per unit run of a slope.
+pub fn per_run(slope: f64) -> f64 {
+    (1.0 + slope * slope).sqrt()
+}
