@@ -7,12 +7,16 @@ use super::board::{BoardFrame, PieceSpec, SeatWall};
 use super::joints::{Joint, check_fit};
 use super::layout::{EdgeKind, King, PlanLine, RafterLine, rafter_lines};
 use super::measure::{Measured, measure};
-use super::plane_frame::{PLAN_TOL_IN, PlaneFrame, global_walls};
+use super::plane_frame::{PLAN_TOL_IN, PlaneFrame};
 use super::{
     CutEnd, FaceTag, FramingError, FramingSettings, FramingWarning, HalfSpace, Heel, HipTop, Member,
     MemberKind, PlacedPiece, SawKind, Solid, TailCut,
 };
 use crate::{Outline, Roof, RoofLineKind};
+
+/// Lengths within this of a stock length fit it: layouts in whole spaces
+/// land splices exactly on stock lengths, and round-off must not tip them.
+const STOCK_TOL_IN: f64 = 1e-6;
 
 /// A framed roof.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -44,9 +48,8 @@ struct JointSpec {
 /// ```
 pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) -> Result<Frame, FramingError> {
     validate(outline, settings)?;
-    let walls = global_walls(outline);
     let planes: Vec<PlaneFrame> =
-        roof.planes.iter().map(|p| PlaneFrame::new(p, &walls)).collect::<Result<_, _>>()?;
+        roof.planes.iter().map(|p| PlaneFrame::new(p, outline)).collect::<Result<_, _>>()?;
     let heel = heel_height(&planes, settings)?;
     let plane_of_wall = |w: usize| planes.iter().position(|p| p.wall == w);
     let mut lines = Vec::with_capacity(roof.lines.len());
@@ -484,7 +487,7 @@ impl Ctx<'_> {
             let splice = commons
                 .iter()
                 .copied()
-                .filter(|c| *c > at + longest / 2.0 && *c <= limit)
+                .filter(|c| *c > at + longest / 2.0 && *c <= limit + STOCK_TOL_IN)
                 .fold(f64::NEG_INFINITY, f64::max);
             at = if splice.is_finite() { splice } else { limit };
             cuts_at.push(at);
@@ -844,7 +847,7 @@ fn piece_checks(label: &str, spec: &PieceSpec, m: &Measured, s: &FramingSettings
         }
     }
     if let Some(longest) = s.longest_stock_in()
-        && m.overall_length > longest + 1e-9
+        && m.overall_length > longest + STOCK_TOL_IN
     {
         out.push(FramingWarning::StockLengthExceeded {
             label: label.to_owned(),

@@ -29,24 +29,12 @@ pub struct PlaneFrame {
     pub polygon: Vec<DVec2>,
 }
 
-/// The walls of an outline in global order: outer ring, then courtyards.
-pub fn global_walls(outline: &Outline) -> Vec<(crate::Wall, DVec2)> {
-    let mut walls = Vec::new();
-    let rings = std::iter::once(outline.outer()).chain(outline.courtyards().iter().map(Vec::as_slice));
-    for ring in rings {
-        for (i, wall) in ring.iter().enumerate() {
-            let next = ring.get((i + 1) % ring.len()).map_or(wall.corner, |w| w.corner);
-            walls.push((*wall, next));
-        }
-    }
-    walls
-}
-
 impl PlaneFrame {
     /// Works out a plane's frame from the solved plane and its wall.
-    pub fn new(plane: &RoofPlane, walls: &[(crate::Wall, DVec2)]) -> Result<Self, FramingError> {
+    pub fn new(plane: &RoofPlane, outline: &Outline) -> Result<Self, FramingError> {
         let wall_index = plane.wall;
-        let (wall, _) = walls.get(wall_index).ok_or(FramingError::PlaneWallMissing { wall: wall_index })?;
+        let wall =
+            outline.wall_data(wall_index).ok_or(FramingError::PlaneWallMissing { wall: wall_index })?;
         if !(plane.rise_per_run > 0.0 && plane.rise_per_run.is_finite()) {
             return Err(FramingError::PlaneNotRising { wall: wall_index, rise_per_run: plane.rise_per_run });
         }

@@ -22,6 +22,12 @@ impl BoardSize {
     }
 }
 
+impl From<&crate::MemberSize> for BoardSize {
+    fn from(size: &crate::MemberSize) -> Self {
+        Self { thickness_in: size.thickness().inches(), depth_in: size.depth().inches() }
+    }
+}
+
 /// Where rafter layout is measured from.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
 pub struct LayoutStart {

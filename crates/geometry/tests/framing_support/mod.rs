@@ -85,3 +85,18 @@ pub fn spaced(spacing_in: f64) -> FramingSettings {
 pub fn per_run(slope: f64) -> f64 {
     (1.0 + slope * slope).sqrt()
 }
+
+pub mod parry_fit;
+
+/// Asserts every joint of a frame fits within 1/64 in, by the frame's own
+/// check and by parry on the solids, and that each joint has a mating face.
+pub fn assert_joints_fit(frame: &Frame) {
+    assert!(!frame.joints.is_empty());
+    for j in &frame.joints {
+        assert!(j.max_gap < 1.0 / 64.0 && j.max_overlap < 1.0 / 64.0, "own check: {j:?}");
+        let (gap, overlap, mating) = parry_fit::fit(frame, j.pieces[0], j.pieces[1]);
+        assert!(mating >= 1, "no mating face found by parry for {:?}", j.members);
+        assert!(gap < 1.0 / 64.0, "parry gap {gap} at {:?}", j.members);
+        assert!(overlap < 1.0 / 64.0, "parry overlap {overlap} at {:?}", j.members);
+    }
+}

@@ -1,0 +1,71 @@
+//! Joint fits measured by parry3d on the pieces' solids, apart from the
+//! framing code's own joint check.
+
+use parry3d_f64::math::{Pose, Vector};
+use parry3d_f64::query::{Ray, RayCast, contact};
+use parry3d_f64::shape::ConvexPolyhedron;
+use pitchframe_geometry::framing::{FaceTag, Frame, MemberKind, PlacedPiece};
+
+fn v(p: glam::DVec3) -> Vector {
+    Vector::new(p.x, p.y, p.z)
+}
+
+fn hulls(piece: &PlacedPiece) -> Vec<ConvexPolyhedron> {
+    piece
+        .solid
+        .parts
+        .iter()
+        .map(|part| {
+            let pts: Vec<Vector> = part.vertices.iter().map(|p| v(*p)).collect();
+            ConvexPolyhedron::from_convex_hull(&pts)
+                .unwrap_or_else(|| panic!("{} part is not a hull", piece.label))
+        })
+        .collect()
+}
+
+/// Largest gap and overlap of one joint, and how many mating faces were
+/// found, measured by parry: overlap by contact depth between every pair
+/// of convex parts; gap by casting from each corner of the cut piece's end
+/// faces along the face normal onto the bearing piece.
+pub fn fit(frame: &Frame, cut: usize, bearing: usize) -> (f64, f64, usize) {
+    let a = &frame.pieces[cut];
+    // A rafter on a ridge splice bears on both ridge pieces.
+    let bearing_pieces: Vec<&PlacedPiece> =
+        if frame.pieces[bearing].kind == MemberKind::Ridge && a.kind != MemberKind::Ridge {
+            frame.pieces.iter().filter(|p| p.kind == MemberKind::Ridge).collect()
+        } else {
+            vec![&frame.pieces[bearing]]
+        };
+    let ha = hulls(a);
+    let hb: Vec<ConvexPolyhedron> = bearing_pieces.iter().flat_map(|p| hulls(p)).collect();
+    let id = Pose::identity();
+    let mut overlap: f64 = 0.0;
+    for x in &ha {
+        for y in &hb {
+            if let Ok(Some(c)) = contact(&id, x, &id, y, 0.0) {
+                overlap = overlap.max(-c.dist);
+            }
+        }
+    }
+    let mut gap: f64 = 0.0;
+    let mut mating = 0;
+    let back = 0.05;
+    for face in a.solid.faces().filter(|f| matches!(f.tag, FaceTag::Plumb | FaceTag::Cheek | FaceTag::End)) {
+        let mut hit_any = false;
+        for p in &face.vertices {
+            let ray = Ray::new(v(*p - face.normal * back), v(face.normal));
+            let toi =
+                hb.iter().filter_map(|h| h.cast_ray(&id, &ray, 0.2, false)).fold(f64::INFINITY, f64::min);
+            if toi.is_finite() {
+                hit_any = true;
+                // A corner on an edge of the bearing piece grazes it at the
+                // start; interpenetration is measured by contact above.
+                gap = gap.max(toi - back);
+            }
+        }
+        if hit_any {
+            mating += 1;
+        }
+    }
+    (gap, overlap, mating)
+}
