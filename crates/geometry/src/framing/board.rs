@@ -58,10 +58,12 @@ impl BoardFrame {
 }
 
 /// The wall a seated member bears on, for one half of it.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct SeatWall {
     /// Keeps the side inside the wall line (outward normal).
     pub inside: HalfSpace,
+    /// Cuts for this half alone (a valley's tail at its own fascia).
+    pub half_cuts: Vec<HalfSpace>,
 }
 
 /// Everything needed to cut one piece's solid.
@@ -122,6 +124,8 @@ impl PieceSpec {
                 continue;
             };
             let inside = wall.inside;
+            let mut half = half;
+            half.extend(wall.half_cuts.iter().copied());
             let outside = HalfSpace {
                 normal: -inside.normal,
                 offset: -inside.offset,

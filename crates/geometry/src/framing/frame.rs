@@ -117,13 +117,16 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     let ridge_piece_at = |li: usize, p: DVec2, specs: &[PieceSpec]| -> Option<usize> {
         let line = lines.get(li)?;
         let dir = (line.to - line.from).try_normalize()?;
-        ridge_pieces.get(li)?.iter().copied().find(|&i| {
+        // The piece whose stretch of the ridge is nearest the point (a
+        // butted ridge stops short of the node it is framed to).
+        let t = (p - line.from).dot(dir);
+        let off = |i: usize| {
             let s = &specs[i];
-            let a = (s.plan_line[0] - line.from).dot(dir) - 1e-6;
-            let b = (s.plan_line[1] - line.from).dot(dir) + 1e-6;
-            let t = (p - line.from).dot(dir);
-            (a.min(b)..=a.max(b)).contains(&t)
-        })
+            let a = (s.plan_line[0] - line.from).dot(dir);
+            let b = (s.plan_line[1] - line.from).dot(dir);
+            (a.min(b) - t).max(t - a.max(b)).max(0.0)
+        };
+        ridge_pieces.get(li)?.iter().copied().min_by(|&x, &y| off(x).total_cmp(&off(y)))
     };
 
     // Rafters, and the side faces they bear on.
@@ -189,20 +192,28 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     let labels = label_pieces(&specs, &measured);
 
     // A rafter on a ridge splice bears on both pieces: check ridges whole.
-    let ridge_of_piece = |i: usize| ridge_pieces.iter().position(|ps| ps.contains(&i));
-    let whole_ridges: Vec<Solid> = ridge_pieces
-        .iter()
-        .map(|ps| Solid { parts: ps.iter().flat_map(|&i| solids[i].parts.iter().cloned()).collect() })
-        .collect();
+    // Ridges meeting at a node bear on each other's ends and sides: check
+    // against every ridge board together.
+    let all_ridges = Solid {
+        parts: specs
+            .iter()
+            .zip(&solids)
+            .filter(|(s, _)| s.kind == MemberKind::Ridge)
+            .flat_map(|(_, solid)| solid.parts.iter().cloned())
+            .collect(),
+    };
     let joints: Vec<(Joint, f64)> = joint_specs
         .iter()
         .map(|j| {
             let splice = specs[j.cut].kind == MemberKind::Ridge;
-            let bearing = match ridge_of_piece(j.bearing) {
-                Some(li) if !splice => &whole_ridges[li],
-                _ => &solids[j.bearing],
+            let bearing = if specs[j.bearing].kind == MemberKind::Ridge && !splice {
+                &all_ridges
+            } else {
+                &solids[j.bearing]
             };
-            let fit = check_fit(&solids[j.cut], &j.mating, bearing);
+            let b = &specs[j.bearing].frame;
+            let top = HalfSpace::through(b.origin, b.up, FaceTag::Top, None);
+            let fit = check_fit(&solids[j.cut], &j.mating, bearing, top.as_ref());
             let joint = Joint {
                 members: [labels.labels[j.cut].clone(), labels.labels[j.bearing].clone()],
                 pieces: [j.cut, j.bearing],
@@ -470,8 +481,25 @@ impl Ctx<'_> {
         let hip_end = |node: DVec2| {
             self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3)
         };
-        let start = if hip_end(line.from) { -half_rafter } else { 0.0 };
-        let end = if hip_end(line.to) { len + half_rafter } else { len };
+        // Where an earlier ridge meets this one at an angle, this one butts
+        // against its side; otherwise a hip end runs half a rafter past the
+        // node, flush with the side kings' faces.
+        let butt = |node: DVec2| -> Option<f64> {
+            self.lines.iter().take(li).filter(|l| l.kind == RoofLineKind::Ridge && l.touches(node)).find_map(
+                |l| {
+                    let other = (l.to - l.from).try_normalize()?;
+                    let sin = other.perp_dot(dir).abs();
+                    (sin > 1e-6).then(|| self.settings.ridge.thickness_in / 2.0 / sin)
+                },
+            )
+        };
+        let end_offset = |node: DVec2| match butt(node) {
+            Some(back) => -back,
+            None if hip_end(node) => half_rafter,
+            None => 0.0,
+        };
+        let start = -end_offset(line.from);
+        let end = len + end_offset(line.to);
         let top = self.ridge_top(line);
         let commons: Vec<f64> = self
             .rafters
@@ -479,18 +507,28 @@ impl Ctx<'_> {
             .filter(|r| r.upper_edge == EdgeKind::Line(li) && r.king.is_none())
             .map(|r| (r.upper - line.from).dot(dir))
             .collect();
-        let mut cuts_at = vec![start];
+        // As few pieces as the stock allows, each splice on the common
+        // nearest an even split that keeps every piece within the stock.
         let longest = self.settings.longest_stock_in().unwrap_or(f64::INFINITY);
-        let mut at = start;
-        while end - at > longest {
-            let limit = at + longest;
+        let total = end - start;
+        let pieces = if longest.is_finite() && longest > 0.0 {
+            ((total - STOCK_TOL_IN) / longest).ceil().max(1.0) as usize
+        } else {
+            1
+        };
+        let mut cuts_at = vec![start];
+        for k in 1..pieces {
+            let prev = cuts_at.last().copied().unwrap_or(start);
+            let target = start + total * k as f64 / pieces as f64;
+            let fits = |c: f64| {
+                c - prev <= longest + STOCK_TOL_IN && end - c <= (pieces - k) as f64 * longest + STOCK_TOL_IN
+            };
             let splice = commons
                 .iter()
                 .copied()
-                .filter(|c| *c > at + longest / 2.0 && *c <= limit + STOCK_TOL_IN)
-                .fold(f64::NEG_INFINITY, f64::max);
-            at = if splice.is_finite() { splice } else { limit };
-            cuts_at.push(at);
+                .filter(|c| *c > prev && fits(*c))
+                .min_by(|a, b| (a - target).abs().total_cmp(&(b - target).abs()));
+            cuts_at.push(splice.unwrap_or(target));
         }
         cuts_at.push(end);
         let Some(frame0) = BoardFrame::new(line.from.extend(top), dir, 0.0) else {
@@ -572,7 +610,10 @@ impl Ctx<'_> {
         let mut seat = Vec::new();
         let has_tail = seated && p.overhang_in > 0.0;
         if seated {
-            seat.push(SeatWall { inside: p.wall_side(0.0, true, FaceTag::Interior, None)? });
+            seat.push(SeatWall {
+                inside: p.wall_side(0.0, true, FaceTag::Interior, None)?,
+                half_cuts: Vec::new(),
+            });
             if has_tail {
                 lower_cuts.extend(self.tail_cuts(p, &frame));
             }
@@ -689,8 +730,8 @@ impl Ctx<'_> {
             }
         }
         let seat = vec![
-            SeatWall { inside: pl.wall_side(0.0, true, FaceTag::Interior, None)? },
-            SeatWall { inside: pr.wall_side(0.0, true, FaceTag::Interior, None)? },
+            SeatWall { inside: pl.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
+            SeatWall { inside: pr.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
         ];
         let spec = PieceSpec {
             kind: MemberKind::Hip,
@@ -710,8 +751,70 @@ impl Ctx<'_> {
 
     /// A valley: its centre line in both planes, seated over the inside
     /// corner, its top against the ridge boards it meets.
-    fn valley_spec(&self, _line: &PlanLine) -> Option<Built> {
-        None
+    fn valley_spec(&self, line: &PlanLine) -> Option<Built> {
+        let (left, right) = self.sides(line)?;
+        let (pl, pr) = (self.planes.get(left)?, self.planes.get(right)?);
+        let size = self.settings.valley;
+        let run = line.from.distance(line.to);
+        let slope = (line.to_z - line.from_z) / run;
+        let frame = BoardFrame::new(line.from.extend(self.heel), line.to - line.from, slope)?;
+        let mid = (line.from + line.to) / 2.0;
+        // The top bears on the side of each ridge board at the node.
+        let mut upper_cuts = Vec::new();
+        let mut ridges = Vec::new();
+        for (ri, r) in self.lines.iter().enumerate() {
+            if r.kind != RoofLineKind::Ridge || !r.touches(line.to) {
+                continue;
+            }
+            let mut h =
+                side_face(r.from, r.to, self.settings.ridge.thickness_in, mid, FaceTag::Cheek, CutEnd::Top)?;
+            h.tag = cut_tag(&h, &frame);
+            upper_cuts.push(h);
+            ridges.push((ri, h));
+        }
+        if upper_cuts.is_empty() {
+            upper_cuts.extend(HalfSpace::through(
+                line.to.extend(line.to_z),
+                (line.to - line.from).extend(0.0),
+                FaceTag::Plumb,
+                Some(CutEnd::Top),
+            ));
+        }
+        let has_tail = pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
+        // Over an inside corner each half ends at its own side's fascia.
+        let half = |p: &PlaneFrame| -> Option<SeatWall> {
+            let mut half_cuts = Vec::new();
+            if has_tail {
+                half_cuts.extend(p.wall_side(p.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
+                if let TailCut::PlumbAndLevel { plumb_height_in } = self.settings.tail {
+                    let z = self.heel - p.slope * p.overhang_in - plumb_height_in;
+                    half_cuts.extend(HalfSpace::through(
+                        DVec3::new(0.0, 0.0, z),
+                        -DVec3::Z,
+                        FaceTag::Soffit,
+                        Some(CutEnd::Tail),
+                    ));
+                }
+            }
+            Some(SeatWall { inside: p.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts })
+        };
+        let seat = vec![half(pl)?, half(pr)?];
+        let spec = PieceSpec {
+            kind: MemberKind::Valley,
+            size,
+            frame,
+            plan_line: [line.from, line.to],
+            slope,
+            top_planes: Vec::new(),
+            upper_cuts,
+            lower_cuts: Vec::new(),
+            seat,
+            has_tail,
+            drop_in: 0.0,
+        };
+        // Ridge bearings are resolved to pieces by the caller.
+        let bearings = ridges.into_iter().map(|(ri, h)| (usize::MAX - ri, h)).collect();
+        Some((spec, bearings, false))
     }
 }
 

@@ -36,7 +36,16 @@ pub struct JointFit {
 /// (gap outside, overlap inside) where its foot lands on the bearing solid;
 /// a foot off the bearing solid is a hang. Overlap also takes every corner
 /// of either solid found inside the other.
-pub fn check_fit(cut: &Solid, mating: &HalfSpace, bearing: &Solid) -> JointFit {
+///
+/// A corner above `bearing_top` (the bearing member's top through its
+/// centre line) that misses it is not a hang: the top planes of a valley's
+/// jacks rise past the valley's edges.
+pub fn check_fit(
+    cut: &Solid,
+    mating: &HalfSpace,
+    bearing: &Solid,
+    bearing_top: Option<&HalfSpace>,
+) -> JointFit {
     let tol = 1e-6;
     let mut fit = JointFit { max_gap: 0.0, max_overlap: 0.0, max_hang: 0.0 };
     let mating_corners = cut
@@ -56,6 +65,7 @@ pub fn check_fit(cut: &Solid, mating: &HalfSpace, bearing: &Solid) -> JointFit {
                 fit.max_gap = fit.max_gap.max(t);
                 fit.max_overlap = fit.max_overlap.max(-t);
             }
+            None if bearing_top.is_some_and(|t| t.distance(p) > 0.0) => {}
             None => fit.max_hang = fit.max_hang.max(-bearing.depth_of(p)),
         }
     }

@@ -139,10 +139,16 @@ pub fn rafter_lines(
     // King commons: square to the wall through each hip end of a ridge
     // that is a corner of this plane.
     let wall_len = frame.start.distance(frame.end);
-    for &(node, ridge) in kings {
-        if !frame.has_corner(node) {
+    let mut nodes_done: Vec<DVec2> = Vec::new();
+    // A plane whose ridge edge reaches the node gets a side king for that
+    // ridge; otherwise an end king. One king per node and plane.
+    let mut ordered: Vec<(DVec2, usize)> = kings.to_vec();
+    ordered.sort_by_key(|(_, ridge)| !edges.contains(&EdgeKind::Line(*ridge)));
+    for (node, ridge) in ordered {
+        if !frame.has_corner(node) || nodes_done.iter().any(|n| n.distance(node) < PLAN_TOL_IN * 1e3) {
             continue;
         }
+        nodes_done.push(node);
         let foot_along = (node - frame.start).dot(frame.along);
         if foot_along <= thickness / 2.0 || foot_along >= wall_len - thickness / 2.0 {
             continue;
@@ -181,6 +187,25 @@ pub fn rafter_lines(
         reserved.push(t);
     }
 
+    // Near a wall's end, where a hip or valley starts, a rafter would run
+    // into that member's side: keep lines a rafter's half thickness plus
+    // the member's half thickness (measured along the wall) away.
+    let mut corner_margins: Vec<(f64, f64)> = Vec::new();
+    for corner in [frame.start, frame.end] {
+        for l in lines
+            .iter()
+            .filter(|l| l.kind != RoofLineKind::Ridge && l.from.distance(corner) < PLAN_TOL_IN * 1e3)
+        {
+            let Some(dir) = (l.to - l.from).try_normalize() else { continue };
+            let sin = dir.perp_dot(frame.along).abs().max(1e-6);
+            let t_line = match l.kind {
+                RoofLineKind::Valley => settings.valley.thickness_in,
+                _ => settings.hip.thickness_in,
+            };
+            corner_margins.push((tau(corner), thickness / 2.0 + t_line / 2.0 / sin));
+        }
+    }
+
     let s = settings.spacing_in;
     let shift = if settings.layout_start.centred { s / 2.0 } else { 0.0 };
     let k_first = ((tau_min - shift) / s).ceil() as i64;
@@ -190,7 +215,9 @@ pub fn rafter_lines(
         if t - tau_min < thickness / 2.0 || tau_max - t < thickness / 2.0 {
             continue;
         }
-        if reserved.iter().any(|r| (r - t).abs() < thickness) {
+        if reserved.iter().any(|r| (r - t).abs() < thickness)
+            || corner_margins.iter().any(|(c, margin)| (c - t).abs() < *margin + 1e-9)
+        {
             continue;
         }
         taus_to_clip.push(t);

@@ -100,3 +100,48 @@ pub fn assert_joints_fit(frame: &Frame) {
         assert!(overlap < 1.0 / 64.0, "parry overlap {overlap} at {:?}", j.members);
     }
 }
+
+/// An L of two wings `width` wide, hipped all round at one slope: corners
+/// (0,0), (2W,0), (2W,W), (W,W), (W,2W), (0,2W).
+///
+/// Derivation (equal pitches, equal wings): both ridges stand at
+/// h = slope * W / 2 and meet at (W/2, W/2), where the hip from the outer
+/// corner and the valley from the inside corner (W,W) also end; each wing
+/// ends in a hip end W/2 in from its end wall.
+pub fn l_hip(width: f64, slope: f64, overhang_in: f64) -> (Outline, Roof) {
+    let w = width;
+    let c = [
+        dvec2(0.0, 0.0),
+        dvec2(2.0 * w, 0.0),
+        dvec2(2.0 * w, w),
+        dvec2(w, w),
+        dvec2(w, 2.0 * w),
+        dvec2(0.0, 2.0 * w),
+    ];
+    let o = outline(&c, &[slope; 6], overhang_in);
+    let h = slope * w / 2.0;
+    let a = dvec3(w / 2.0, w / 2.0, h);
+    let e = dvec3(1.5 * w, w / 2.0, h);
+    let n = dvec3(w / 2.0, 1.5 * w, h);
+    let p = |v: DVec2| v.extend(0.0);
+    let planes = vec![
+        plane(0, slope, &[p(c[0]), p(c[1]), e, a]),
+        plane(1, slope, &[p(c[1]), p(c[2]), e]),
+        plane(2, slope, &[p(c[2]), p(c[3]), a, e]),
+        plane(3, slope, &[p(c[3]), p(c[4]), n, a]),
+        plane(4, slope, &[p(c[4]), p(c[5]), n]),
+        plane(5, slope, &[p(c[5]), p(c[0]), a, n]),
+    ];
+    let line = |kind, from, to, walls| RoofLine { kind, from, to, walls };
+    let lines = vec![
+        line(RoofLineKind::Ridge, a, e, [0, 2]),
+        line(RoofLineKind::Ridge, a, n, [3, 5]),
+        line(RoofLineKind::Hip, p(c[0]), a, [5, 0]),
+        line(RoofLineKind::Valley, p(c[3]), a, [2, 3]),
+        line(RoofLineKind::Hip, p(c[1]), e, [0, 1]),
+        line(RoofLineKind::Hip, p(c[2]), e, [1, 2]),
+        line(RoofLineKind::Hip, p(c[4]), n, [3, 4]),
+        line(RoofLineKind::Hip, p(c[5]), n, [4, 5]),
+    ];
+    (o, Roof { planes, lines, gables: Vec::new() })
+}

@@ -25,8 +25,8 @@ fn hulls(piece: &PlacedPiece) -> Vec<ConvexPolyhedron> {
 
 /// Largest gap and overlap of one joint, and how many mating faces were
 /// found, measured by parry: overlap by contact depth between every pair
-/// of convex parts; gap by casting from each corner of the cut piece's end
-/// faces along the face normal onto the bearing piece.
+/// of convex parts; gap by casting from points just inside each corner of the cut
+/// piece's end faces along the face normal onto the bearing piece.
 pub fn fit(frame: &Frame, cut: usize, bearing: usize) -> (f64, f64, usize) {
     let a = &frame.pieces[cut];
     // A rafter on a ridge splice bears on both ridge pieces.
@@ -52,7 +52,13 @@ pub fn fit(frame: &Frame, cut: usize, bearing: usize) -> (f64, f64, usize) {
     let back = 0.05;
     for face in a.solid.faces().filter(|f| matches!(f.tag, FaceTag::Plumb | FaceTag::Cheek | FaceTag::End)) {
         let mut hit_any = false;
-        for p in &face.vertices {
+        // Corners of a flush cut graze the bearing piece's edges, where a
+        // ray may slip past: sample just inside the face instead.
+        let centre = face.vertices.iter().copied().sum::<glam::DVec3>() / face.vertices.len() as f64;
+        let samples: Vec<glam::DVec3> = std::iter::once(centre)
+            .chain(face.vertices.iter().map(|p| centre + (*p - centre) * 0.98))
+            .collect();
+        for p in &samples {
             let ray = Ray::new(v(*p - face.normal * back), v(face.normal));
             let toi =
                 hb.iter().filter_map(|h| h.cast_ray(&id, &ray, 0.2, false)).fold(f64::INFINITY, f64::min);
