@@ -89,7 +89,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     let origin = outline.outer().get(settings.layout_start.corner).map_or(DVec2::ZERO, |w| w.corner);
     let mut rafters: Vec<RafterLine> = Vec::new();
     for (i, p) in planes.iter().enumerate() {
-        rafters.extend(rafter_lines(i, p, &lines, &kings, origin, settings));
+        rafters.extend(rafter_lines(i, p, &planes, &lines, &kings, origin, settings));
     }
 
     let ctx = Ctx { planes: &planes, lines: &lines, rafters: &rafters, heel, settings };

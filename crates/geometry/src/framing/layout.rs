@@ -121,6 +121,7 @@ pub fn edge_kinds(plane_index: usize, frame: &PlaneFrame, lines: &[PlanLine]) ->
 pub fn rafter_lines(
     plane_index: usize,
     frame: &PlaneFrame,
+    all_planes: &[PlaneFrame],
     lines: &[PlanLine],
     kings: &[(DVec2, usize)],
     origin: DVec2,
@@ -178,6 +179,15 @@ pub fn rafter_lines(
             continue;
         };
         if dir.dot(frame.along).abs() > 1e-9 {
+            continue;
+        }
+        // An edge shared with another plane divides coplanar walls' parts:
+        // no rake there.
+        let shared = all_planes
+            .iter()
+            .enumerate()
+            .any(|(j, other)| j != plane_index && other.has_corner(a) && other.has_corner(b));
+        if shared {
             continue;
         }
         let t_edge = tau(a);

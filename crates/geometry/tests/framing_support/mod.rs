@@ -23,7 +23,13 @@ pub fn outline(corners: &[DVec2], slopes: &[f64], overhang_in: f64) -> Outline {
 /// A plane with its eave outline taken as the wall-line outline (framing
 /// reads overhangs from the walls, not from the eave outline).
 fn plane(wall: usize, slope: f64, pts: &[DVec3]) -> RoofPlane {
-    RoofPlane { wall, rise_per_run: slope, outline: pts.to_vec(), eave_outline: pts.to_vec() }
+    RoofPlane {
+        wall,
+        rise_per_run: slope,
+        outline: pts.to_vec(),
+        eave_outline: pts.to_vec(),
+        coplanar_walls: Vec::new(),
+    }
 }
 
 /// A rectangle `length` along x by `width` along y, hipped all round: the
