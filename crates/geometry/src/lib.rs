@@ -28,16 +28,20 @@ pub mod member_size;
 pub mod outline;
 pub mod pitch;
 pub mod rafter_table;
+pub mod random_outline;
 pub mod roof;
+pub mod roof_check;
 
 pub use compound_cut::{CompoundCut, CutAngles, CutWarning, MiterSetting, SquareFigures};
 pub use framing::{Frame, FramingError, FramingSettings, Member, MemberKind, frame_roof};
 pub use length::{Length, LengthError, LengthStyle, LengthUnit};
 pub use member_size::{MemberSize, MemberSizeError};
-pub use outline::{Outline, OutlineError, Wall, WallRoof};
+pub use outline::{CornerName, Outline, OutlineError, Wall, WallName, WallRoof};
 pub use pitch::{Pitch, PitchError};
 pub use rafter_table::{AngleSetting, MarkAlong, MetricRafterTable, RafterTable, SquareSetting};
+pub use random_outline::{OutlineFeatures, OutlineShape, random_outline, random_outline_with};
 pub use roof::{GableFace, Roof, RoofError, RoofLine, RoofLineKind, RoofPlane};
+pub use roof_check::{RoofDefect, check_roof};
 pub mod demo;
 pub mod plan;
 

@@ -35,7 +35,7 @@ use thiserror::Error;
 
 mod segment_grid;
 
-use segment_grid::SegmentGrid;
+pub(crate) use segment_grid::SegmentGrid;
 
 /// The most corners an outline may have (outer ring and courtyards together).
 pub const MAX_CORNERS: usize = 100_000;
@@ -314,13 +314,13 @@ fn coord(p: DVec2) -> Coord<f64> {
 }
 
 /// Exact orientation: positive when a, b, c turn counter-clockwise.
-fn orient(a: DVec2, b: DVec2, c: DVec2) -> f64 {
+pub(crate) fn orient(a: DVec2, b: DVec2, c: DVec2) -> f64 {
     orient2d(coord(a), coord(b), coord(c))
 }
 
 /// How two segments meet, decided exactly.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
-enum Meeting {
+pub(crate) enum Meeting {
     Apart,
     Cross,
     Touch,
@@ -332,7 +332,7 @@ fn within_box(a: DVec2, b: DVec2, p: DVec2) -> bool {
 }
 
 /// Exact test of segments a-b and c-d.
-fn segments_meet(a: DVec2, b: DVec2, c: DVec2, d: DVec2) -> Meeting {
+pub(crate) fn segments_meet(a: DVec2, b: DVec2, c: DVec2, d: DVec2) -> Meeting {
     let o1 = orient(a, b, c);
     let o2 = orient(a, b, d);
     let o3 = orient(c, d, a);
@@ -348,7 +348,7 @@ fn segments_meet(a: DVec2, b: DVec2, c: DVec2, d: DVec2) -> Meeting {
 }
 
 /// Distance from `p` to segment a-b.
-fn distance_to_segment(p: DVec2, a: DVec2, b: DVec2) -> f64 {
+pub(crate) fn distance_to_segment(p: DVec2, a: DVec2, b: DVec2) -> f64 {
     let ab = b - a;
     let len2 = ab.length_squared();
     let t = if len2 > 0.0 { ((p - a).dot(ab) / len2).clamp(0.0, 1.0) } else { 0.0 };
@@ -370,7 +370,7 @@ fn signed_area(points: &[DVec2]) -> f64 {
 }
 
 /// Exact winding-number test; `p` must not lie on the ring.
-fn ring_contains(points: &[DVec2], p: DVec2) -> bool {
+pub(crate) fn ring_contains(points: &[DVec2], p: DVec2) -> bool {
     let mut winding = 0i64;
     for (i, &a) in points.iter().enumerate() {
         let Some(&b) = points.get((i + 1) % points.len()) else {

@@ -104,6 +104,37 @@ impl SegmentGrid {
             }
         }
     }
+
+    /// Calls `visit(i)` for every segment that may come within the padding
+    /// of the point (some more than once).
+    pub(crate) fn for_each_near(&self, point: DVec2, mut visit: impl FnMut(usize)) {
+        if self.cells.is_empty() {
+            (0..self.count).for_each(visit);
+            return;
+        }
+        let index = self.row_of(point.y) * self.cols + self.col_of(point.x);
+        for &i in self.cells.get(index).map_or(&[][..], Vec::as_slice) {
+            visit(i as usize);
+        }
+    }
+
+    /// Every segment that may cross the horizontal ray from `point` towards
+    /// +x, each once: the segments entered in the point's row of cells from
+    /// its column on.
+    pub(crate) fn right_of(&self, point: DVec2) -> Vec<usize> {
+        if self.cells.is_empty() {
+            return (0..self.count).collect();
+        }
+        let row = self.row_of(point.y);
+        let mut found: Vec<usize> = (self.col_of(point.x)..self.cols)
+            .filter_map(|col| self.cells.get(row * self.cols + col))
+            .flatten()
+            .map(|&i| i as usize)
+            .collect();
+        found.sort_unstable();
+        found.dedup();
+        found
+    }
 }
 
 /// The x extent of the part of segment a-b whose y lies in `[lo, hi]`.
