@@ -31,6 +31,14 @@ use crate::{Outline, Roof, RoofLineKind};
 /// lower-envelope test, whose cost grows with the square of the walls.
 const ENVELOPE_WALL_LIMIT: usize = 120;
 
+/// A line between two shedding planes rising less than this per unit run
+/// is a ridge.
+const LEVEL_SLOPE: f64 = 1e-9;
+
+/// A line between two shedding planes rising more than this per unit run
+/// is a hip; in between, either name is accepted.
+const SLOPED_SLOPE: f64 = 1e-6;
+
 /// One way a solved roof is wrong.
 #[derive(Debug, Clone, PartialEq, Error)]
 pub enum RoofDefect {
@@ -418,7 +426,7 @@ fn build_faces(
         let points: Vec<DVec2> = p.outline.iter().map(|q| q.truncate()).collect();
         let heights: Vec<f64> = p.outline.iter().map(|q| q.z).collect();
         let finite = p.outline.iter().all(|q| q.is_finite());
-        if points.len() < 3 || !finite || signed_area(&points) <= tol * tol {
+        if points.len() < 3 || !finite || signed_area(&points) <= 0.0 {
             defects.push(RoofDefect::PlaneOutlineDegenerate { plane });
             continue;
         }
@@ -653,7 +661,7 @@ fn check_lines(
         if line.from.z > line.to.z + height_tol {
             defects.push(RoofDefect::LineEndsReversed { line: index });
         }
-        let (from, to) = (line.from.truncate(), line.to.truncate());
+
         let mid = (line.from + line.to) / 2.0;
         let mut sides = Vec::with_capacity(2);
         for wall in line.walls {
@@ -677,13 +685,22 @@ fn check_lines(
             reported.push((fa.plane.min(fb.plane), fa.plane.max(fb.plane)));
             let rise_into_a = (fa.inward * fa.slope - fb.inward * fb.slope).dot(into_a.normalize_or_zero());
             // Below the other plane on its own side: the crease sheds water.
+            // The planes' line of intersection, from their normals: its
+            // slope tells a ridge (level) from a hip, whatever the ends say.
+            let normal = |f: &Face| DVec3::new(-f.slope * f.inward.x, -f.slope * f.inward.y, 1.0);
+            let direction = normal(fa).cross(normal(fb));
+            let line_slope = direction.z.abs() / direction.truncate().length().max(f64::MIN_POSITIVE);
             let expected = if rise_into_a.abs() <= 1e-9 * (fa.slope + fb.slope) {
                 None
-            } else if rise_into_a < 0.0 {
-                let level = (line.from.z - line.to.z).abs() <= height_tol && from.distance(to) > tol;
-                Some(if level { RoofLineKind::Ridge } else { RoofLineKind::Hip })
-            } else {
+            } else if rise_into_a > 0.0 {
                 Some(RoofLineKind::Valley)
+            } else if line_slope <= LEVEL_SLOPE {
+                Some(RoofLineKind::Ridge)
+            } else if line_slope >= SLOPED_SLOPE {
+                Some(RoofLineKind::Hip)
+            } else {
+                // Between the two a solver may call it either.
+                matches!(line.kind, RoofLineKind::Valley).then_some(RoofLineKind::Hip)
             };
             if let Some(expected) = expected
                 && expected != line.kind
