@@ -21,6 +21,8 @@
 //! that tolerance times (1 + the steepest pitch), four times over, since a
 //! height is a plan distance times a slope.
 
+use std::collections::{HashMap, HashSet};
+
 use glam::{DVec2, DVec3};
 use thiserror::Error;
 
@@ -598,9 +600,7 @@ fn check_pair(
             }
         }
     }
-    let coplanar = (a.inward * a.slope - b.inward * b.slope).length() <= 1e-9 * (a.slope + b.slope)
-        && (a.height_at(b.start)).abs() <= height_tol;
-    if !coplanar && shared_edge_length(a, b, tol) > 2.0 * tol {
+    if !same_plane(a, b, height_tol) && shared_edge_length(a, b, tol) > 2.0 * tol {
         neighbours.push((a.plane, b.plane));
     }
 }
@@ -647,6 +647,12 @@ fn distance_to_line(p: DVec2, origin: DVec2, unit: DVec2) -> f64 {
     unit.perp_dot(p - origin).abs()
 }
 
+/// Whether two faces lie in one plane (walls in line at one pitch).
+fn same_plane(a: &Face, b: &Face, height_tol: f64) -> bool {
+    (a.inward * a.slope - b.inward * b.slope).length() <= 1e-9 * (a.slope + b.slope)
+        && a.height_at(b.start).abs() <= height_tol
+}
+
 fn check_lines(
     roof: &Roof,
     faces: &[Face],
@@ -655,41 +661,73 @@ fn check_lines(
     height_tol: f64,
     defects: &mut Vec<RoofDefect>,
 ) {
-    let face_of = |wall: usize| faces.iter().find(|f| f.wall == wall);
-    let mut reported: Vec<(usize, usize)> = Vec::new();
+    let by_wall: HashMap<usize, &Face> = faces.iter().map(|f| (f.wall, f)).collect();
+    // A line may name any wall of a plane shared by walls in line; the
+    // solver lists them in `coplanar_walls`, and each is confirmed here.
+    let group = |wall: usize| -> Vec<&Face> {
+        let Some(&face) = by_wall.get(&wall) else { return Vec::new() };
+        let shared = roof.planes.get(face.plane).map_or(&[][..], |p| p.coplanar_walls.as_slice());
+        std::iter::once(face)
+            .chain(
+                shared
+                    .iter()
+                    .filter_map(|w| by_wall.get(w).copied())
+                    .filter(|f| same_plane(face, f, height_tol)),
+            )
+            .collect()
+    };
+    let mut reported: HashSet<(usize, usize)> = HashSet::new();
     for (index, line) in roof.lines.iter().enumerate() {
         if line.from.z > line.to.z + height_tol {
             defects.push(RoofDefect::LineEndsReversed { line: index });
         }
-
         let mid = (line.from + line.to) / 2.0;
         let mut sides = Vec::with_capacity(2);
+        let mut groups = Vec::with_capacity(2);
         for wall in line.walls {
-            let Some(face) = face_of(wall) else {
-                defects.push(RoofDefect::LineNotOnBothPlanes { line: index, wall });
-                continue;
-            };
-            let on = [line.from, line.to, mid].iter().all(|p| {
-                face.on_boundary(p.truncate(), tol)
-                    && (face.height_at(p.truncate()) - p.z).abs() <= height_tol
-            });
+            let members = group(wall);
+            let on = !members.is_empty()
+                && [line.from, line.to, mid].iter().all(|p| {
+                    members.iter().any(|face| {
+                        face.on_boundary(p.truncate(), tol)
+                            && (face.height_at(p.truncate()) - p.z).abs() <= height_tol
+                    })
+                });
             if !on {
                 defects.push(RoofDefect::LineNotOnBothPlanes { line: index, wall });
                 continue;
             }
-            // The face lies to the left of its own edge through the line.
-            let inside = face.nearest_edge(mid.truncate()).map(|(_, dir)| dir.perp());
-            sides.push((face, inside));
+            // The face lies to the left of its own edge along the line;
+            // the line's middle may be a corner of other edges too.
+            let along = (line.to - line.from).truncate().normalize_or_zero();
+            let edge = members.iter().find_map(|f| {
+                f.edges()
+                    .find(|&(_, a, b)| {
+                        let dir = (b - a).normalize_or_zero();
+                        dir.perp_dot(along).abs() <= 1e-6 && distance_to_segment(mid.truncate(), a, b) <= tol
+                    })
+                    .map(|(_, a, b)| (*f, (b - a).perp()))
+            });
+            if let Some((face, into)) = edge {
+                sides.push((face, into));
+            }
+            groups.push(members);
         }
-        if let [(fa, Some(into_a)), (fb, _)] = sides[..] {
-            reported.push((fa.plane.min(fb.plane), fa.plane.max(fb.plane)));
+        if let [group_a, group_b] = &groups[..] {
+            for x in group_a {
+                for y in group_b {
+                    reported.insert((x.plane.min(y.plane), x.plane.max(y.plane)));
+                }
+            }
+        }
+        if let [(fa, into_a), (fb, _)] = &sides[..] {
             let rise_into_a = (fa.inward * fa.slope - fb.inward * fb.slope).dot(into_a.normalize_or_zero());
-            // Below the other plane on its own side: the crease sheds water.
             // The planes' line of intersection, from their normals: its
             // slope tells a ridge (level) from a hip, whatever the ends say.
             let normal = |f: &Face| DVec3::new(-f.slope * f.inward.x, -f.slope * f.inward.y, 1.0);
             let direction = normal(fa).cross(normal(fb));
             let line_slope = direction.z.abs() / direction.truncate().length().max(f64::MIN_POSITIVE);
+            // Below the other plane on its own side: the crease sheds water.
             let expected = if rise_into_a.abs() <= 1e-9 * (fa.slope + fb.slope) {
                 None
             } else if rise_into_a > 0.0 {
@@ -823,7 +861,13 @@ mod tests {
 
     fn plane(wall: usize, points: &[(f64, f64, f64)]) -> RoofPlane {
         let outline: Vec<DVec3> = points.iter().map(|&(x, y, z)| DVec3::new(x, y, z)).collect();
-        RoofPlane { wall, rise_per_run: PITCH, eave_outline: outline.clone(), outline }
+        RoofPlane {
+            wall,
+            rise_per_run: PITCH,
+            eave_outline: outline.clone(),
+            outline,
+            coplanar_walls: vec![],
+        }
     }
 
     fn line(kind: RoofLineKind, from: (f64, f64, f64), to: (f64, f64, f64), walls: [usize; 2]) -> RoofLine {

@@ -180,6 +180,7 @@ impl Rectangle {
                     rise_per_run: self.slope,
                     eave_outline: outline.clone(),
                     outline,
+                    coplanar_walls: vec![],
                 });
             } else if self.gable_ends {
                 let outline = vec![flat(a), flat(b), lift(nearest((a + b) / 2.0))];
@@ -191,6 +192,7 @@ impl Rectangle {
                     rise_per_run: self.slope,
                     eave_outline: outline.clone(),
                     outline,
+                    coplanar_walls: vec![],
                 });
             }
         }
@@ -299,25 +301,24 @@ proptest! {
     #![proptest_config(ProptestConfig { cases: cases(1500), ..ProptestConfig::default() })]
 
     #[test]
-    #[ignore = "needs Roof::solve, which is not on main yet"]
+    #[ignore = "the solver still fails some of these; see roof_solver_cases.rs"]
     fn plain_orthogonal_roofs_pass(seed in any::<u64>()) {
         solve_and_check(&random_outline_with(OutlineShape::Orthogonal, seed, OutlineFeatures::PLAIN))?;
     }
 
     #[test]
-    #[ignore = "needs Roof::solve, which is not on main yet"]
     fn plain_star_roofs_pass(seed in any::<u64>()) {
         solve_and_check(&random_outline_with(OutlineShape::Star, seed, OutlineFeatures::PLAIN))?;
     }
 
     #[test]
-    #[ignore = "needs Roof::solve, which is not on main yet"]
+    #[ignore = "the solver still fails some of these; see roof_solver_cases.rs"]
     fn orthogonal_roofs_pass(seed in any::<u64>()) {
         solve_and_check(&random_outline(OutlineShape::Orthogonal, seed))?;
     }
 
     #[test]
-    #[ignore = "needs Roof::solve, which is not on main yet"]
+    #[ignore = "the solver still fails some of these; see roof_solver_cases.rs"]
     fn star_roofs_pass(seed in any::<u64>()) {
         solve_and_check(&random_outline(OutlineShape::Star, seed))?;
     }
