@@ -32,7 +32,6 @@ fn assert_solves_cleanly(outline: &Outline) {
 /// planes are one plane, and the ridges across the middle must still be
 /// reported between the planes that meet there.
 #[test]
-#[ignore = "needs Roof::solve, which is not on main yet"]
 fn plus_shape_reports_its_ridges() {
     let outer = walls(
         &[
@@ -81,7 +80,6 @@ fn uneven_cross_reports_its_ridges() {
 /// A T on its side: the stem's two walls at x = 180 lie in line, on either
 /// side of the arm, with one pitch.
 #[test]
-#[ignore = "needs Roof::solve, which is not on main yet"]
 fn sideways_t_reports_its_ridges() {
     let outer = walls(
         &[
