@@ -38,8 +38,9 @@ const ENVELOPE_WALL_LIMIT: usize = 120;
 const LEVEL_SLOPE: f64 = 1e-9;
 
 /// A line between two shedding planes rising more than this per unit run
-/// is a hip; in between, either name is accepted.
-const SLOPED_SLOPE: f64 = 1e-6;
+/// (0.1 in over 100 in) is a hip; in between, where walls are nearly
+/// parallel, either name is accepted.
+const SLOPED_SLOPE: f64 = 1e-3;
 
 /// One way a solved roof is wrong.
 #[derive(Debug, Clone, PartialEq, Error)]
