@@ -30,8 +30,12 @@ use crate::outline::{Meeting, SegmentGrid, distance_to_segment, orient, ring_con
 use crate::{Outline, Roof, RoofLineKind};
 
 /// Outlines with more walls than this skip the visibility-based
-/// lower-envelope test, whose cost grows with the square of the walls.
+/// lower-envelope test, whose cost grows with the cube of the walls.
 const ENVELOPE_WALL_LIMIT: usize = 120;
+
+/// Convex outlines with more walls than this skip the lower-envelope test,
+/// whose cost there grows with the square of the walls.
+const CONVEX_ENVELOPE_WALL_LIMIT: usize = 1000;
 
 /// A line between two shedding planes rising less than this per unit run
 /// is a ridge.
@@ -764,7 +768,8 @@ fn check_envelope(
     defects: &mut Vec<RoofDefect>,
 ) {
     let convex = walls.convex();
-    if !convex && walls.lines.len() > ENVELOPE_WALL_LIMIT {
+    let limit = if convex { CONVEX_ENVELOPE_WALL_LIMIT } else { ENVELOPE_WALL_LIMIT };
+    if walls.lines.len() > limit {
         return;
     }
     for face in faces {
