@@ -175,7 +175,8 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             let li = usize::MAX - j.bearing;
             let bearing = match lines.get(li).map(|l| l.kind) {
                 Some(RoofLineKind::Ridge) => {
-                    let cut_point = specs[j.cut].plan_line[1];
+                    let end = if j.mating.end == Some(CutEnd::Bottom) { 0 } else { 1 };
+                    let cut_point = specs[j.cut].plan_line[end];
                     ridge_piece_at(li, cut_point, &specs)
                 }
                 Some(_) => line_piece.get(li).copied().flatten(),
@@ -660,7 +661,7 @@ impl Ctx<'_> {
         let half = size.thickness_in / 2.0;
         let corner_drop = |p: &PlaneFrame, sign: f64| {
             let at = line.from + probe.side.truncate() * (sign * half);
-            (-p.height(at)).max(0.0)
+            (line.from_z - p.height(at)).max(0.0)
         };
         let (drop_in, top_planes) = match self.settings.hip_top {
             HipTop::Dropped => (corner_drop(pl, 1.0).max(corner_drop(pr, -1.0)), Vec::new()),
@@ -672,11 +673,50 @@ impl Ctx<'_> {
                     .collect(),
             ),
         };
-        let frame = BoardFrame { origin: line.from.extend(self.heel - drop_in), ..probe };
+        let frame = BoardFrame { origin: line.from.extend(line.from_z + self.heel - drop_in), ..probe };
         let mid = (line.from + line.to) / 2.0;
         let mut upper_cuts = Vec::new();
         let mut bearings = Vec::new();
         let mut peak_without_ridge = false;
+        // A hip that starts up on the roof (where a valley and a ridge end)
+        // has no seat: it sits against what is framed there first.
+        let seated = line.from_z.abs() < 1e-6;
+        let mut foot_cuts = Vec::new();
+        if !seated {
+            for (k, other) in self.lines.iter().enumerate() {
+                let meets = match other.kind {
+                    RoofLineKind::Ridge => other.touches(line.from),
+                    _ => {
+                        other.to.distance(line.from) < PLAN_TOL_IN * 1e3
+                            && other.from.distance(line.from) > PLAN_TOL_IN * 1e3
+                    }
+                };
+                if !meets || std::ptr::eq(other, line) {
+                    continue;
+                }
+                let thickness = match other.kind {
+                    RoofLineKind::Ridge => self.settings.ridge.thickness_in,
+                    RoofLineKind::Hip => self.settings.hip.thickness_in,
+                    RoofLineKind::Valley => self.settings.valley.thickness_in,
+                };
+                let Some(mut h) =
+                    side_face(other.from, other.to, thickness, mid, FaceTag::Cheek, CutEnd::Bottom)
+                else {
+                    continue;
+                };
+                h.tag = cut_tag(&h, &frame);
+                foot_cuts.push(h);
+                bearings.push((usize::MAX - k, h));
+            }
+            if foot_cuts.is_empty() {
+                foot_cuts.extend(HalfSpace::through(
+                    line.from.extend(line.from_z),
+                    (line.from - line.to).extend(0.0),
+                    FaceTag::Plumb,
+                    Some(CutEnd::Bottom),
+                ));
+            }
+        }
         for &pi in &[left, right] {
             // The king in this plane at the hip's top, if any.
             let king = self.rafters.iter().enumerate().find(|(_, r)| {
@@ -711,8 +751,8 @@ impl Ctx<'_> {
         } else {
             peak_without_ridge = false;
         }
-        let has_tail = pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
-        let mut lower_cuts = Vec::new();
+        let has_tail = seated && pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
+        let mut lower_cuts = foot_cuts;
         if has_tail {
             lower_cuts.extend(pl.wall_side(pl.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
             lower_cuts.extend(pr.wall_side(pr.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
@@ -729,10 +769,14 @@ impl Ctx<'_> {
                 ));
             }
         }
-        let seat = vec![
-            SeatWall { inside: pl.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
-            SeatWall { inside: pr.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
-        ];
+        let seat = if seated {
+            vec![
+                SeatWall { inside: pl.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
+                SeatWall { inside: pr.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
+            ]
+        } else {
+            Vec::new()
+        };
         let spec = PieceSpec {
             kind: MemberKind::Hip,
             size,
