@@ -62,7 +62,7 @@ fn artifact(name: &str) -> PathBuf {
 }
 
 /// Runs the app with `args` plus `--picture out`, waits for it, returns the picture.
-fn picture(display: &VirtualDisplay, name: &str, args: &[&str]) -> image::RgbaImage {
+fn picture(display: &VirtualDisplay, name: &str, args: &[&str], pick: Option<&str>) -> image::RgbaImage {
     let out = artifact(name);
     let _ = std::fs::remove_file(&out);
     let mut child = Command::new(env!("CARGO_BIN_EXE_pitchframe"))
@@ -72,6 +72,7 @@ fn picture(display: &VirtualDisplay, name: &str, args: &[&str]) -> image::RgbaIm
         .env("DISPLAY", &display.display)
         .env("LIBGL_ALWAYS_SOFTWARE", "1")
         .env_remove("WAYLAND_DISPLAY")
+        .env("PITCHFRAME_PICK", pick.unwrap_or(""))
         .stdout(Stdio::piped())
         .stderr(Stdio::piped())
         .spawn()
@@ -123,6 +124,26 @@ fn count_in(picture: &image::RgbaImage, bbox: (u32, u32, u32, u32), test: impl F
         .count()
 }
 
+/// The picked piece's lit highlight (a magenta no member kind uses, must
+/// match the app's palette): strong red and blue, little green.
+fn highlight_coloured(pixel: [u8; 4]) -> bool {
+    let [r, g, b, _] = pixel;
+    r > 150 && b > 120 && g < 90
+}
+
+/// Cut-face colours, drawn unlit so they arrive exactly (must match the
+/// app's palette). Only those with a zero channel are listed: lit colours
+/// never reach zero in any channel because the ambient light lifts them.
+const CUT_FACE_RGB: [[u8; 3]; 6] =
+    [[255, 150, 0], [0, 220, 255], [0, 80, 255], [255, 235, 0], [150, 255, 0], [140, 0, 255]];
+
+/// The 3D view's box in the picture: the one large area cleared to the
+/// background colour.
+fn view_box(picture: &image::RgbaImage) -> (u32, u32, u32, u32) {
+    bounding_box_of(picture, BACKGROUND_RGB, 2)
+        .expect("no pixel of the 3D view's background colour: the view was not drawn")
+}
+
 /// Warm tan, as the lit walls are drawn: clearly more red than blue, far
 /// from both the blue-grey background and egui's neutral greys.
 fn wall_coloured(pixel: [u8; 4]) -> bool {
@@ -133,11 +154,9 @@ fn wall_coloured(pixel: [u8; 4]) -> bool {
 #[test]
 fn window_draws_the_demo_walls_in_the_3d_view() {
     let display = VirtualDisplay::start();
-    let picture = picture(&display, "window.png", &[]);
+    let picture = picture(&display, "window.png", &[], None);
 
-    // The view is the one large area cleared to the background colour.
-    let view = bounding_box_of(&picture, BACKGROUND_RGB, 2)
-        .expect("no pixel of the 3D view's background colour: the view was not drawn");
+    let view = view_box(&picture);
     let (x0, y0, x1, y1) = view;
     let (view_w, view_h) = (x1 - x0 + 1, y1 - y0 + 1);
     assert!(
@@ -164,4 +183,19 @@ fn window_draws_the_demo_walls_in_the_3d_view() {
         .map(|p| [p[0] / 16, p[1] / 16, p[2] / 16])
         .collect();
     assert!(shades.len() >= 2, "the walls show a single flat shade: {shades:?}");
+    // Nothing is picked, so the highlight colour is nowhere in the view.
+    assert_eq!(count_in(&picture, view, highlight_coloured), 0, "a highlight shows with nothing picked");
+}
+
+#[test]
+fn picking_a_member_highlights_it_and_colours_its_cut_faces() {
+    let display = VirtualDisplay::start();
+    // HJ1: the demo's first hip jack, short enough that its cut faces show
+    // large when the view zooms to it.
+    let picture = picture(&display, "window-pick.png", &[], Some("HJ1"));
+    let view = view_box(&picture);
+    let highlighted = count_in(&picture, view, highlight_coloured);
+    assert!(highlighted > 2000, "only {highlighted} view pixels show the highlight colour");
+    let cut_faces = count_in(&picture, view, |p| CUT_FACE_RGB.iter().any(|&rgb| close(p, rgb, 3)));
+    assert!(cut_faces > 30, "only {cut_faces} view pixels show a cut-face colour");
 }

@@ -47,6 +47,8 @@ impl Document {
 pub enum Command {
     /// Turn the camera to a preset direction.
     SetView(ViewPreset),
+    /// Bring the picked member to the middle of the view, close up.
+    FocusPicked,
     /// Switch between the framing view and the client view.
     SetClientView(bool),
     /// Select what lies under a click in the 3D view (nothing if empty),
@@ -62,8 +64,8 @@ pub enum Command {
 /// What the user has picked in the 3D view.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Selection {
-    /// Index into the scene's parts.
-    pub part: usize,
+    /// Index into the scene's framing pieces.
+    pub piece: usize,
 }
 
 /// Keys that turn the camera to each preset.
@@ -95,9 +97,13 @@ impl PitchframeApp {
         document: Document,
         view: ViewPreset,
         picture: Option<PictureJob>,
+        pick_label: Option<&str>,
     ) -> anyhow::Result<Self> {
         let renderer = Renderer::new(gl).context("three-d could not use the window's GL context")?;
         let scene = Arc::new(scene_for(&document));
+        let selection = pick_label
+            .and_then(|label| scene.pieces.iter().position(|piece| piece.label == label))
+            .map(|piece| Selection { piece });
         let camera = OrbitCamera::framing(scene.min, scene.max, view);
         Ok(Self {
             document,
@@ -105,9 +111,10 @@ impl PitchframeApp {
             camera,
             renderer: Arc::new(Mutex::new(renderer)),
             picture,
-            selection: None,
+            selection,
             style: ViewStyle::default(),
-            commands: Vec::new(),
+            // Opening on a pick (as tests do) shows it close up.
+            commands: selection.map(|_| Command::FocusPicked).into_iter().collect(),
         })
     }
 
@@ -124,6 +131,10 @@ impl PitchframeApp {
                 if button.clicked() {
                     self.commands.push(Command::SetView(view));
                 }
+            }
+            let focus = ui.add_enabled(self.selection.is_some(), egui::Button::new("Zoom to picked"));
+            if focus.on_hover_text("Key: Z").clicked() {
+                self.commands.push(Command::FocusPicked);
             }
             ui.separator();
             let mut client_view = self.style.client_view;
@@ -142,6 +153,9 @@ impl PitchframeApp {
         if ctx.egui_wants_keyboard_input() {
             return;
         }
+        if ctx.input(|input| input.key_pressed(egui::Key::Z)) {
+            self.commands.push(Command::FocusPicked);
+        }
         if ctx.input(|input| input.key_pressed(egui::Key::V)) {
             self.commands.push(Command::SetClientView(!self.style.client_view));
         }
@@ -157,9 +171,15 @@ impl PitchframeApp {
             match command {
                 Command::SetView(view) => self.camera.set_view(view),
                 Command::SetClientView(on) => self.style.client_view = on,
+                Command::FocusPicked => {
+                    let picked = self.selection.and_then(|selection| self.scene.pieces.get(selection.piece));
+                    if let Some((min, max)) = picked.and_then(|piece| piece.triangles.bounds()) {
+                        self.camera.focus(min, max);
+                    }
+                }
                 Command::PickAt { at, view_size } => {
                     let ray = self.camera.ray(at, view_size);
-                    self.selection = pick(&self.scene, &ray).map(|hit| Selection { part: hit.part });
+                    self.selection = pick(&self.scene, &ray).map(|hit| Selection { piece: hit.piece });
                 }
             }
         }
@@ -177,12 +197,20 @@ impl eframe::App for PitchframeApp {
         self.shortcuts(&ctx);
         egui::Panel::top("toolbar").show(ui, |ui| self.toolbar_ui(ui));
         egui::Panel::left("numbers").default_size(280.0).show(ui, |ui| {
-            let selected = self.selection.and_then(|selection| self.scene.parts.get(selection.part));
+            let selected = self.selection.and_then(|selection| self.scene.pieces.get(selection.piece));
             side_panel_ui(ui, &self.document, &self.scene, selected);
         });
         egui::CentralPanel::no_frame().show(ui, |ui| {
-            let input = viewport_ui(ui, &self.renderer, &self.scene, &mut self.camera, self.style);
-            if let Some(at) = input.clicked_at {
+            let input = viewport_ui(
+                ui,
+                &self.renderer,
+                &self.scene,
+                &mut self.camera,
+                self.style,
+                self.selection.map(|selection| selection.piece),
+            );
+            // The client view hides the frame, so there is nothing to pick.
+            if let Some(at) = input.clicked_at.filter(|_| !self.style.client_view) {
                 self.commands.push(Command::PickAt { at, view_size: input.view_size });
             }
         });

@@ -79,6 +79,15 @@ impl OrbitCamera {
         self.distance_in = 1.15 * self.scene_radius_in / (self.fov_y_rad / 2.0).sin();
     }
 
+    /// Aims at the box `min..max` from the current direction and comes
+    /// close enough for it to fill the view.
+    pub fn focus(&mut self, min: DVec3, max: DVec3) {
+        let radius = ((max - min).length() / 2.0).max(1.0);
+        self.target = (min + max) / 2.0;
+        self.distance_in = (1.15 * radius / (self.fov_y_rad / 2.0).sin())
+            .clamp(MIN_DISTANCE_RADII * self.scene_radius_in, MAX_DISTANCE_RADII * self.scene_radius_in);
+    }
+
     /// Unit vector from the target towards the eye.
     fn backward(&self) -> DVec3 {
         let (sin_el, cos_el) = self.elevation_rad.sin_cos();
@@ -131,6 +140,21 @@ impl OrbitCamera {
         let distance = self.distance_in * (-scroll_px * 0.002).exp();
         self.distance_in = distance
             .clamp(MIN_DISTANCE_RADII * self.scene_radius_in, MAX_DISTANCE_RADII * self.scene_radius_in);
+    }
+
+    /// Where `point` shows in a view of `size_px`, from its top-left;
+    /// `None` when it lies behind the eye.
+    pub fn project(&self, point: DVec3, size_px: DVec2) -> Option<DVec2> {
+        let relative = point - self.eye();
+        let depth = relative.dot(-self.backward());
+        if depth <= 0.0 {
+            return None;
+        }
+        let half_height = (self.fov_y_rad / 2.0).tan();
+        let aspect = size_px.x / size_px.y.max(1.0);
+        let ndc_x = relative.dot(self.right()) / (depth * half_height * aspect);
+        let ndc_y = relative.dot(self.up()) / (depth * half_height);
+        Some(DVec2::new((ndc_x + 1.0) / 2.0 * size_px.x, (1.0 - ndc_y) / 2.0 * size_px.y))
     }
 
     /// The ray through `pixel` (from the top-left of a view of `size_px`).
@@ -187,6 +211,36 @@ mod tests {
         let top = cam.ray(DVec2::new(400.0, 0.0), size);
         let angle = top.direction.dot(ray.direction).acos();
         assert_abs_diff_eq!(angle, cam.fov_y_rad / 2.0, epsilon = 1e-9);
+    }
+
+    #[test]
+    fn projecting_a_point_on_a_pixel_ray_gives_that_pixel_back() {
+        let cam = camera(ViewPreset::Corner);
+        let size = DVec2::new(800.0, 600.0);
+        for pixel in [DVec2::new(10.0, 20.0), DVec2::new(400.0, 300.0), DVec2::new(790.0, 555.0)] {
+            let ray = cam.ray(pixel, size);
+            let back = cam.project(ray.origin + ray.direction * 500.0, size).unwrap();
+            assert_abs_diff_eq!(back.x, pixel.x, epsilon = 1e-9);
+            assert_abs_diff_eq!(back.y, pixel.y, epsilon = 1e-9);
+        }
+        // Behind the eye there is nothing to show.
+        assert_eq!(cam.project(cam.eye() + (cam.eye() - cam.target), size), None);
+    }
+
+    #[test]
+    fn focus_brings_a_small_box_to_the_middle_of_the_view() {
+        let mut cam = camera(ViewPreset::Corner);
+        let (min, max) = (DVec3::new(100.0, 10.0, 96.0), DVec3::new(110.0, 12.0, 104.0));
+        cam.focus(min, max);
+        let size = DVec2::new(800.0, 600.0);
+        let centre = cam.project((min + max) / 2.0, size).unwrap();
+        assert_abs_diff_eq!(centre.x, 400.0, epsilon = 1e-9);
+        assert_abs_diff_eq!(centre.y, 300.0, epsilon = 1e-9);
+        // Every corner of the box stays inside the view.
+        for corner in [min, max, DVec3::new(min.x, max.y, min.z), DVec3::new(max.x, min.y, max.z)] {
+            let at = cam.project(corner, size).unwrap();
+            assert!(at.x > 0.0 && at.x < 800.0 && at.y > 0.0 && at.y < 600.0, "{at:?} outside the view");
+        }
     }
 
     #[test]

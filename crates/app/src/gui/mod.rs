@@ -9,6 +9,7 @@
 
 mod app;
 mod camera;
+mod palette;
 mod pick;
 mod picture;
 mod scene;
@@ -77,6 +78,10 @@ impl ViewPreset {
     }
 }
 
+/// Environment variable naming a member label to pick when the window
+/// opens, as if it had been clicked.
+pub const PICK_VARIABLE: &str = "PITCHFRAME_PICK";
+
 /// The start of the message shown when no OpenGL context can be made.
 const NO_GL_MESSAGE: &str = "Pitchframe needs OpenGL 3.3 or software OpenGL (Mesa llvmpipe); \
                              could not create a GL context";
@@ -108,6 +113,9 @@ pub fn run(options: GuiOptions) -> anyhow::Result<()> {
     let gl_failure: Arc<Mutex<Option<String>>> = Arc::default();
     let gl_failure_in_creator = Arc::clone(&gl_failure);
     let view = options.view;
+    // Tests pick a member by label this way, since a click needs a person
+    // (or a pointer robot) at the right place on the screen.
+    let pick_label = std::env::var(PICK_VARIABLE).ok().filter(|label| !label.is_empty());
     let result = eframe::run_native(
         "Pitchframe",
         native_options,
@@ -117,7 +125,7 @@ pub fn run(options: GuiOptions) -> anyhow::Result<()> {
                 record(&gl_failure_in_creator, reason.clone());
                 return Err(reason.into());
             };
-            match PitchframeApp::new(gl, document, view, picture) {
+            match PitchframeApp::new(gl, document, view, picture, pick_label.as_deref()) {
                 Ok(app) => Ok(Box::new(app)),
                 Err(err) => {
                     record(&gl_failure_in_creator, format!("{err:#}"));

@@ -6,26 +6,26 @@ use glam::DVec3;
 use super::camera::Ray;
 use super::scene::{Scene, Triangles};
 
-/// Where a ray first meets the scene.
+/// Where a ray first meets a framing piece.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Hit {
-    /// Index of the part hit, in [`Scene::parts`].
-    pub part: usize,
-    /// Index of the triangle hit within that part.
+    /// Index of the piece hit, in [`Scene::pieces`].
+    pub piece: usize,
+    /// Index of the triangle hit within that piece.
     pub triangle: usize,
     /// Distance from the ray's origin, in inches.
     pub distance_in: f64,
 }
 
-/// The nearest part the ray meets, if any.
+/// The nearest framing piece the ray meets, if any.
 pub fn pick(scene: &Scene, ray: &Ray) -> Option<Hit> {
     scene
-        .parts
+        .pieces
         .iter()
         .enumerate()
-        .filter_map(|(part, scene_part)| {
-            nearest_triangle(&scene_part.triangles, ray).map(|(triangle, distance_in)| Hit {
-                part,
+        .filter_map(|(piece, scene_piece)| {
+            nearest_triangle(&scene_piece.triangles, ray).map(|(triangle, distance_in)| Hit {
+                piece,
                 triangle,
                 distance_in,
             })
@@ -92,14 +92,49 @@ mod tests {
         assert_eq!(ray_triangle(&up, a, b, c), None);
     }
 
+    /// A scene holding two level boxes, one above the other, as pieces.
+    fn two_boxes() -> Scene {
+        use pitchframe_geometry::MemberKind;
+        use pitchframe_geometry::framing::FaceTag;
+
+        use super::super::scene::ScenePiece;
+        let boxed = |label: &str, z: f64| {
+            let mut triangles = Triangles::default();
+            let (lo, hi) = (DVec3::new(0.0, 0.0, z), DVec3::new(10.0, 1.5, z + 5.5));
+            triangles.corners = [
+                [lo, DVec3::new(hi.x, lo.y, lo.z), DVec3::new(hi.x, hi.y, lo.z)],
+                [DVec3::new(lo.x, lo.y, hi.z), DVec3::new(hi.x, lo.y, hi.z), hi],
+                [DVec3::new(lo.x, lo.y, hi.z), hi, DVec3::new(lo.x, hi.y, hi.z)],
+            ]
+            .concat();
+            triangles.normals = vec![DVec3::NEG_Z, DVec3::Z, DVec3::Z];
+            ScenePiece {
+                label: label.to_owned(),
+                kind: MemberKind::Common,
+                triangles,
+                face_tags: vec![FaceTag::Bottom, FaceTag::Top, FaceTag::Top],
+                label_at: hi,
+            }
+        };
+        Scene {
+            parts: Vec::new(),
+            roof_error: None,
+            frame: None,
+            frame_error: None,
+            pieces: vec![boxed("LOW", 0.0), boxed("HIGH", 20.0)],
+            min: DVec3::ZERO,
+            max: DVec3::ONE,
+        }
+    }
+
     #[test]
-    fn pick_finds_the_wall_top_under_a_ray_from_above() {
-        use super::super::scene::{DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN, temporary_demo_outline};
-        let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
-        // 3 in inside the front wall's outside face: on the wall's top.
-        let hit = pick(&scene, &down_from(100.0, 3.0)).unwrap();
-        assert_abs_diff_eq!(hit.distance_in, 100.0 - DEMO_WALL_HEIGHT_IN, epsilon = 1e-9);
-        // The middle of the main room holds no wall.
-        assert_eq!(pick(&scene, &down_from(240.0, 144.0)), None);
+    fn pick_takes_the_nearest_piece_along_the_ray() {
+        let scene = two_boxes();
+        let hit = pick(&scene, &down_from(5.0, 0.5)).unwrap();
+        assert_eq!(scene.pieces[hit.piece].label, "HIGH");
+        // Derivation: the upper box's top is at z = 25.5, the ray starts at 100.
+        assert_abs_diff_eq!(hit.distance_in, 74.5, epsilon = 1e-9);
+        // Beside both boxes there is nothing to pick.
+        assert_eq!(pick(&scene, &down_from(20.0, 0.5)), None);
     }
 }

@@ -3,7 +3,10 @@
 //! here; the viewport converts to f32 when it uploads.
 
 use glam::{DVec2, DVec3};
-use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof};
+use pitchframe_geometry::framing::{FaceTag, PlacedPiece};
+use pitchframe_geometry::{
+    Frame, FramingSettings, MemberKind, Outline, Roof, RoofLineKind, Wall, WallRoof, frame_roof,
+};
 
 use super::triangulate::{newell_normal, triangulate};
 
@@ -22,6 +25,29 @@ pub enum PartKind {
     Gables,
     /// The ridges, hips or valleys, as thin bars.
     RoofLines(RoofLineKind),
+    /// Every framing piece of one kind.
+    Members(MemberKind),
+}
+
+/// One framing piece where it sits, ready to draw and pick.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ScenePiece {
+    /// The member's label ("C1").
+    pub label: String,
+    /// What the member is.
+    pub kind: MemberKind,
+    /// The piece's faces as triangles.
+    pub triangles: Triangles,
+    /// For each triangle, what made the face it belongs to.
+    pub face_tags: Vec<FaceTag>,
+    /// Where its label goes: the middle of its top edge, in inches.
+    pub label_at: DVec3,
+}
+
+/// Whether a face was made by a saw cut (rather than being a face of the
+/// board as it came from the yard).
+pub fn is_cut_face(tag: FaceTag) -> bool {
+    !matches!(tag, FaceTag::Side | FaceTag::Top | FaceTag::Bottom | FaceTag::Interior)
 }
 
 /// Flat-shaded triangles: three corners per triangle and one normal each.
@@ -66,6 +92,13 @@ impl Triangles {
         self.normals.extend_from_slice(&[normal, normal]);
     }
 
+    /// The box round every corner, `None` when there are none.
+    pub fn bounds(&self) -> Option<(DVec3, DVec3)> {
+        let mut corners = self.corners.iter().copied();
+        let first = corners.next()?;
+        Some(corners.fold((first, first), |(min, max), p| (min.min(p), max.max(p))))
+    }
+
     /// Number of triangles.
     pub fn len(&self) -> usize {
         self.normals.len()
@@ -88,6 +121,12 @@ pub struct Scene {
     pub parts: Vec<ScenePart>,
     /// Why the roof could not be drawn, in the user's words.
     pub roof_error: Option<String>,
+    /// The framed roof, when it could be framed.
+    pub frame: Option<Frame>,
+    /// Why the roof could not be framed, in the user's words.
+    pub frame_error: Option<String>,
+    /// Every framing piece, in the frame's order.
+    pub pieces: Vec<ScenePiece>,
     /// Lowest corner of the box holding every part.
     pub min: DVec3,
     /// Highest corner of that box.
@@ -103,16 +142,67 @@ impl Scene {
         // Roof heights are measured from the wall line at the top of the
         // plate, which stands at the wall height.
         let lift = DVec3::Z * wall_height_in;
-        let roof_error = match Roof::solve(outline) {
+        let (mut roof_error, mut frame, mut frame_error) = (None, None, None);
+        match Roof::solve(outline) {
             Ok(roof) => {
                 parts.extend(roof_parts(&roof, lift));
-                None
+                match frame_roof(outline, &roof, &FramingSettings::default()) {
+                    Ok(framed) => frame = Some(framed),
+                    Err(err) => frame_error = Some(err.to_string()),
+                }
             }
-            Err(err) => Some(err.to_string()),
-        };
+            Err(err) => roof_error = Some(err.to_string()),
+        }
+        let pieces: Vec<ScenePiece> =
+            frame.iter().flat_map(|frame| &frame.pieces).map(|piece| scene_piece(piece, lift)).collect();
+        parts.extend(member_parts(&pieces));
         let (min, max) = bounds(&parts);
-        Self { parts, roof_error, min, max }
+        Self { parts, roof_error, frame, frame_error, pieces, min, max }
     }
+}
+
+/// A piece's solid as tagged triangles, raised by `lift`.
+fn scene_piece(piece: &PlacedPiece, lift: DVec3) -> ScenePiece {
+    let mut triangles = Triangles::default();
+    let mut face_tags = Vec::new();
+    // Faces between a piece's convex parts lie inside it: nothing to see.
+    for face in piece.solid.faces().filter(|face| face.tag != FaceTag::Interior) {
+        let points: Vec<DVec3> = face.vertices.iter().map(|&p| p + lift).collect();
+        let before = triangles.len();
+        triangles.push_polygon(&points);
+        face_tags.extend(std::iter::repeat_n(face.tag, triangles.len() - before));
+    }
+    let [low, high] = piece.axis;
+    ScenePiece {
+        label: piece.label.clone(),
+        kind: piece.kind,
+        triangles,
+        face_tags,
+        label_at: (low + high) / 2.0 + lift,
+    }
+}
+
+/// One drawable group per member kind, holding every piece of that kind.
+fn member_parts(pieces: &[ScenePiece]) -> Vec<ScenePart> {
+    let mut parts: Vec<ScenePart> = Vec::new();
+    for piece in pieces {
+        let part = match parts.iter_mut().position(|part| part.kind == PartKind::Members(piece.kind)) {
+            Some(index) => &mut parts[index],
+            None => {
+                parts
+                    .push(ScenePart { kind: PartKind::Members(piece.kind), triangles: Triangles::default() });
+                let last = parts.len() - 1;
+                &mut parts[last]
+            }
+        };
+        part.triangles.corners.extend_from_slice(&piece.triangles.corners);
+        part.triangles.normals.extend_from_slice(&piece.triangles.normals);
+    }
+    parts.sort_by_key(|part| match part.kind {
+        PartKind::Members(kind) => Some(kind),
+        _ => None,
+    });
+    parts
 }
 
 /// The roof's planes, gables and lines, raised by `lift`.
@@ -262,10 +352,12 @@ mod tests {
     #[test]
     fn demo_walls_fill_the_plan_and_stand_eight_feet() {
         let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
+        let (min, max) = scene.parts[0].triangles.bounds().unwrap();
+        assert_eq!(scene.parts[0].kind, PartKind::Walls);
         // Derivation: the L spans 40 ft by 38 ft (24 + 14) in plan.
-        assert_abs_diff_eq!(scene.max.x - scene.min.x, 480.0, epsilon = 1e-9);
-        assert_abs_diff_eq!(scene.max.y - scene.min.y, 456.0, epsilon = 1e-9);
-        assert_abs_diff_eq!(scene.max.z, 96.0, epsilon = 1e-9);
+        assert_abs_diff_eq!(max.x - min.x, 480.0, epsilon = 1e-9);
+        assert_abs_diff_eq!(max.y - min.y, 456.0, epsilon = 1e-9);
+        assert_abs_diff_eq!(max.z, 96.0, epsilon = 1e-9);
         // Six walls, three quads each, two triangles per quad.
         assert_eq!(scene.parts[0].triangles.len(), 6 * 3 * 2);
     }

@@ -1,35 +1,130 @@
 //! The side panel: the numbers a framer reads for the document's pitch,
-//! and what is picked in the 3D view.
+//! the picked member's lengths and cuts, and the colour legend.
 
-use egui::RichText;
-use pitchframe_geometry::{Length, LengthStyle, RafterTable, RoofLineKind};
+use egui::{Color32, RichText};
+use pitchframe_geometry::framing::{Cut, CutEnd};
+use pitchframe_geometry::{Length, LengthStyle, Member, RafterTable};
 
 use super::app::Document;
-use super::scene::{PartKind, Scene, ScenePart};
+use super::palette;
+use super::scene::{Scene, ScenePiece};
 
 /// Size of the figures a framer reads off the panel, in points: large
 /// enough to read at arm's length from a laptop on a sawhorse.
 const FIGURE_SIZE: f32 = 22.0;
 
-/// Shows the pitch, the six rafter-table lines for it, and the pick.
-pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, selected: Option<&ScenePart>) {
-    ui.heading("Demo house");
-    ui.label(format!(
-        "Walls {} high, {} thick",
-        length_text(document.wall_height_in),
-        length_text(document.wall_thickness_in)
-    ));
-    if let Some(error) = &scene.roof_error {
-        ui.colored_label(ui.visuals().warn_fg_color, format!("No roof drawn: {error}"));
-    }
-    ui.separator();
-    rafter_table_ui(ui, &RafterTable::for_pitch(document.pitch));
-    ui.separator();
-    ui.heading("Picked");
-    match selected {
-        Some(part) => ui.label(RichText::new(part_name(part.kind)).size(FIGURE_SIZE)),
-        None => ui.label("Click a part in the 3D view."),
+/// Shows the house, the picked member, the rafter table and the legend.
+pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, picked: Option<&ScenePiece>) {
+    egui::ScrollArea::vertical().show(ui, |ui| {
+        ui.heading("Demo house");
+        ui.label(format!(
+            "Walls {} high, {} thick",
+            length_text(document.wall_height_in),
+            length_text(document.wall_thickness_in)
+        ));
+        for error in [&scene.roof_error, &scene.frame_error].into_iter().flatten() {
+            ui.colored_label(ui.visuals().warn_fg_color, error);
+        }
+        ui.separator();
+        match picked {
+            Some(piece) => {
+                let member = scene
+                    .frame
+                    .as_ref()
+                    .and_then(|frame| frame.members.iter().find(|m| m.label == piece.label));
+                picked_ui(ui, piece, member);
+            }
+            None => {
+                ui.heading("Picked member");
+                ui.label("Click a member in the 3D view to see its lengths and cuts.");
+            }
+        }
+        ui.separator();
+        rafter_table_ui(ui, &RafterTable::for_pitch(document.pitch));
+        ui.separator();
+        legend_ui(ui, scene);
+    });
+}
+
+/// The picked member's numbers in large type.
+fn picked_ui(ui: &mut egui::Ui, piece: &ScenePiece, member: Option<&Member>) {
+    ui.label(
+        RichText::new(format!("{}  {}", piece.label, palette::member_name(piece.kind)))
+            .size(FIGURE_SIZE)
+            .strong(),
+    );
+    let Some(member) = member else {
+        ui.label("This member's numbers are not in the frame.");
+        return;
     };
+    ui.label(format!(
+        "Cut {} from {} x {} stock",
+        member.count,
+        inches_text(member.size.thickness_in),
+        inches_text(member.size.depth_in)
+    ));
+    let lengths = [
+        ("Long point length", member.long_point_length),
+        ("Short point length", member.short_point_length),
+        ("Seat to top cut", member.seat_to_top_cut),
+        ("Tail", member.tail_length),
+        ("Overall (stock) length", member.overall_length),
+    ];
+    for (name, inches) in lengths.into_iter().filter(|&(_, inches)| inches > 0.0) {
+        ui.label(name);
+        ui.label(RichText::new(length_text(inches)).size(FIGURE_SIZE).strong());
+    }
+    ui.add_space(4.0);
+    ui.label(RichText::new("Cuts").strong());
+    for cut in &member.cuts {
+        ui.label(cut_text(cut));
+    }
+}
+
+/// One line saying where a cut is and how it is set up.
+fn cut_text(cut: &Cut) -> String {
+    let at = end_name(cut.end());
+    match cut {
+        Cut::Plumb { square, .. } => {
+            format!("Plumb cut at the {at}: square {} and {}", figure(square[0]), figure(square[1]))
+        }
+        Cut::Cheek { square, face_bevel_deg, .. } => format!(
+            "Cheek cut at the {at}: {} and {} across the top edge; saw on the face, bevel {face_bevel_deg:.1}°",
+            figure(square[0]),
+            figure(square[1])
+        ),
+        Cut::DoubleCheek { left, right, .. } => format!(
+            "Double cheek at the {at}: saw on the face, bevel {:.1}° left, {:.1}° right",
+            left.face_bevel_deg, right.face_bevel_deg
+        ),
+        Cut::Seat { seat_width_in, heel_height_in, notch_depth_in, .. } => format!(
+            "Birdsmouth: seat {}, heel {}, notch {} deep",
+            inches_text(*seat_width_in),
+            inches_text(*heel_height_in),
+            inches_text(*notch_depth_in)
+        ),
+        Cut::Tail { square, .. } => {
+            format!("Tail cut: square {} and {}", figure(square[0]), figure(square[1]))
+        }
+        Cut::Soffit { length_in, .. } => format!("Soffit cut, level, {} long", inches_text(*length_in)),
+        Cut::Backing { left_deg, right_deg, .. } => {
+            format!("Backing: {left_deg:.1}° left, {right_deg:.1}° right")
+        }
+        Cut::SquareEnd { .. } => format!("Square cut at the {at}"),
+    }
+}
+
+/// Where on a member a cut is, in words.
+fn end_name(end: CutEnd) -> &'static str {
+    match end {
+        CutEnd::Top => "top",
+        CutEnd::Bottom => "bottom",
+        CutEnd::Seat => "seat",
+        CutEnd::Tail => "tail",
+        CutEnd::Start => "start",
+        CutEnd::End => "far end",
+        CutEnd::FullLength => "full length",
+    }
 }
 
 /// The six lines of the rafter table, each with its setup on hover.
@@ -38,12 +133,12 @@ fn rafter_table_ui(ui: &mut egui::Ui, table: &RafterTable) {
     let lines: [(&str, String, &str); 6] = [
         (
             "Common, length per foot of run",
-            format!("{:.2}", table.common_per_foot),
+            figure(table.common_per_foot),
             "inches of rafter per 12 in of run, along the top edge",
         ),
         (
             "Hip or valley, length per foot of run",
-            format!("{:.2}", table.hip_per_foot),
+            figure(table.hip_per_foot),
             "inches of hip or valley per 12 in of common run",
         ),
         (
@@ -56,38 +151,34 @@ fn rafter_table_ui(ui: &mut egui::Ui, table: &RafterTable) {
             inches_text(table.jack_diff_24),
             "each jack is this much shorter",
         ),
-        (
-            "Side cut of jacks: 12 and",
-            format!("{:.2}", table.jack_side_cut.figure),
-            &table.jack_side_cut.setup,
-        ),
-        (
-            "Side cut of hip or valley: 12 and",
-            format!("{:.2}", table.hip_side_cut.figure),
-            &table.hip_side_cut.setup,
-        ),
+        ("Side cut of jacks: 12 and", figure(table.jack_side_cut.figure), &table.jack_side_cut.setup),
+        ("Side cut of hip or valley: 12 and", figure(table.hip_side_cut.figure), &table.hip_side_cut.setup),
     ];
-    egui::Grid::new("rafter_table").num_columns(1).show(ui, |ui| {
-        for (name, figure, setup) in lines {
-            ui.vertical(|ui| {
-                ui.label(name);
-                ui.label(RichText::new(figure).size(FIGURE_SIZE).strong()).on_hover_text(setup);
-            });
-            ui.end_row();
-        }
-    });
+    for (name, value, setup) in lines {
+        ui.label(name);
+        ui.label(RichText::new(value).size(FIGURE_SIZE).strong()).on_hover_text(setup);
+    }
 }
 
-/// The part's name in the trade's words.
-fn part_name(kind: PartKind) -> &'static str {
-    match kind {
-        PartKind::Walls => "Wall",
-        PartKind::Gables => "Gable end",
-        PartKind::RoofPlanes => "Roof plane",
-        PartKind::RoofLines(RoofLineKind::Ridge) => "Ridge line",
-        PartKind::RoofLines(RoofLineKind::Hip) => "Hip line",
-        PartKind::RoofLines(RoofLineKind::Valley) => "Valley line",
+/// What each colour in the 3D view means.
+fn legend_ui(ui: &mut egui::Ui, scene: &Scene) {
+    ui.heading("Colours");
+    let present = |kind| scene.pieces.iter().any(|piece| piece.kind == kind);
+    for kind in palette::MEMBER_KINDS.into_iter().filter(|&kind| present(kind)) {
+        swatch(ui, palette::member(kind), palette::member_name(kind));
     }
+    swatch(ui, palette::HIGHLIGHT, "Picked member");
+    for tag in palette::CUT_TAGS {
+        swatch(ui, palette::cut(tag), palette::cut_name(tag));
+    }
+}
+
+fn swatch(ui: &mut egui::Ui, [r, g, b]: [u8; 3], name: &str) {
+    ui.horizontal(|ui| {
+        let (rect, _) = ui.allocate_exact_size(egui::vec2(14.0, 14.0), egui::Sense::hover());
+        ui.painter().rect_filled(rect, 2.0, Color32::from_rgb(r, g, b));
+        ui.label(name);
+    });
 }
 
 /// A length as a framer reads it: feet, inches and sixteenths.
@@ -98,6 +189,11 @@ fn length_text(inches: f64) -> String {
 /// A length in inches and sixteenths, as rafter tables print jack differences.
 fn inches_text(inches: f64) -> String {
     Length::from_inches(inches).format(LengthStyle::Inches)
+}
+
+/// A framing-square figure, to two places as squares are read.
+fn figure(value: f64) -> String {
+    format!("{value:.2}")
 }
 
 /// A number to two places with trailing zeros dropped.

@@ -3,42 +3,30 @@
 //! GL resources live in [`Renderer`], made once with the window's GL
 //! context and shared with the paint callback through a mutex. The
 //! document never holds GL objects; the renderer re-uploads meshes only
-//! when it is handed a scene it has not seen.
+//! when it is handed a scene (or a pick) it has not seen.
 
 use std::sync::{Arc, Mutex};
 
 use egui::{PointerButton, Sense};
 use glam::{DVec2, DVec3};
 use three_d::{
-    AmbientLight, Camera, ClearState, Context, CpuMaterial, CpuMesh, DirectionalLight, Gm, Indices, Mesh,
-    PhysicalMaterial, Positions, RenderTarget, ScissorBox, Srgba, Vec3, Viewport, degrees,
+    AmbientLight, Camera, ClearState, ColorMaterial, Context, CpuMaterial, CpuMesh, DirectionalLight, Gm,
+    Indices, Mesh, Object, PhysicalMaterial, Positions, RenderTarget, ScissorBox, Srgba, Vec3, Viewport,
+    degrees,
 };
 
 use super::camera::OrbitCamera;
-use pitchframe_geometry::RoofLineKind;
-
-use super::scene::{PartKind, Scene};
-
-/// The 3D view's background, as 8-bit sRGB (a pale blue-grey sky that no
-/// lit wall colour comes near).
-pub const BACKGROUND_RGB: [u8; 3] = [206, 218, 232];
-
-/// The colour a part is drawn in before lighting, as 8-bit sRGB.
-pub fn part_rgb(kind: PartKind) -> [u8; 3] {
-    match kind {
-        // Warm tan: plainly "building" and far from the sky colour.
-        PartKind::Walls | PartKind::Gables => [214, 178, 128],
-        // A dark clay red, so the roof stands apart from walls and sky.
-        PartKind::RoofPlanes => [150, 84, 66],
-        PartKind::RoofLines(RoofLineKind::Ridge) => [200, 40, 40],
-        PartKind::RoofLines(RoofLineKind::Hip) => [30, 110, 200],
-        PartKind::RoofLines(RoofLineKind::Valley) => [40, 160, 70],
-    }
-}
+use super::palette;
+use super::scene::{PartKind, Scene, ScenePiece, Triangles, is_cut_face};
 
 /// Opacity of the roof planes in the framing view: enough to see the
 /// planes' shape, little enough to see the frame through them.
 const FRAMING_VIEW_ROOF_ALPHA: u8 = 60;
+
+/// How far the picked piece's overlay stands off its faces, in inches:
+/// enough to win the depth test over the piece itself at any zoom the
+/// camera allows, far too little to see.
+const OVERLAY_STANDOFF_IN: f64 = 0.05;
 
 /// How the scene is shown this frame.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
@@ -71,18 +59,34 @@ struct Model {
     gm: Gm<Mesh, PhysicalMaterial>,
 }
 
+/// The picked piece drawn over itself: a lit highlight for its board
+/// faces and an unlit colour per cut kind for its cut faces.
+struct Highlight {
+    /// Which scene and piece this was built for.
+    scene: Arc<Scene>,
+    piece: usize,
+    body: Option<Gm<Mesh, PhysicalMaterial>>,
+    cuts: Vec<Gm<Mesh, ColorMaterial>>,
+}
+
 /// GL-side state for the 3D view, created once per window.
 pub struct Renderer {
     context: Context,
     /// The scene the uploaded meshes came from, to spot a new one.
     uploaded: Option<Arc<Scene>>,
     models: Vec<Model>,
+    highlight: Option<Highlight>,
 }
 
 impl Renderer {
     /// Wraps the window's GL context.
     pub fn new(gl: Arc<three_d::context::Context>) -> Result<Self, three_d::CoreError> {
-        Ok(Self { context: Context::from_gl_context(gl)?, uploaded: None, models: Vec::new() })
+        Ok(Self {
+            context: Context::from_gl_context(gl)?,
+            uploaded: None,
+            models: Vec::new(),
+            highlight: None,
+        })
     }
 
     /// Uploads the scene's meshes unless they are already on the GPU.
@@ -93,20 +97,30 @@ impl Renderer {
         self.models.clear();
         for part in scene.parts.iter().filter(|part| part.triangles.len() > 0) {
             let cpu = cpu_mesh(&part.triangles);
-            let rgb = part_rgb(part.kind);
-            match part.kind {
+            let rgb = palette::part(part.kind);
+            let (alpha, shown_in) = match part.kind {
                 PartKind::RoofPlanes => {
-                    self.add_model(&cpu, rgb, 255, ShownIn::ClientView);
-                    self.add_model(&cpu, rgb, FRAMING_VIEW_ROOF_ALPHA, ShownIn::FramingView);
+                    self.models.push(self.lit_model(
+                        &cpu,
+                        rgb,
+                        FRAMING_VIEW_ROOF_ALPHA,
+                        ShownIn::FramingView,
+                    ));
+                    (255, ShownIn::ClientView)
                 }
-                PartKind::RoofLines(_) => self.add_model(&cpu, rgb, 255, ShownIn::FramingView),
-                PartKind::Walls | PartKind::Gables => self.add_model(&cpu, rgb, 255, ShownIn::Both),
-            }
+                PartKind::RoofLines(_) | PartKind::Members(_) => (255, ShownIn::FramingView),
+                PartKind::Walls | PartKind::Gables => (255, ShownIn::Both),
+            };
+            self.models.push(self.lit_model(&cpu, rgb, alpha, shown_in));
         }
         self.uploaded = Some(Arc::clone(scene));
     }
 
-    fn add_model(&mut self, cpu: &CpuMesh, [r, g, b]: [u8; 3], alpha: u8, shown_in: ShownIn) {
+    fn lit_model(&self, cpu: &CpuMesh, rgb: [u8; 3], alpha: u8, shown_in: ShownIn) -> Model {
+        Model { shown_in, gm: Gm::new(Mesh::new(&self.context, cpu), self.lit_material(rgb, alpha)) }
+    }
+
+    fn lit_material(&self, [r, g, b]: [u8; 3], alpha: u8) -> PhysicalMaterial {
         let description = CpuMaterial {
             albedo: Srgba::new(r, g, b, alpha),
             // Fully rough, not metal: plain diffuse shading, which reads
@@ -115,25 +129,54 @@ impl Renderer {
             metallic: 0.0,
             ..Default::default()
         };
-        let material = if alpha == 255 {
+        if alpha == 255 {
             PhysicalMaterial::new_opaque(&self.context, &description)
         } else {
             PhysicalMaterial::new_transparent(&self.context, &description)
-        };
-        let gm = Gm::new(Mesh::new(&self.context, cpu), material);
-        self.models.push(Model { shown_in, gm });
+        }
+    }
+
+    /// Builds the overlay for the picked piece unless it is already built.
+    fn update_highlight(&mut self, scene: &Arc<Scene>, picked: Option<usize>) {
+        let current = self.highlight.as_ref().map(|h| (Arc::as_ptr(&h.scene), h.piece));
+        let wanted = picked.map(|piece| (Arc::as_ptr(scene), piece));
+        if current == wanted {
+            return;
+        }
+        self.highlight = picked.and_then(|index| scene.pieces.get(index).map(|piece| (index, piece))).map(
+            |(index, piece)| {
+                let body = overlay_triangles(piece, |tag| !is_cut_face(tag));
+                let body = (body.len() > 0).then(|| {
+                    let mut material = self.lit_material(palette::HIGHLIGHT, 255);
+                    // Glow a little so the pick stands out even in shadow.
+                    let [r, g, b] = palette::HIGHLIGHT.map(|c| c / 3);
+                    material.emissive = Srgba::new(r, g, b, 255);
+                    Gm::new(Mesh::new(&self.context, &cpu_mesh(&body)), material)
+                });
+                let cuts = palette::CUT_TAGS
+                    .iter()
+                    .filter_map(|&tag| {
+                        let faces = overlay_triangles(piece, |face_tag| face_tag == tag);
+                        (faces.len() > 0).then(|| {
+                            let [r, g, b] = palette::cut(tag);
+                            let material = ColorMaterial {
+                                color: Srgba::new(r, g, b, 255),
+                                ..ColorMaterial::new_opaque(&self.context, &CpuMaterial::default())
+                            };
+                            Gm::new(Mesh::new(&self.context, &cpu_mesh(&faces)), material)
+                        })
+                    })
+                    .collect();
+                Highlight { scene: Arc::clone(scene), piece: index, body, cuts }
+            },
+        );
     }
 
     /// Draws the scene into the part of the window egui gave the view.
-    fn paint(
-        &mut self,
-        info: &egui::PaintCallbackInfo,
-        painter: &egui_glow::Painter,
-        scene: &Arc<Scene>,
-        camera: &OrbitCamera,
-        style: ViewStyle,
-    ) {
-        self.upload(scene);
+    fn paint(&mut self, info: &egui::PaintCallbackInfo, painter: &egui_glow::Painter, frame: &FrameInput) {
+        self.upload(&frame.scene);
+        let picked = if frame.style.client_view { None } else { frame.picked };
+        self.update_highlight(&frame.scene, picked);
         let [screen_w, screen_h] = info.screen_size_px;
         let target = match painter.intermediate_fbo() {
             Some(fbo) => RenderTarget::from_framebuffer(&self.context, screen_w, screen_h, fbo),
@@ -153,6 +196,7 @@ impl Renderer {
             width: px(clip_px.width_px),
             height: px(clip_px.height_px),
         };
+        let camera = &frame.camera;
         let (near, far) = camera.clip_range_in();
         let three_d_camera = Camera::new_perspective(
             viewport,
@@ -168,17 +212,47 @@ impl Renderer {
         let light_dir = vec3(-camera.right() * 0.5 - camera.up() * 0.3 - DVec3::Z * 0.8);
         let sun = DirectionalLight::new(&self.context, 2.2, Srgba::WHITE, light_dir);
         let sky = AmbientLight::new(&self.context, 0.45, Srgba::WHITE);
-        let [r, g, b] = BACKGROUND_RGB.map(|c| f32::from(c) / 255.0);
+        let [r, g, b] = palette::BACKGROUND.map(|c| f32::from(c) / 255.0);
+
+        let style = frame.style;
+        let mut objects: Vec<&dyn Object> = self
+            .models
+            .iter()
+            .filter(|model| model.shown_in.includes(style))
+            .map(|model| &model.gm as &dyn Object)
+            .collect();
+        if let Some(highlight) = &self.highlight {
+            objects.extend(highlight.body.iter().map(|gm| gm as &dyn Object));
+            objects.extend(highlight.cuts.iter().map(|gm| gm as &dyn Object));
+        }
         target.clear_partially(scissor, ClearState::color_and_depth(r, g, b, 1.0, 1.0)).render_partially(
             scissor,
             &three_d_camera,
-            self.models.iter().filter(|model| model.shown_in.includes(style)).map(|model| &model.gm),
+            objects,
             &[&sun, &sky],
         );
         // The framebuffer belongs to egui: hand it back rather than let the
         // render target delete it.
         let _egui_framebuffer = target.into_framebuffer();
     }
+}
+
+/// The piece's triangles whose face tag passes `keep`, stood off their
+/// faces so they draw over the piece.
+fn overlay_triangles(
+    piece: &ScenePiece,
+    keep: impl Fn(pitchframe_geometry::framing::FaceTag) -> bool,
+) -> Triangles {
+    let mut out = Triangles::default();
+    let source = &piece.triangles;
+    for ((corners, normal), tag) in source.corners.chunks_exact(3).zip(&source.normals).zip(&piece.face_tags)
+    {
+        if keep(*tag) {
+            out.corners.extend(corners.iter().map(|&p| p + *normal * OVERLAY_STANDOFF_IN));
+            out.normals.push(*normal);
+        }
+    }
+    out
 }
 
 /// A pixel count from egui (never negative for a visible rect).
@@ -191,7 +265,7 @@ fn vec3(v: DVec3) -> Vec3 {
     Vec3::new(v.x as f32, v.y as f32, v.z as f32)
 }
 
-fn cpu_mesh(triangles: &super::scene::Triangles) -> CpuMesh {
+fn cpu_mesh(triangles: &Triangles) -> CpuMesh {
     let positions = triangles.corners.iter().map(|&p| vec3(p)).collect();
     let normals = triangles.normals.iter().flat_map(|&n| [vec3(n); 3]).collect();
     CpuMesh {
@@ -200,6 +274,14 @@ fn cpu_mesh(triangles: &super::scene::Triangles) -> CpuMesh {
         normals: Some(normals),
         ..Default::default()
     }
+}
+
+/// Everything one draw needs, handed to the paint callback.
+struct FrameInput {
+    scene: Arc<Scene>,
+    camera: OrbitCamera,
+    style: ViewStyle,
+    picked: Option<usize>,
 }
 
 /// What the user did in the 3D view this frame.
@@ -212,13 +294,14 @@ pub struct ViewportInput {
 }
 
 /// Shows the 3D view filling `ui`, moves the camera by mouse input, and
-/// queues the draw.
+/// queues the draw; `picked` is the piece to highlight.
 pub fn viewport_ui(
     ui: &mut egui::Ui,
     renderer: &Arc<Mutex<Renderer>>,
     scene: &Arc<Scene>,
     camera: &mut OrbitCamera,
     style: ViewStyle,
+    picked: Option<usize>,
 ) -> ViewportInput {
     let (rect, response) = ui.allocate_exact_size(ui.available_size(), Sense::click_and_drag());
     let delta = response.drag_delta();
@@ -241,15 +324,47 @@ pub fn viewport_ui(
         .map(|pos| DVec2::new(f64::from(pos.x - rect.left()), f64::from(pos.y - rect.top())));
 
     let renderer = Arc::clone(renderer);
-    let scene = Arc::clone(scene);
-    let camera = *camera;
+    let frame = FrameInput { scene: Arc::clone(scene), camera: *camera, style, picked };
     let callback = egui_glow::CallbackFn::new(move |info, painter| {
         // A poisoned lock means an earlier draw panicked; skipping the draw
         // keeps the rest of the window usable.
         if let Ok(mut renderer) = renderer.lock() {
-            renderer.paint(&info, painter, &scene, &camera, style);
+            renderer.paint(&info, painter, &frame);
         }
     });
     ui.painter().add(egui::PaintCallback { rect, callback: Arc::new(callback) });
+    if !style.client_view {
+        labels_ui(ui, rect, scene, camera, picked);
+    }
     ViewportInput { clicked_at, view_size: DVec2::new(f64::from(rect.width()), f64::from(rect.height())) }
+}
+
+/// Member labels over the 3D view, skipping any that would overlap one
+/// already placed (the picked piece's label goes first).
+fn labels_ui(ui: &egui::Ui, rect: egui::Rect, scene: &Scene, camera: &OrbitCamera, picked: Option<usize>) {
+    let size = DVec2::new(f64::from(rect.width()), f64::from(rect.height()));
+    let painter = ui.painter_at(rect);
+    let font = egui::FontId::proportional(12.0);
+    let order = picked.into_iter().chain((0..scene.pieces.len()).filter(|&i| Some(i) != picked));
+    let mut placed: Vec<egui::Rect> = Vec::new();
+    for index in order {
+        let Some(piece) = scene.pieces.get(index) else { continue };
+        let Some(at) = camera.project(piece.label_at, size) else { continue };
+        let centre = rect.min + egui::vec2(at.x as f32, at.y as f32);
+        let galley = painter.layout_no_wrap(piece.label.clone(), font.clone(), egui::Color32::PLACEHOLDER);
+        let label_rect = egui::Rect::from_center_size(centre, galley.size()).expand(2.0);
+        if !rect.contains_rect(label_rect) || placed.iter().any(|other| other.intersects(label_rect)) {
+            continue;
+        }
+        // The picked label is white on black, not in the highlight colour,
+        // so only the 3D highlight shows that colour.
+        let (fill, text) = if Some(index) == picked {
+            (egui::Color32::WHITE, egui::Color32::BLACK)
+        } else {
+            (egui::Color32::from_black_alpha(170), egui::Color32::WHITE)
+        };
+        painter.rect_filled(label_rect, 3.0, fill);
+        painter.galley(label_rect.min + egui::vec2(2.0, 2.0), galley, text);
+        placed.push(label_rect);
+    }
 }
