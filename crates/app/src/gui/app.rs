@@ -4,17 +4,18 @@
 use std::sync::{Arc, Mutex};
 
 use anyhow::Context as _;
-use glam::DVec2;
 use pitchframe_geometry::{Outline, Pitch};
 
 use super::ViewPreset;
 use super::camera::OrbitCamera;
+use super::command::Command;
 use super::pick::pick;
 use super::picture::PictureJob;
 use super::scene::{
     DEMO_RISE_PER_RUN, DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN, Scene, temporary_demo_outline,
 };
 use super::side_panel::side_panel_ui;
+use super::toolbar::{shortcuts, toolbar_ui};
 use super::viewport::{Renderer, ViewStyle, viewport_ui};
 
 /// What the user edits; everything drawn is derived from it.
@@ -42,41 +43,12 @@ impl Document {
     }
 }
 
-/// A change asked for during a frame, applied after it.
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub enum Command {
-    /// Turn the camera to a preset direction.
-    SetView(ViewPreset),
-    /// Bring the picked member to the middle of the view, close up.
-    FocusPicked,
-    /// Switch between the framing view and the client view.
-    SetClientView(bool),
-    /// Select what lies under a click in the 3D view (nothing if empty),
-    /// given from the view's top-left in points, with the view's size.
-    PickAt {
-        /// The click position.
-        at: DVec2,
-        /// The view's size.
-        view_size: DVec2,
-    },
-}
-
 /// What the user has picked in the 3D view.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Selection {
     /// Index into the scene's framing pieces.
     pub piece: usize,
 }
-
-/// Keys that turn the camera to each preset.
-const VIEW_KEYS: [(egui::Key, ViewPreset); 6] = [
-    (egui::Key::C, ViewPreset::Corner),
-    (egui::Key::T, ViewPreset::Top),
-    (egui::Key::F, ViewPreset::Front),
-    (egui::Key::B, ViewPreset::Back),
-    (egui::Key::L, ViewPreset::Left),
-    (egui::Key::R, ViewPreset::Right),
-];
 
 /// The running window.
 pub struct PitchframeApp {
@@ -118,54 +90,6 @@ impl PitchframeApp {
         })
     }
 
-    fn toolbar_ui(&mut self, ui: &mut egui::Ui) {
-        ui.horizontal(|ui| {
-            ui.label("View:");
-            for view in ViewPreset::ALL {
-                let key = VIEW_KEYS.iter().find(|(_, v)| *v == view).map(|(key, _)| key.name());
-                let button = ui.button(view.label());
-                let button = match key {
-                    Some(key) => button.on_hover_text(format!("Key: {key}")),
-                    None => button,
-                };
-                if button.clicked() {
-                    self.commands.push(Command::SetView(view));
-                }
-            }
-            let focus = ui.add_enabled(self.selection.is_some(), egui::Button::new("Zoom to picked"));
-            if focus.on_hover_text("Key: Z").clicked() {
-                self.commands.push(Command::FocusPicked);
-            }
-            ui.separator();
-            let mut client_view = self.style.client_view;
-            if ui
-                .toggle_value(&mut client_view, "Client view")
-                .on_hover_text("Walls and a solid roof, no frame or labels (key: V)")
-                .changed()
-            {
-                self.commands.push(Command::SetClientView(client_view));
-            }
-        });
-    }
-
-    fn shortcuts(&mut self, ctx: &egui::Context) {
-        // Typing in a text field must not turn the camera.
-        if ctx.egui_wants_keyboard_input() {
-            return;
-        }
-        if ctx.input(|input| input.key_pressed(egui::Key::Z)) {
-            self.commands.push(Command::FocusPicked);
-        }
-        if ctx.input(|input| input.key_pressed(egui::Key::V)) {
-            self.commands.push(Command::SetClientView(!self.style.client_view));
-        }
-        for (key, view) in VIEW_KEYS {
-            if ctx.input(|input| input.key_pressed(key)) {
-                self.commands.push(Command::SetView(view));
-            }
-        }
-    }
-
     fn apply_commands(&mut self) {
         for command in std::mem::take(&mut self.commands) {
             match command {
@@ -187,15 +111,17 @@ impl PitchframeApp {
 }
 
 /// Everything drawn, derived from the document.
-fn scene_for(document: &Document) -> Scene {
+pub fn scene_for(document: &Document) -> Scene {
     Scene::build(&document.outline, document.wall_height_in, document.wall_thickness_in)
 }
 
 impl eframe::App for PitchframeApp {
     fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
         let ctx = ui.ctx().clone();
-        self.shortcuts(&ctx);
-        egui::Panel::top("toolbar").show(ui, |ui| self.toolbar_ui(ui));
+        shortcuts(&ctx, self.style.client_view, &mut self.commands);
+        egui::Panel::top("toolbar").show(ui, |ui| {
+            toolbar_ui(ui, self.selection.is_some(), self.style.client_view, &mut self.commands);
+        });
         egui::Panel::left("numbers").default_size(280.0).show(ui, |ui| {
             let selected = self.selection.and_then(|selection| self.scene.pieces.get(selection.piece));
             side_panel_ui(ui, &self.document, &self.scene, selected);

@@ -9,11 +9,13 @@
 
 mod app;
 mod camera;
+mod command;
 mod palette;
 mod pick;
 mod picture;
 mod scene;
 mod side_panel;
+mod toolbar;
 mod triangulate;
 mod viewport;
 

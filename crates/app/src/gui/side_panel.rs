@@ -201,3 +201,26 @@ fn trimmed(value: f64) -> String {
     let text = format!("{value:.2}");
     text.trim_end_matches('0').trim_end_matches('.').to_owned()
 }
+
+#[cfg(test)]
+mod tests {
+    use egui_kittest::Harness;
+    use egui_kittest::kittest::Queryable as _;
+
+    use super::super::app::scene_for;
+    use super::*;
+
+    #[test]
+    fn the_six_rafter_table_lines_read_as_on_a_square_at_six_in_twelve() {
+        let document = Document::demo().unwrap();
+        assert_eq!(document.pitch.rise_in_12(), 6.0);
+        let scene = scene_for(&document);
+        let harness = Harness::new_ui(|ui| side_panel_ui(ui, &document, &scene, None));
+        // Common practice (the rafter table stamped on a framing square,
+        // 6 in 12 column): 13.42, 18.00, 17-7/8, 26-13/16, 10-3/4, 11-5/16;
+        // the side cuts show to two places, 10.73 and 11.31.
+        for figure in ["13.42", "18.00", "17-7/8\"", "26-13/16\"", "10.73", "11.31"] {
+            let _ = harness.get_by_label(figure);
+        }
+    }
+}
