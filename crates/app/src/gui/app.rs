@@ -3,28 +3,36 @@
 
 use std::sync::{Arc, Mutex};
 
+use std::path::Path;
+
 use anyhow::Context as _;
-use pitchframe_geometry::{Outline, Pitch};
+use pitchframe_geometry::{Outline, Plan, demo_plan};
 
 use super::ViewPreset;
 use super::camera::OrbitCamera;
 use super::command::Command;
 use super::pick::pick;
 use super::picture::PictureJob;
-use super::scene::{
-    DEMO_RISE_PER_RUN, DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN, Scene, temporary_demo_outline,
-};
+use super::scene::Scene;
 use super::side_panel::side_panel_ui;
 use super::toolbar::{shortcuts, toolbar_ui};
 use super::viewport::{Renderer, ViewStyle, viewport_ui};
 
+/// Floor to the top of the top plate, in inches: the plan gives heights
+/// from the wall line, so the walls are drawn at a usual 8 ft.
+const WALL_HEIGHT_IN: f64 = 96.0;
+/// Wall thickness drawn, in inches: a 2x6 stud wall with sheathing.
+const WALL_THICKNESS_IN: f64 = 6.0;
+
 /// What the user edits; everything drawn is derived from it.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Document {
-    /// The wall outline on the wall line.
+    /// What the side panel calls the plan (its file name, or the demo).
+    pub title: String,
+    /// The plan as read.
+    pub plan: Plan,
+    /// The plan's outline, checked once when the plan was opened.
     pub outline: Outline,
-    /// The roof's pitch.
-    pub pitch: Pitch,
     /// Floor to the top of the top plate, in inches.
     pub wall_height_in: f64,
     /// Wall thickness, in inches.
@@ -34,11 +42,28 @@ pub struct Document {
 impl Document {
     /// The built-in demo house.
     pub fn demo() -> anyhow::Result<Self> {
+        Self::from_plan("Demo house".to_owned(), demo_plan().context("the built-in demo plan")?)
+    }
+
+    /// Reads the plan file at `path`.
+    pub fn open(path: &Path) -> anyhow::Result<Self> {
+        let text =
+            std::fs::read_to_string(path).with_context(|| format!("cannot read {}", path.display()))?;
+        let plan = Plan::from_toml(&text).with_context(|| format!("cannot open {}", path.display()))?;
+        let title = path
+            .file_name()
+            .map_or_else(|| path.display().to_string(), |name| name.to_string_lossy().into_owned());
+        Self::from_plan(title, plan).with_context(|| format!("cannot open {}", path.display()))
+    }
+
+    fn from_plan(title: String, plan: Plan) -> anyhow::Result<Self> {
+        let outline = plan.outline()?;
         Ok(Self {
-            outline: temporary_demo_outline(),
-            pitch: Pitch::from_rise_per_run(DEMO_RISE_PER_RUN).context("the demo pitch")?,
-            wall_height_in: DEMO_WALL_HEIGHT_IN,
-            wall_thickness_in: DEMO_WALL_THICKNESS_IN,
+            title,
+            plan,
+            outline,
+            wall_height_in: WALL_HEIGHT_IN,
+            wall_thickness_in: WALL_THICKNESS_IN,
         })
     }
 }

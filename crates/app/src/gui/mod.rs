@@ -91,14 +91,12 @@ const NO_GL_MESSAGE: &str = "Pitchframe needs OpenGL 3.3 or software OpenGL (Mes
 /// Opens the Pitchframe window and runs it until it is closed (or, with
 /// `picture`, until the picture is saved).
 pub fn run(options: GuiOptions) -> anyhow::Result<()> {
-    if let Some(path) = &options.plan_path {
-        return Err(anyhow!(
-            "cannot open {}: reading plan files is not available yet; \
-             run without a plan to see the demo house",
-            path.display()
-        ));
-    }
-    let document = app::Document::demo()?;
+    // A plan that cannot be read is the user's to fix: say so before any
+    // window opens.
+    let document = match &options.plan_path {
+        Some(path) => app::Document::open(path)?,
+        None => app::Document::demo()?,
+    };
     let picture = options.picture.clone().map(PictureJob::new);
     let picture_outcome = picture.as_ref().map(PictureJob::outcome);
 

@@ -5,7 +5,7 @@
 use glam::{DVec2, DVec3};
 use pitchframe_geometry::framing::{FaceTag, PlacedPiece};
 use pitchframe_geometry::{
-    Frame, FramingSettings, MemberKind, Outline, Roof, RoofLineKind, Wall, WallRoof, frame_roof,
+    Frame, FramingSettings, MemberKind, Outline, Roof, RoofLineKind, Wall, frame_roof,
 };
 
 use super::triangulate::{newell_normal, triangulate};
@@ -308,34 +308,17 @@ fn inset_ring(ring: &[DVec2], inset_in: f64) -> Option<Vec<DVec2>> {
         .collect()
 }
 
-/// Height of the demo house's walls: 8 ft.
-pub const DEMO_WALL_HEIGHT_IN: f64 = 96.0;
-/// Thickness of the demo house's walls: 6 in.
-pub const DEMO_WALL_THICKNESS_IN: f64 = 6.0;
-/// The demo house's pitch, rise per unit run: 6 in 12.
-pub const DEMO_RISE_PER_RUN: f64 = 0.5;
-
-/// TEMPORARY: an invented L-shaped house (40 ft x 24 ft main, 16 ft x 14 ft
-/// wing), to be replaced by the built-in demo plan from the geometry crate.
-pub fn temporary_demo_outline() -> Outline {
-    let roof = WallRoof::Pitched { rise_per_run: DEMO_RISE_PER_RUN };
-    let corners_ft = [(0.0, 0.0), (40.0, 0.0), (40.0, 24.0), (16.0, 24.0), (16.0, 38.0), (0.0, 38.0)];
-    let walls = corners_ft
-        .iter()
-        .map(|&(x, y)| Wall { corner: DVec2::new(x, y) * 12.0, roof, overhang_in: 12.0 })
-        .collect();
-    match Outline::new(walls, Vec::new()) {
-        Ok(outline) => outline,
-        // Six corners always pass; an empty outline draws nothing.
-        Err(_) => unreachable!("the demo outline has six corners"),
-    }
-}
-
 #[cfg(test)]
 mod tests {
     use approx::assert_abs_diff_eq;
 
     use super::*;
+
+    /// Walls 8 ft high and 6 in thick round the built-in demo's outline.
+    fn demo_scene() -> Scene {
+        let outline = pitchframe_geometry::demo_plan().unwrap().outline().unwrap();
+        Scene::build(&outline, 96.0, 6.0)
+    }
 
     #[test]
     fn inset_of_a_square_is_a_smaller_square() {
@@ -351,12 +334,12 @@ mod tests {
 
     #[test]
     fn demo_walls_fill_the_plan_and_stand_eight_feet() {
-        let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
+        let scene = demo_scene();
         let (min, max) = scene.parts[0].triangles.bounds().unwrap();
         assert_eq!(scene.parts[0].kind, PartKind::Walls);
-        // Derivation: the L spans 40 ft by 38 ft (24 + 14) in plan.
-        assert_abs_diff_eq!(max.x - min.x, 480.0, epsilon = 1e-9);
-        assert_abs_diff_eq!(max.y - min.y, 456.0, epsilon = 1e-9);
+        // Derivation: the demo's L spans 44 ft by 40 ft (28 + 12) in plan.
+        assert_abs_diff_eq!(max.x - min.x, 528.0, epsilon = 1e-9);
+        assert_abs_diff_eq!(max.y - min.y, 480.0, epsilon = 1e-9);
         assert_abs_diff_eq!(max.z, 96.0, epsilon = 1e-9);
         // Six walls, three quads each, two triangles per quad.
         assert_eq!(scene.parts[0].triangles.len(), 6 * 3 * 2);
@@ -364,7 +347,7 @@ mod tests {
 
     #[test]
     fn wall_top_area_is_perimeter_times_thickness_less_corners() {
-        let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
+        let scene = demo_scene();
         let tris = &scene.parts[0].triangles;
         let top_area: f64 = tris
             .corners
@@ -375,9 +358,9 @@ mod tests {
             .sum();
         // Derivation: area between the outline and its 6 in inset equals
         // perimeter x t - t^2 x (convex corners - reflex corners) for a
-        // right-angled ring; the L has 5 convex corners and 1 reflex, and a
-        // perimeter of 2 x (40 + 38) ft = 1872 in.
-        let expected = 1872.0 * 6.0 - 36.0 * (5.0 - 1.0);
+        // right-angled ring; the demo's L has 5 convex corners and 1 reflex,
+        // and a perimeter of 2 x (44 + 40) ft = 2016 in.
+        let expected = 2016.0 * 6.0 - 36.0 * (5.0 - 1.0);
         assert_abs_diff_eq!(top_area, expected, epsilon = 1e-6);
         // Every top triangle faces up, every side one is level.
         assert!(tris.normals.iter().all(|n| n.z.abs() < 1e-12 || (n.z - 1.0).abs() < 1e-12));
@@ -385,7 +368,7 @@ mod tests {
 
     #[test]
     fn outside_faces_point_away_from_the_house() {
-        let scene = Scene::build(&temporary_demo_outline(), DEMO_WALL_HEIGHT_IN, DEMO_WALL_THICKNESS_IN);
+        let scene = demo_scene();
         let tris = &scene.parts[0].triangles;
         // The front wall's outside face lies on y = 0; it must face -Y.
         let front = tris

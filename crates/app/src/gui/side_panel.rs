@@ -3,7 +3,7 @@
 
 use egui::{Color32, RichText};
 use pitchframe_geometry::framing::{Cut, CutEnd};
-use pitchframe_geometry::{Length, LengthStyle, Member, RafterTable};
+use pitchframe_geometry::{Length, LengthStyle, Member, Pitch, Plan, RafterTable};
 
 use super::app::Document;
 use super::palette;
@@ -16,7 +16,7 @@ const FIGURE_SIZE: f32 = 22.0;
 /// Shows the house, the picked member, the rafter table and the legend.
 pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, picked: Option<&ScenePiece>) {
     egui::ScrollArea::vertical().show(ui, |ui| {
-        ui.heading("Demo house");
+        ui.heading(&document.title);
         ui.label(format!(
             "Walls {} high, {} thick",
             length_text(document.wall_height_in),
@@ -40,7 +40,14 @@ pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, pick
             }
         }
         ui.separator();
-        rafter_table_ui(ui, &RafterTable::for_pitch(document.pitch));
+        for (index, pitch) in pitches_in(&document.plan).into_iter().enumerate() {
+            let table = RafterTable::for_pitch(pitch);
+            let title =
+                format!("Rafter table, {} in 12 ({:.2}°)", trimmed(table.rise_in_12), table.pitch_deg);
+            egui::CollapsingHeader::new(RichText::new(title).heading())
+                .default_open(index == 0)
+                .show(ui, |ui| rafter_table_ui(ui, &table));
+        }
         ui.separator();
         legend_ui(ui, scene);
     });
@@ -129,7 +136,6 @@ fn end_name(end: CutEnd) -> &'static str {
 
 /// The six lines of the rafter table, each with its setup on hover.
 fn rafter_table_ui(ui: &mut egui::Ui, table: &RafterTable) {
-    ui.heading(format!("Pitch {} in 12 ({:.2}°)", trimmed(table.rise_in_12), table.pitch_deg));
     let lines: [(&str, String, &str); 6] = [
         (
             "Common, length per foot of run",
@@ -158,6 +164,18 @@ fn rafter_table_ui(ui: &mut egui::Ui, table: &RafterTable) {
         ui.label(name);
         ui.label(RichText::new(value).size(FIGURE_SIZE).strong()).on_hover_text(setup);
     }
+}
+
+/// The plan's pitches, the roof's own first, each once.
+fn pitches_in(plan: &Plan) -> Vec<Pitch> {
+    let walls = plan.walls.iter().chain(plan.courtyards.iter().flatten());
+    let mut pitches = vec![plan.default_pitch];
+    for pitch in walls.filter(|wall| !wall.gable).filter_map(|wall| wall.pitch) {
+        if !pitches.contains(&pitch) {
+            pitches.push(pitch);
+        }
+    }
+    pitches
 }
 
 /// What each colour in the 3D view means.
@@ -213,7 +231,8 @@ mod tests {
     #[test]
     fn the_six_rafter_table_lines_read_as_on_a_square_at_six_in_twelve() {
         let document = Document::demo().unwrap();
-        assert_eq!(document.pitch.rise_in_12(), 6.0);
+        // The demo's roof pitch (its west end is steeper, at 9 in 12).
+        assert_eq!(document.plan.default_pitch.rise_in_12(), 6.0);
         let scene = scene_for(&document);
         let harness = Harness::new_ui(|ui| side_panel_ui(ui, &document, &scene, None));
         // Common practice (the rafter table stamped on a framing square,
@@ -222,5 +241,7 @@ mod tests {
         for figure in ["13.42", "18.00", "17-7/8\"", "26-13/16\"", "10.73", "11.31"] {
             let _ = harness.get_by_label(figure);
         }
+        // The steeper west end's table is listed too, folded.
+        let _ = harness.get_by_label_contains("9 in 12");
     }
 }
