@@ -2,8 +2,8 @@
 //! the picked member's lengths and cuts, and the colour legend.
 
 use egui::{Color32, RichText};
-use pitchframe_geometry::framing::{Cut, CutEnd};
-use pitchframe_geometry::{Length, LengthStyle, Member, Pitch, Plan, RafterTable};
+use pitchframe_geometry::framing::{Cut, CutEnd, FramingWarning, SawKind};
+use pitchframe_geometry::{FramingInput, Length, LengthStyle, Member, Pitch, Plan, RafterTable};
 
 use super::app::Document;
 use super::palette;
@@ -25,6 +25,24 @@ pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, pick
         for error in [&scene.roof_error, &scene.frame_error].into_iter().flatten() {
             ui.colored_label(ui.visuals().warn_fg_color, error);
         }
+        if document.plan.framing != FramingInput::default() {
+            // Say so rather than let a framer cut from numbers laid out
+            // on settings other than the ones in their plan.
+            ui.colored_label(
+                ui.visuals().warn_fg_color,
+                "The plan's [framing] table is not applied yet: the frame shown uses 24 in centres, \
+                 2x8 rafters, 2x10 hips, valleys and ridges, a 3-1/2 in seat and plumb tails.",
+            );
+        }
+        if let Some(frame) = scene.frame.as_ref().filter(|frame| !frame.warnings.is_empty()) {
+            ui.colored_label(
+                ui.visuals().warn_fg_color,
+                format!(
+                    "{} things to check before cutting; pick a member to see its own.",
+                    frame.warnings.len()
+                ),
+            );
+        }
         ui.separator();
         match picked {
             Some(piece) => {
@@ -33,6 +51,10 @@ pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, pick
                     .as_ref()
                     .and_then(|frame| frame.members.iter().find(|m| m.label == piece.label));
                 picked_ui(ui, piece, member);
+                let warnings = scene.frame.iter().flat_map(|frame| &frame.warnings);
+                for warning in warnings.filter(|warning| warning.label() == piece.label) {
+                    ui.colored_label(ui.visuals().warn_fg_color, warning_text(warning));
+                }
             }
             None => {
                 ui.heading("Picked member");
@@ -118,6 +140,42 @@ fn cut_text(cut: &Cut) -> String {
             format!("Backing: {left_deg:.1}° left, {right_deg:.1}° right")
         }
         Cut::SquareEnd { .. } => format!("Square cut at the {at}"),
+    }
+}
+
+/// A framing warning in words.
+fn warning_text(warning: &FramingWarning) -> String {
+    match warning {
+        FramingWarning::NotchTooDeep { notch_depth_in, limit_in, .. } => format!(
+            "Birdsmouth notch {} deep is past the limit of {}",
+            inches_text(*notch_depth_in),
+            inches_text(*limit_in)
+        ),
+        FramingWarning::BevelBeyondSaw { end, saw, bevel_deg, max_deg, .. } => {
+            let saw = match saw {
+                SawKind::Circular => "circular saw",
+                SawKind::Miter => "miter saw",
+            };
+            format!(
+                "The cut at the {} needs a {bevel_deg:.1}° bevel, past the {saw}'s {max_deg:.0}°: cut the \
+                 complement and recut, or use another saw",
+                end_name(*end)
+            )
+        }
+        FramingWarning::HipTooShallow { hip, short_by_in, .. } => {
+            format!("{hip} is too shallow for this jack's cheek cut by {}", inches_text(*short_by_in))
+        }
+        FramingWarning::RidgeTooShallow { ridge, short_by_in, .. } => {
+            format!("{ridge} is too shallow for this rafter's plumb cut by {}", inches_text(*short_by_in))
+        }
+        FramingWarning::StockLengthExceeded { length_in, longest_stock_in, .. } => format!(
+            "{} long, past the longest stock of {}",
+            length_text(*length_in),
+            length_text(*longest_stock_in)
+        ),
+        FramingWarning::HipsMeetWithoutRidge { .. } => {
+            "Hips meet with no ridge: the tops are cut plumb at the peak and need a fitted block".to_owned()
+        }
     }
 }
 
