@@ -199,3 +199,17 @@ fn picking_a_member_highlights_it_and_colours_its_cut_faces() {
     let cut_faces = count_in(&picture, view, |p| CUT_FACE_RGB.iter().any(|&rgb| close(p, rgb, 3)));
     assert!(cut_faces > 30, "only {cut_faces} view pixels show a cut-face colour");
 }
+
+#[test]
+fn no_display_is_reported_in_words_not_a_panic() {
+    let output = Command::new(env!("CARGO_BIN_EXE_pitchframe"))
+        .env_remove("DISPLAY")
+        .env_remove("WAYLAND_DISPLAY")
+        .env_remove("WAYLAND_SOCKET")
+        .output()
+        .expect("cannot start pitchframe");
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert!(!output.status.success(), "pitchframe with no display exited successfully");
+    assert!(stderr.contains("could not create a GL context"), "unexpected message:\n{stderr}");
+    assert!(!stderr.contains("panicked"), "pitchframe panicked:\n{stderr}");
+}

@@ -11,8 +11,8 @@ use egui::{PointerButton, Sense};
 use glam::{DVec2, DVec3};
 use three_d::{
     AmbientLight, Camera, ClearState, ColorMaterial, Context, CpuMaterial, CpuMesh, DirectionalLight, Gm,
-    Indices, Mesh, Object, PhysicalMaterial, Positions, RenderTarget, ScissorBox, Srgba, Vec3, Viewport,
-    degrees,
+    Indices, LightingModel, Mesh, Object, PhysicalMaterial, Positions, RenderTarget, ScissorBox, Srgba, Vec3,
+    Viewport, degrees,
 };
 
 use super::camera::OrbitCamera;
@@ -127,6 +127,7 @@ impl Renderer {
             // best for painted or timber surfaces.
             roughness: 1.0,
             metallic: 0.0,
+            lighting_model: LightingModel::Phong,
             ..Default::default()
         };
         if alpha == 255 {
