@@ -50,7 +50,7 @@ pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, pick
                     .frame
                     .as_ref()
                     .and_then(|frame| frame.members.iter().find(|m| m.label == piece.label));
-                picked_ui(ui, piece, member);
+                picked_ui(ui, &document.plan, piece, member);
                 let warnings = scene.frame.iter().flat_map(|frame| &frame.warnings);
                 for warning in warnings.filter(|warning| warning.label() == piece.label) {
                     ui.colored_label(ui.visuals().warn_fg_color, warning_text(warning));
@@ -76,7 +76,7 @@ pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, pick
 }
 
 /// The picked member's numbers in large type.
-fn picked_ui(ui: &mut egui::Ui, piece: &ScenePiece, member: Option<&Member>) {
+fn picked_ui(ui: &mut egui::Ui, plan: &Plan, piece: &ScenePiece, member: Option<&Member>) {
     ui.label(
         RichText::new(format!("{}  {}", piece.label, palette::member_name(piece.kind)))
             .size(FIGURE_SIZE)
@@ -86,9 +86,13 @@ fn picked_ui(ui: &mut egui::Ui, piece: &ScenePiece, member: Option<&Member>) {
         ui.label("This member's numbers are not in the frame.");
         return;
     };
+    let pieces = if member.count == 1 { "1 piece".to_owned() } else { format!("{} pieces", member.count) };
+    let hands = member
+        .hands
+        .map(|hands| format!(" ({} long point left, {} right)", hands.left, hands.right))
+        .unwrap_or_default();
     ui.label(format!(
-        "Cut {} from {} x {} stock",
-        member.count,
+        "{pieces}{hands}, each from {} x {} stock",
         inches_text(member.size.thickness_in),
         inches_text(member.size.depth_in)
     ));
@@ -101,7 +105,7 @@ fn picked_ui(ui: &mut egui::Ui, piece: &ScenePiece, member: Option<&Member>) {
     ];
     for (name, inches) in lengths.into_iter().filter(|&(_, inches)| inches > 0.0) {
         ui.label(name);
-        ui.label(RichText::new(length_text(inches)).size(FIGURE_SIZE).strong());
+        ui.label(RichText::new(plan.display_length(Length::from_inches(inches))).size(FIGURE_SIZE).strong());
     }
     ui.add_space(4.0);
     ui.label(RichText::new("Cuts").strong());
@@ -301,5 +305,19 @@ mod tests {
         }
         // The steeper west end's table is listed too, folded.
         let _ = harness.get_by_label_contains("9 in 12");
+    }
+
+    #[test]
+    fn a_picked_member_shows_its_label_lengths_and_cuts() {
+        let document = Document::demo().unwrap();
+        let scene = scene_for(&document);
+        let piece = scene.pieces.iter().find(|piece| piece.label == "HJ1").unwrap();
+        let harness = Harness::new_ui(|ui| side_panel_ui(ui, &document, &scene, Some(piece)));
+        let _ = harness.get_by_label("HJ1  Hip jack");
+        let _ = harness.get_by_label("Long point length");
+        let _ = harness.get_by_label("Cuts");
+        // A jack meets its hip with a cheek cut and sits on the plate.
+        let _ = harness.get_by_label_contains("Cheek cut at the top");
+        let _ = harness.get_by_label_contains("Birdsmouth");
     }
 }
