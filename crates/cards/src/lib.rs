@@ -19,3 +19,19 @@ pub use lumber_order::{
     Board, BoardPiece, FIT_TOLERANCE_IN, LumberOrder, LumberOrderError, OrderPiece, OrderSettings,
     PackingMethod, SizeOrder, SplicePiece, StockCount, StockSeries, order_lumber,
 };
+mod card_deck;
+mod cards_pdf;
+mod cut_list;
+mod drawing;
+mod gltf_export;
+mod member_card;
+mod pdf_page;
+mod polygon_triangles;
+
+pub use card_deck::{CardDeck, PlaneSummary, RoofSummary};
+pub use cards_pdf::{
+    CAUTIONS, CardOptions, CardsError, POINTS_PER_IN, POINTS_PER_MM, Paper, render_cards, scale_bar_pt,
+};
+pub use cut_list::{CutListError, cut_list_csv, cut_list_table, cut_text};
+pub use gltf_export::{GltfError, ModelFace, ModelPiece, ModelScene, frame_glb};
+pub use member_card::{CardCut, CutFace, CutMark, MemberCard, MemberLengths, MemberView, ViewFace};

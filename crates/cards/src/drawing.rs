@@ -1,0 +1,304 @@
+//! Drawing pieces shared by the cut cards: a view fitted into a box, a
+//! member's outline with its cut faces, the framing square where it is
+//! held, dimensions and the small roof plan.
+
+use glam::DVec2;
+use pitchframe_geometry::{Length, LengthStyle, MarkAlong, RoofLineKind, SquareSetting};
+
+use crate::pdf_page::{BLACK, GREY, Page, RED, text_width};
+use crate::{CardDeck, CutMark, MemberCard, MemberView};
+
+/// A box on the page, points.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Area {
+    /// Lower left corner.
+    pub corner: DVec2,
+    /// Width and height.
+    pub size: DVec2,
+}
+
+impl Area {
+    /// A box from its lower left corner and size.
+    pub fn new(x: f64, y: f64, width: f64, height: f64) -> Self {
+        Self { corner: DVec2::new(x, y), size: DVec2::new(width, height) }
+    }
+
+    /// The top edge's height.
+    pub fn top(&self) -> f64 {
+        self.corner.y + self.size.y
+    }
+
+    /// The same box shrunk by `by` points on every side.
+    pub fn inset(&self, by: f64) -> Self {
+        Self {
+            corner: self.corner + DVec2::splat(by),
+            size: (self.size - DVec2::splat(2.0 * by)).max(DVec2::ZERO),
+        }
+    }
+}
+
+/// A uniform scale and shift from drawing units to page points.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Fit {
+    /// Points per drawing unit.
+    pub scale: f64,
+    /// Page point of the drawing origin.
+    pub origin: DVec2,
+}
+
+impl Fit {
+    /// The largest fit of the bounding box `low..high` centred in `area`.
+    pub fn into_area(low: DVec2, high: DVec2, area: Area) -> Self {
+        let extent = (high - low).max(DVec2::splat(1e-9));
+        let scale = (area.size.x / extent.x).min(area.size.y / extent.y).max(0.0);
+        let used = extent * scale;
+        let corner = area.corner + 0.5 * (area.size - used);
+        Self { scale, origin: corner - low * scale }
+    }
+
+    /// A drawing point on the page.
+    pub fn at(&self, point: DVec2) -> DVec2 {
+        self.origin + point * self.scale
+    }
+
+    /// Many drawing points on the page.
+    pub fn all(&self, points: &[DVec2]) -> Vec<DVec2> {
+        points.iter().map(|point| self.at(*point)).collect()
+    }
+}
+
+/// The bounding box of some points, or `None` when there are none.
+pub(crate) fn bounds<'a>(points: impl IntoIterator<Item = &'a DVec2>) -> Option<(DVec2, DVec2)> {
+    let mut iter = points.into_iter();
+    let first = *iter.next()?;
+    Some(iter.fold((first, first), |(low, high), point| (low.min(*point), high.max(*point))))
+}
+
+/// Twice the signed area of a polygon (positive counter-clockwise).
+fn twice_area(points: &[DVec2]) -> f64 {
+    points.iter().zip(points.iter().cycle().skip(1)).map(|(a, b)| a.perp_dot(*b)).sum()
+}
+
+/// Writes a length for people in the deck's style.
+pub(crate) fn length_text(length_in: f64, style: LengthStyle) -> String {
+    Length::from_inches(length_in).format(style)
+}
+
+/// A tag in a small white box, so a face's kind reads without colour.
+pub(crate) fn tag(page: &mut Page, at: DVec2, size: f64, text: &str) {
+    let width = text_width(text, size, true) + size * 0.5;
+    let corner = at - DVec2::new(width / 2.0, size * 0.45);
+    page.line_width(0.4);
+    page.stroke_colour(BLACK);
+    page.rect(corner, DVec2::new(width, size * 1.15), Some([1.0, 1.0, 1.0]), true);
+    page.fill_colour(BLACK);
+    page.text_centred(at - DVec2::new(0.0, size * 0.3), size, true, text);
+}
+
+/// Draws a member view fitted by `fit`: outline, then each cut face filled
+/// in its colour, hatched and tagged (edge-on faces as a thick coloured
+/// line with its tag).
+pub(crate) fn member_view(page: &mut Page, view: &MemberView, fit: Fit, tag_size: f64) {
+    let outline = fit.all(&view.outline);
+    page.line_width(0.9);
+    page.stroke_colour(BLACK);
+    page.polygon(&outline, Some([0.97, 0.94, 0.86]), true);
+    for face in &view.faces {
+        let points = fit.all(&face.outline);
+        let colour = face.face.colour();
+        let Some((low, high)) = bounds(&points) else { continue };
+        let centre = 0.5 * (low + high);
+        if points.len() >= 3 && twice_area(&points).abs() > 8.0 {
+            page.polygon(&points, Some(colour), false);
+            page.line_width(0.3);
+            page.stroke_colour(BLACK);
+            page.hatch(&points, face.face.hatch_deg(), 2.5);
+            page.line_width(0.6);
+            page.polygon(&points, None, true);
+        } else {
+            page.line_width(2.6);
+            page.stroke_colour(colour);
+            page.polyline(&points);
+            page.line_width(0.5);
+            page.stroke_colour(BLACK);
+            page.dash(&[1.5, 1.0]);
+            page.polyline(&points);
+            page.dash(&[]);
+        }
+        tag(page, centre, tag_size, face.face.tag());
+    }
+}
+
+/// A dimension line between two page points, offset square to them by
+/// `offset` points, with its text.
+pub(crate) fn dimension(page: &mut Page, from: DVec2, to: DVec2, offset: f64, text: &str, size: f64) {
+    let along = (to - from).normalize_or_zero();
+    let normal = along.perp();
+    let (a, b) = (from + normal * offset, to + normal * offset);
+    page.line_width(0.4);
+    page.stroke_colour(BLACK);
+    page.line(from + normal * offset.signum() * 1.5, a + normal * offset.signum() * 2.5);
+    page.line(to + normal * offset.signum() * 1.5, b + normal * offset.signum() * 2.5);
+    page.line(a, b);
+    for (end, direction) in [(a, along), (b, -along)] {
+        let tick = (direction + normal).normalize_or_zero() * 2.5;
+        page.line(end - tick, end + tick);
+    }
+    let middle = 0.5 * (a + b);
+    let angle = along.y.atan2(along.x);
+    let width = text_width(text, size, false);
+    let start = middle - along * (width / 2.0) + normal * offset.signum() * 1.5 + normal * (size * 0.2);
+    page.fill_colour(BLACK);
+    page.text_rotated(start, size, false, text, angle);
+}
+
+/// The framing square as it is held for one cut: its heel, and the unit
+/// directions of the arm marked along and of the other arm.
+pub(crate) struct SquareHold {
+    /// The square's heel (outside corner).
+    pub heel: DVec2,
+    /// Where the marked arm's figure meets the edge.
+    pub mark_point: DVec2,
+    /// Where the other arm's figure meets the edge.
+    pub other_point: DVec2,
+    /// Unit direction of the marked arm, heel to edge.
+    pub mark_arm: DVec2,
+    /// Unit direction of the other arm, heel to edge.
+    pub other_arm: DVec2,
+    /// The figure on the marked arm.
+    pub mark_figure: f64,
+    /// The figure on the other arm.
+    pub other_figure: f64,
+}
+
+/// Where the square sits for a cut marked at `mark` with `square`, in view
+/// coordinates: the marked arm runs along the cut line from the edge to the
+/// heel, the other arm square to it back to the same edge.
+pub(crate) fn square_hold(mark: &CutMark, square: &SquareSetting) -> Option<SquareHold> {
+    let (mark_figure, other_figure) = match square.mark_along {
+        MarkAlong::Figure => (square.figure, square.against),
+        MarkAlong::Against => (square.against, square.figure),
+    };
+    let into = mark.into_board.try_normalize()?;
+    let heel = mark.edge_point + into * mark_figure;
+    let mark_arm = -into;
+    // Of the two arms square to the marked one, the one whose figure lands
+    // back on the edge the square is held on.
+    let edge = mark.edge_along.try_normalize()?;
+    let off_edge = |arm: DVec2| (heel + arm * other_figure - mark.edge_point).perp_dot(edge).abs();
+    let other_arm = [mark_arm.perp(), -mark_arm.perp()]
+        .into_iter()
+        .min_by(|a, b| off_edge(*a).total_cmp(&off_edge(*b)))?;
+    let other_point = heel + other_arm * other_figure;
+    Some(SquareHold {
+        heel,
+        mark_point: mark.edge_point,
+        other_point,
+        mark_arm,
+        other_arm,
+        mark_figure,
+        other_figure,
+    })
+}
+
+/// Draws the square held for a cut (in view coordinates mapped by `fit`)
+/// with its two figures written where they meet the edge.
+pub(crate) fn framing_square(page: &mut Page, hold: &SquareHold, fit: Fit, text_size: f64) {
+    // A steel square: body 24 x 2 in, tongue 16 x 1-1/2 in; the body carries
+    // the larger figure.
+    let (mark_len, mark_width, other_len, other_width) =
+        if hold.mark_figure >= hold.other_figure { (24.0, 2.0, 16.0, 1.5) } else { (16.0, 1.5, 24.0, 2.0) };
+    let (h, a1, a2) = (hold.heel, hold.mark_arm, hold.other_arm);
+    let shape = [
+        h - a1 * other_width - a2 * mark_width,
+        h + a1 * mark_len - a2 * mark_width,
+        h + a1 * mark_len,
+        h,
+        h + a2 * other_len,
+        h + a2 * other_len - a1 * other_width,
+    ];
+    page.line_width(0.5);
+    page.stroke_colour(GREY);
+    page.polygon(&fit.all(&shape), Some([0.82, 0.84, 0.88]), true);
+    page.stroke_colour(RED);
+    page.line_width(0.8);
+    page.line(fit.at(hold.mark_point), fit.at(h));
+    for (point, figure) in [(hold.mark_point, hold.mark_figure), (hold.other_point, hold.other_figure)] {
+        let at = fit.at(point);
+        page.fill_colour(RED);
+        page.polygon(&circle(at, 1.6), Some(RED), false);
+        page.fill_colour(BLACK);
+        page.text_centred(at + DVec2::new(0.0, text_size * 0.6), text_size, true, &figure_text(figure));
+    }
+}
+
+fn circle(centre: DVec2, radius: f64) -> Vec<DVec2> {
+    (0..12)
+        .map(|step| centre + DVec2::from_angle(f64::from(step) * std::f64::consts::TAU / 12.0) * radius)
+        .collect()
+}
+
+/// A square figure as a framer reads it: to the nearest sixteenth, with a
+/// decimal where it is not a whole sixteenth.
+pub(crate) fn figure_text(figure: f64) -> String {
+    let sixteenths = (figure * 16.0).round();
+    if (sixteenths / 16.0 - figure).abs() < 1e-6 {
+        Length::from_inches(figure).format(LengthStyle::Inches).trim_end_matches('"').to_string()
+    } else {
+        format!("{figure:.2}")
+    }
+}
+
+/// The small roof plan: walls, ridges, hips and valleys, every piece faint,
+/// and the highlighted member's pieces bold in red; labels for every piece
+/// when `label_all`.
+pub(crate) fn roof_plan(
+    page: &mut Page,
+    deck: &CardDeck,
+    area: Area,
+    highlight: Option<&MemberCard>,
+    label_all: bool,
+) {
+    let mut points: Vec<DVec2> = deck.outline.iter().flatten().copied().collect();
+    points.extend(deck.roof.planes.iter().flat_map(|plane| plane.eave_outline.iter().map(|p| p.truncate())));
+    let Some((low, high)) = bounds(&points) else { return };
+    let fit = Fit::into_area(low, high, area);
+    for plane in &deck.roof.planes {
+        let eave: Vec<DVec2> = plane.eave_outline.iter().map(|p| fit.at(p.truncate())).collect();
+        page.line_width(0.3);
+        page.stroke_colour(GREY);
+        page.polygon(&eave, None, true);
+    }
+    page.line_width(0.9);
+    page.stroke_colour(BLACK);
+    for ring in &deck.outline {
+        page.polygon(&fit.all(ring), None, true);
+    }
+    for line in &deck.roof.lines {
+        let (dash, width): (&[f64], f64) = match line.kind {
+            RoofLineKind::Ridge => (&[], 1.2),
+            RoofLineKind::Hip => (&[4.0, 2.0], 0.8),
+            RoofLineKind::Valley => (&[1.0, 1.5], 0.8),
+        };
+        page.dash(dash);
+        page.line_width(width);
+        page.line(fit.at(line.from.truncate()), fit.at(line.to.truncate()));
+    }
+    page.dash(&[]);
+    let label_size = (area.size.x / 90.0).clamp(3.0, 6.0);
+    for member in &deck.members {
+        let chosen = highlight.is_some_and(|h| h.label == member.label);
+        page.line_width(if chosen { 1.8 } else { 0.3 });
+        page.stroke_colour(if chosen { RED } else { [0.6, 0.45, 0.25] });
+        for place in &member.places {
+            page.line(fit.at(place[0]), fit.at(place[1]));
+        }
+        if label_all || chosen {
+            for place in &member.places {
+                let middle = fit.at(0.5 * (place[0] + place[1]));
+                page.fill_colour(if chosen { RED } else { BLACK });
+                page.text_centred(middle + DVec2::new(0.0, 1.0), label_size, chosen, &member.label);
+            }
+        }
+    }
+}

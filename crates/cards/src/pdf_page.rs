@@ -1,0 +1,332 @@
+//! A small vector page: lines, filled and hatched shapes and Helvetica
+//! text, written as a PDF content stream, and the document around pages.
+//!
+//! Coordinates are PDF points (1/72 in) from the page's lower left corner.
+//! Text uses the standard Helvetica fonts every PDF reader carries, so no
+//! font file ships with the program; text is encoded as WinAnsi.
+
+use std::fmt::Write as _;
+
+use glam::DVec2;
+use lopdf::{Dictionary, Document, Object, Stream, dictionary};
+
+/// Helvetica advance widths (1/1000 em) for ASCII 32..=126, from Adobe's
+/// published core-font metrics.
+const HELVETICA_WIDTHS: [u16; 95] = [
+    278, 278, 355, 556, 556, 889, 667, 191, 333, 333, 389, 584, 278, 333, 278, 278, 556, 556, 556, 556, 556,
+    556, 556, 556, 556, 556, 278, 278, 584, 584, 584, 556, 1015, 667, 667, 722, 722, 667, 611, 778, 722, 278,
+    500, 667, 556, 833, 722, 778, 667, 778, 722, 667, 611, 722, 667, 944, 667, 667, 611, 278, 278, 278, 469,
+    556, 333, 556, 556, 500, 556, 556, 278, 556, 556, 222, 222, 500, 222, 833, 556, 556, 556, 556, 333, 500,
+    278, 556, 500, 722, 500, 500, 500, 334, 260, 334, 584,
+];
+
+/// Helvetica-Bold runs wider than Helvetica; measuring it 10 % wide keeps
+/// bold text inside its box without a second table.
+const BOLD_WIDTH_FACTOR: f64 = 1.1;
+
+/// A character in WinAnsi and its Helvetica width, or `None` for a
+/// character the standard fonts cannot show.
+fn win_ansi(character: char) -> Option<(u8, u16)> {
+    let code = character as u32;
+    if (32..=126).contains(&code) {
+        let index = (code - 32) as usize;
+        return HELVETICA_WIDTHS.get(index).map(|&width| (code as u8, width));
+    }
+    match character {
+        '\u{b0}' => Some((0xB0, 400)),
+        '\u{d7}' => Some((0xD7, 584)),
+        '\u{bd}' => Some((0xBD, 834)),
+        '\u{bc}' => Some((0xBC, 834)),
+        '\u{be}' => Some((0xBE, 834)),
+        '\u{2013}' => Some((0x96, 556)),
+        '\u{2014}' => Some((0x97, 1000)),
+        '\u{2019}' => Some((0x92, 222)),
+        '\u{2022}' => Some((0x95, 350)),
+        _ => None,
+    }
+}
+
+/// The width of `text` in points at `size`.
+pub(crate) fn text_width(text: &str, size: f64, bold: bool) -> f64 {
+    let thousandths: u32 =
+        text.chars().map(|character| u32::from(win_ansi(character).map_or(556, |(_, width)| width))).sum();
+    let factor = if bold { BOLD_WIDTH_FACTOR } else { 1.0 };
+    f64::from(thousandths) * size / 1000.0 * factor
+}
+
+/// Breaks `text` into lines no wider than `width` points at `size`.
+pub(crate) fn wrap(text: &str, width: f64, size: f64, bold: bool) -> Vec<String> {
+    let mut lines = Vec::new();
+    let mut line = String::new();
+    for word in text.split_whitespace() {
+        let candidate = if line.is_empty() { word.to_string() } else { format!("{line} {word}") };
+        if text_width(&candidate, size, bold) <= width || line.is_empty() {
+            line = candidate;
+        } else {
+            lines.push(std::mem::take(&mut line));
+            line = word.to_string();
+        }
+    }
+    if !line.is_empty() {
+        lines.push(line);
+    }
+    lines
+}
+
+/// An RGB colour, each part 0..1.
+pub(crate) type Rgb = [f32; 3];
+
+/// Black ink.
+pub(crate) const BLACK: Rgb = [0.0, 0.0, 0.0];
+/// Mid grey for construction lines and the framing square.
+pub(crate) const GREY: Rgb = [0.55, 0.55, 0.55];
+/// Warning red (always printed beside the word WARNING, so it reads in
+/// black and white too).
+pub(crate) const RED: Rgb = [0.75, 0.05, 0.05];
+
+/// One page being drawn.
+pub(crate) struct Page {
+    /// Page width, points.
+    pub width: f64,
+    /// Page height, points.
+    pub height: f64,
+    ops: String,
+}
+
+/// A PDF string literal, still as `char`s: characters the fonts lack become
+/// `?`, and WinAnsi bytes are made when the stream is written.
+fn literal(text: &str) -> String {
+    let mut out = String::with_capacity(text.len() + 2);
+    out.push('(');
+    for character in text.chars() {
+        let shown = if win_ansi(character).is_some() { character } else { '?' };
+        if matches!(shown, '(' | ')' | '\\') {
+            out.push('\\');
+        }
+        out.push(shown);
+    }
+    out.push(')');
+    out
+}
+
+impl Page {
+    /// A blank page of the given size in points.
+    pub fn new(width: f64, height: f64) -> Self {
+        Self { width, height, ops: String::with_capacity(16 * 1024) }
+    }
+
+    fn op(&mut self, text: &str) {
+        self.ops.push_str(text);
+        self.ops.push('\n');
+    }
+
+    /// Sets the stroke colour.
+    pub fn stroke_colour(&mut self, colour: Rgb) {
+        let _ = writeln!(self.ops, "{:.3} {:.3} {:.3} RG", colour[0], colour[1], colour[2]);
+    }
+
+    /// Sets the fill colour (also the text colour).
+    pub fn fill_colour(&mut self, colour: Rgb) {
+        let _ = writeln!(self.ops, "{:.3} {:.3} {:.3} rg", colour[0], colour[1], colour[2]);
+    }
+
+    /// Sets the line width in points.
+    pub fn line_width(&mut self, width: f64) {
+        let _ = writeln!(self.ops, "{width:.3} w");
+    }
+
+    /// Sets a dash pattern (empty for solid lines).
+    pub fn dash(&mut self, pattern: &[f64]) {
+        let parts: Vec<String> = pattern.iter().map(|part| format!("{part:.2}")).collect();
+        let _ = writeln!(self.ops, "[{}] 0 d", parts.join(" "));
+    }
+
+    fn path(&mut self, points: &[DVec2], close: bool) -> bool {
+        let Some(first) = points.first() else { return false };
+        let _ = writeln!(self.ops, "{:.3} {:.3} m", first.x, first.y);
+        for point in points.iter().skip(1) {
+            let _ = writeln!(self.ops, "{:.3} {:.3} l", point.x, point.y);
+        }
+        if close {
+            self.op("h");
+        }
+        true
+    }
+
+    /// A straight line.
+    pub fn line(&mut self, from: DVec2, to: DVec2) {
+        self.polyline(&[from, to]);
+    }
+
+    /// An open polyline.
+    pub fn polyline(&mut self, points: &[DVec2]) {
+        if self.path(points, false) {
+            self.op("S");
+        }
+    }
+
+    /// A closed polygon, filled and/or outlined.
+    pub fn polygon(&mut self, points: &[DVec2], fill: Option<Rgb>, stroke: bool) {
+        if points.len() < 2 {
+            return;
+        }
+        if let Some(colour) = fill {
+            self.fill_colour(colour);
+        }
+        self.path(points, true);
+        self.op(match (fill.is_some(), stroke) {
+            (true, true) => "B",
+            (true, false) => "f",
+            (false, true) => "S",
+            (false, false) => "n",
+        });
+    }
+
+    /// An axis-aligned rectangle from its lower left corner, with the
+    /// rectangle operator so its exact size can be read back from the file.
+    pub fn rect(&mut self, corner: DVec2, size: DVec2, fill: Option<Rgb>, stroke: bool) {
+        if let Some(colour) = fill {
+            self.fill_colour(colour);
+        }
+        let _ = writeln!(self.ops, "{:.4} {:.4} {:.4} {:.4} re", corner.x, corner.y, size.x, size.y);
+        self.op(match (fill.is_some(), stroke) {
+            (true, true) => "B",
+            (true, false) => "f",
+            (false, true) => "S",
+            (false, false) => "n",
+        });
+    }
+
+    /// Parallel lines `spacing` points apart at `angle_deg` from level,
+    /// clipped to the polygon.
+    pub fn hatch(&mut self, points: &[DVec2], angle_deg: f64, spacing: f64) {
+        if points.len() < 3 || spacing <= 0.0 {
+            return;
+        }
+        self.op("q");
+        self.path(points, true);
+        self.op("W n");
+        let (mut low, mut high) = (DVec2::splat(f64::INFINITY), DVec2::splat(f64::NEG_INFINITY));
+        for point in points {
+            low = low.min(*point);
+            high = high.max(*point);
+        }
+        let centre = 0.5 * (low + high);
+        let reach = 0.5 * (high - low).length() + spacing;
+        let along = DVec2::from_angle(angle_deg.to_radians());
+        let across = along.perp();
+        let steps = (reach / spacing).ceil() as i64;
+        for step in -steps..=steps {
+            let offset = centre + across * (step as f64 * spacing);
+            let _ = writeln!(
+                self.ops,
+                "{:.3} {:.3} m {:.3} {:.3} l",
+                offset.x - along.x * reach,
+                offset.y - along.y * reach,
+                offset.x + along.x * reach,
+                offset.y + along.y * reach
+            );
+        }
+        self.op("S Q");
+    }
+
+    /// Text with its baseline starting at `at`.
+    pub fn text(&mut self, at: DVec2, size: f64, bold: bool, text: &str) {
+        self.text_rotated(at, size, bold, text, 0.0);
+    }
+
+    /// Text rotated `angle_rad` counter-clockwise about its start.
+    pub fn text_rotated(&mut self, at: DVec2, size: f64, bold: bool, text: &str, angle_rad: f64) {
+        let font = if bold { "F2" } else { "F1" };
+        let (sin, cos) = angle_rad.sin_cos();
+        let _ = write!(
+            self.ops,
+            "BT /{font} {size:.2} Tf {cos:.5} {sin:.5} {:.5} {cos:.5} {:.3} {:.3} Tm ",
+            -sin, at.x, at.y
+        );
+        self.ops.push_str(&literal(text));
+        self.op(" Tj ET");
+    }
+
+    /// Text centred on `at` horizontally.
+    pub fn text_centred(&mut self, at: DVec2, size: f64, bold: bool, text: &str) {
+        let width = text_width(text, size, bold);
+        self.text(DVec2::new(at.x - width / 2.0, at.y), size, bold, text);
+    }
+
+    /// Saves the graphics state.
+    pub fn save(&mut self) {
+        self.op("q");
+    }
+
+    /// Restores the graphics state.
+    pub fn restore(&mut self) {
+        self.op("Q");
+    }
+
+    /// Clips what follows (until `restore`) to a rectangle.
+    pub fn clip_rect(&mut self, corner: DVec2, size: DVec2) {
+        let _ = writeln!(self.ops, "{:.3} {:.3} {:.3} {:.3} re W n", corner.x, corner.y, size.x, size.y);
+    }
+
+    fn into_content(self) -> Vec<u8> {
+        // Text keeps its characters until here; the fonts read WinAnsi bytes.
+        let mut bytes = Vec::with_capacity(self.ops.len());
+        for character in self.ops.chars() {
+            match win_ansi(character) {
+                Some((code, _)) if !character.is_ascii() => bytes.push(code),
+                _ if character.is_ascii() => bytes.push(character as u8),
+                _ => bytes.push(b'?'),
+            }
+        }
+        bytes
+    }
+}
+
+/// Writes pages into one PDF file.
+pub(crate) fn write_document(pages: Vec<Page>, title: &str) -> Result<Vec<u8>, std::io::Error> {
+    let mut doc = Document::with_version("1.5");
+    let pages_id = doc.new_object_id();
+    let font = |name: &str| {
+        dictionary! {
+            "Type" => "Font",
+            "Subtype" => "Type1",
+            "BaseFont" => Object::Name(name.as_bytes().to_vec()),
+            "Encoding" => "WinAnsiEncoding",
+        }
+    };
+    let regular = doc.add_object(font("Helvetica"));
+    let bold = doc.add_object(font("Helvetica-Bold"));
+    let resources = doc.add_object(dictionary! {
+        "Font" => dictionary! { "F1" => regular, "F2" => bold },
+    });
+    let mut kids = Vec::with_capacity(pages.len());
+    for page in pages {
+        let (width, height) = (page.width, page.height);
+        let content = doc.add_object(Stream::new(Dictionary::new(), page.into_content()));
+        let page_id = doc.add_object(dictionary! {
+            "Type" => "Page",
+            "Parent" => pages_id,
+            "Contents" => content,
+            "Resources" => resources,
+            "MediaBox" => vec![0.into(), 0.into(), Object::Real(width as f32), Object::Real(height as f32)],
+        });
+        kids.push(Object::Reference(page_id));
+    }
+    let count = kids.len() as i64;
+    doc.objects.insert(
+        pages_id,
+        Object::Dictionary(dictionary! { "Type" => "Pages", "Kids" => kids, "Count" => count }),
+    );
+    let catalog = doc.add_object(dictionary! { "Type" => "Catalog", "Pages" => pages_id });
+    doc.trailer.set("Root", catalog);
+    let info = doc.add_object(dictionary! {
+        "Title" => Object::string_literal(title),
+        "Producer" => Object::string_literal("Pitchframe"),
+    });
+    doc.trailer.set("Info", info);
+    doc.compress();
+    let mut bytes = Vec::new();
+    doc.save_to(&mut bytes)?;
+    Ok(bytes)
+}

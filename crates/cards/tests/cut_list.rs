@@ -1,0 +1,36 @@
+//! The cut list as CSV and as a terminal table.
+
+// Test helpers may unwrap: a panic there is a failed test.
+#![allow(clippy::unwrap_used, clippy::expect_used)]
+
+mod common;
+
+use pitchframe_cards::{cut_list_csv, cut_list_table};
+use pitchframe_geometry::LengthStyle;
+
+#[test]
+fn csv_has_a_row_per_member_with_its_lengths() {
+    let deck = common::sample_deck();
+    let csv_text = cut_list_csv(&deck.members, LengthStyle::FeetInches).unwrap();
+    let mut reader = csv::Reader::from_reader(csv_text.as_bytes());
+    let headers = reader.headers().unwrap().clone();
+    assert_eq!(&headers[0], "label");
+    assert_eq!(&headers[8], "overall");
+    let rows: Vec<csv::StringRecord> = reader.records().map(|r| r.unwrap()).collect();
+    assert_eq!(rows.len(), deck.members.len());
+    for (row, member) in rows.iter().zip(&deck.members) {
+        assert_eq!(&row[0], member.label);
+        assert_eq!(row[2].parse::<u32>().unwrap(), member.count);
+        let overall: f64 = row[10].parse().unwrap();
+        assert!((overall - member.lengths.overall_in).abs() < 1e-4);
+    }
+    // 6 in 12 common: 167.25 in of run at 13.416 per foot (trade.md
+    // section 2, line 1: sqrt(144 + 36) = 13.416) is 186.99 in = 15' 7".
+    assert_eq!(&rows[0][6], "15' 7\"");
+}
+
+#[test]
+fn table_snapshot() {
+    let deck = common::sample_deck();
+    insta::assert_snapshot!(cut_list_table(&deck.members, LengthStyle::FeetInches));
+}
