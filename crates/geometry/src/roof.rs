@@ -299,6 +299,53 @@ fn coplanar(a: &WallLine, b: &WallLine, tol: &Tolerance) -> bool {
     }
 }
 
+/// For each wall, the lowest-numbered wall carrying the same plane.
+///
+/// Walls are sorted by the direction of their line (in bins of 1e-9 rad,
+/// far finer than any two distinct walls of a building differ) and then by
+/// the line's offset, so walls sharing a plane sit next to each other.
+fn plane_groups(lines: &[WallLine], tol: &Tolerance) -> Vec<usize> {
+    let mut group: Vec<usize> = (0..lines.len()).collect();
+    let bins: Vec<i64> = lines.iter().map(|l| (l.normal.y.atan2(l.normal.x) * 1e9).round() as i64).collect();
+    let bin = |i: usize| bins.get(i).copied().unwrap_or(0);
+    let offset = |i: usize| lines.get(i).map_or(0.0, |l| l.offset);
+    let mut order: Vec<usize> =
+        (0..lines.len()).filter(|&i| lines.get(i).is_some_and(|l| l.rise.is_some())).collect();
+    order.sort_by(|&a, &b| bin(a).cmp(&bin(b)).then(offset(a).total_cmp(&offset(b))));
+    for (k, &a) in order.iter().enumerate() {
+        let Some(la) = lines.get(a) else { continue };
+        for &b in order.iter().skip(k + 1) {
+            let Some(lb) = lines.get(b) else { break };
+            if bin(b) != bin(a) || lb.offset - la.offset > tol.point {
+                break;
+            }
+            if coplanar(la, lb, tol) {
+                let g = group.get(a).copied().unwrap_or(a).min(group.get(b).copied().unwrap_or(b));
+                if let Some(x) = group.get_mut(a) {
+                    *x = g;
+                }
+                if let Some(x) = group.get_mut(b) {
+                    *x = g;
+                }
+            }
+        }
+    }
+    // Settle chains so every wall names its group's lowest wall.
+    for i in 0..group.len() {
+        let mut g = group.get(i).copied().unwrap_or(i);
+        while let Some(&h) = group.get(g) {
+            if h == g {
+                break;
+            }
+            g = h;
+        }
+        if let Some(x) = group.get_mut(i) {
+            *x = g;
+        }
+    }
+    group
+}
+
 /// Drops points lying on the straight line between their neighbours,
 /// keeping the first point.
 fn drop_collinear(points: Vec<DVec3>, tol: f64) -> Vec<DVec3> {
@@ -333,12 +380,12 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
     }
     let node_pos = |n: usize| sk.nodes.get(n).map_or(DVec2::ZERO, |x| x.pos);
     let node_time = |n: usize| sk.nodes.get(n).map_or(0.0, |x| x.time);
-    let canonical = |w: usize| -> usize {
-        let Some(line) = sk.lines.get(w) else {
-            return w;
-        };
-        sk.lines.iter().filter(|o| coplanar(line, o, tol)).map(|o| o.wall).fold(w, usize::min)
-    };
+    let group = plane_groups(&sk.lines, tol);
+    let canonical = |w: usize| group.get(w).copied().unwrap_or(w);
+    let mut members: HashMap<usize, Vec<usize>> = HashMap::new();
+    for w in 0..sk.lines.len() {
+        members.entry(canonical(w)).or_default().push(w);
+    }
     let mut planes = Vec::new();
     let mut gables = Vec::new();
     let mut segments: HashMap<(usize, usize), Vec<(usize, usize)>> = HashMap::new();
@@ -378,8 +425,10 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         }
         let outline = face.iter().map(|&n| node_pos(n).extend(line.plane_height(node_pos(n)))).collect();
         let eave = eave_outline(w, &sk.lines, &sk.nodes, face, &sides);
-        let coplanar_walls =
-            sk.lines.iter().filter(|o| o.wall != w && coplanar(line, o, tol)).map(|o| o.wall).collect();
+        let coplanar_walls: Vec<usize> = members
+            .get(&canonical(w))
+            .map(|m| m.iter().copied().filter(|&o| o != w).collect())
+            .unwrap_or_default();
         planes.push(RoofPlane {
             wall: w,
             rise_per_run: line.rise.unwrap_or(0.0),

@@ -2,7 +2,7 @@
 //! values worked out by hand or published in the trade.
 
 // Tests may unwrap: a failure here is a failed test.
-#![allow(clippy::unwrap_used)]
+#![allow(clippy::unwrap_used, clippy::expect_used)]
 
 use approx::assert_relative_eq;
 use glam::{DVec2, DVec3};
@@ -78,6 +78,18 @@ fn check_invariants(roof: &Roof, walls: &[(DVec2, DVec2)], area: f64) {
         }
     }
     assert_relative_eq!(sum, area, epsilon = 1e-6 * area);
+    // Each ridge, hip and valley lies in both of its planes.
+    for l in &roof.lines {
+        for w in l.walls {
+            let plane = roof.planes.iter().find(|p| p.wall == w).expect("line names a plane");
+            let (o0, o1) = (plane.outline[0].truncate(), plane.outline[1].truncate());
+            let dir = (o1 - o0).normalize();
+            for p in [l.from, l.to] {
+                let z = dir.perp_dot(p.truncate() - o0) * plane.rise_per_run;
+                assert_relative_eq!(z, p.z, epsilon = 1e-6 * (1.0 + p.z.abs()));
+            }
+        }
+    }
     // Planes meeting at a plan point agree on its height.
     for p in &roof.planes {
         for q in &roof.planes {
@@ -676,4 +688,117 @@ fn random_comb_plans_tile_the_outline() {
             check_invariants(&roof, &ends, outline_area(&outer, &[]));
         }
     }
+}
+
+#[test]
+fn random_star_plans_with_mixed_pitches() {
+    for seed in 1..30 {
+        for n in [6, 12, 30] {
+            let mut rng = Lcg(seed * 977);
+            let outer: Vec<Wall> =
+                star(n, seed).iter().map(|&(x, y)| pitched(x, y, 0.25 + 1.25 * rng.next())).collect();
+            let outline = Outline::new(outer.clone(), vec![]).unwrap();
+            let roof = Roof::solve(&outline).unwrap_or_else(|e| panic!("star n={n} seed={seed}: {e}"));
+            let ends: Vec<_> = (0..n).map(|i| (outer[i].corner, outer[(i + 1) % n].corner)).collect();
+            check_invariants(&roof, &ends, outline_area(&outer, &[]));
+        }
+    }
+}
+
+#[test]
+fn random_star_plans_with_a_gable() {
+    for seed in 1..30 {
+        for n in [6, 12, 30] {
+            let mut outer = ring(&star(n, seed), 0.5);
+            outer[(seed as usize) % n].roof = WallRoof::Gable;
+            let outline = Outline::new(outer.clone(), vec![]).unwrap();
+            let roof = Roof::solve(&outline).unwrap_or_else(|e| panic!("star n={n} seed={seed}: {e}"));
+            let ends: Vec<_> = (0..n).map(|i| (outer[i].corner, outer[(i + 1) % n].corner)).collect();
+            check_invariants(&roof, &ends, outline_area(&outer, &[]));
+            assert_eq!(roof.gables.len(), 1);
+        }
+    }
+}
+
+#[test]
+fn comb_with_equal_teeth_and_gabled_tips() {
+    // Every tooth the same depth puts many events at one height; gables on
+    // the tips give each tooth a plain gable roof 48 wide: ridge at 12.
+    for gabled in [false, true] {
+        let mut pts = vec![(0.0, 0.0), (480.0, 0.0)];
+        for i in (0..5).rev() {
+            let x0 = 96.0 * i as f64;
+            pts.extend([(x0 + 96.0, 300.0), (x0 + 48.0, 300.0), (x0 + 48.0, 100.0), (x0, 100.0)]);
+        }
+        let mut outer = ring(&pts, 0.5);
+        if gabled {
+            for (i, w) in outer.iter_mut().enumerate() {
+                if i >= 2 && (i - 2) % 4 == 0 {
+                    w.roof = WallRoof::Gable;
+                }
+            }
+        }
+        let n = outer.len();
+        let outline = Outline::new(outer.clone(), vec![]).unwrap();
+        let roof = Roof::solve(&outline).unwrap();
+        let ends: Vec<_> = (0..n).map(|i| (outer[i].corner, outer[(i + 1) % n].corner)).collect();
+        check_invariants(&roof, &ends, outline_area(&outer, &[]));
+        if gabled {
+            assert_eq!(roof.gables.len(), 5);
+            for g in &roof.gables {
+                assert!(g.outline.iter().any(|p| (p.z - 12.0).abs() < EPS && (p.y - 300.0).abs() < EPS));
+            }
+        }
+    }
+}
+
+#[test]
+fn plus_plan_with_equal_arms() {
+    // Derivation: four arms 240 wide round a 240 square: every valley runs
+    // at 45 degrees to the centre (360, 360) at height 60.
+    let outer = ring(
+        &[
+            (240.0, 0.0),
+            (480.0, 0.0),
+            (480.0, 240.0),
+            (720.0, 240.0),
+            (720.0, 480.0),
+            (480.0, 480.0),
+            (480.0, 720.0),
+            (240.0, 720.0),
+            (240.0, 480.0),
+            (0.0, 480.0),
+            (0.0, 240.0),
+            (240.0, 240.0),
+        ],
+        0.5,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    let centre = DVec3::new(360.0, 360.0, 60.0);
+    for c in [(480.0, 240.0), (480.0, 480.0), (240.0, 480.0), (240.0, 240.0)] {
+        assert!(has_line(&roof, RoofLineKind::Valley, DVec3::new(c.0, c.1, 0.0), centre));
+    }
+    assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 4);
+}
+
+#[test]
+fn several_courtyards_in_one_block() {
+    // Three square courtyards in a long block; no published value, the
+    // invariants must hold and each courtyard corner grows a valley.
+    let outer = ring(&[(0.0, 0.0), (1200.0, 0.0), (1200.0, 400.0), (0.0, 400.0)], 0.5);
+    let holes: Vec<Vec<Wall>> = (0..3)
+        .map(|i| {
+            let x = 100.0 + 400.0 * i as f64;
+            let mut pts = vec![(x, 100.0), (x + 200.0, 100.0), (x + 200.0, 300.0), (x, 300.0)];
+            if i == 1 {
+                pts.reverse();
+            }
+            ring(&pts, 0.75)
+        })
+        .collect();
+    let (roof, walls) = solve(outer.clone(), holes.clone());
+    check_invariants(&roof, &walls, outline_area(&outer, &holes));
+    assert_eq!(roof.planes.len(), 16);
+    assert_eq!(lines_of(&roof, RoofLineKind::Valley).len(), 12);
 }

@@ -89,13 +89,11 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
     }
     let (anchor, vel, t0, own) = (vx.anchor, vx.vel, vx.t0, [vx.in_line, vx.out_line]);
     let mut found: Vec<(f64, usize)> = Vec::new();
-    for (i, line) in wf.lines.iter().enumerate() {
-        if own.contains(&i) {
-            continue;
-        }
-        let d0 = line.distance_at(anchor, t0);
-        let rate = line.normal.dot(vel) - line.speed;
-        if d0 < -wf.tol.point || rate >= 0.0 {
+    // The packed line coefficients keep this loop, the solve's hottest, in cache.
+    for (i, &[nx, ny, offset, speed]) in wf.packed_lines.iter().enumerate() {
+        let d0 = nx * anchor.x + ny * anchor.y - offset - speed * t0;
+        let rate = nx * vel.x + ny * vel.y - speed;
+        if d0 < -wf.tol.point || rate >= 0.0 || own.contains(&i) {
             continue;
         }
         let t = t0 + d0.max(0.0) / -rate;
@@ -104,16 +102,17 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
         }
         found.push((t, i));
     }
-    found.sort_by(|a, b| a.0.total_cmp(&b.0));
     let mut truncated = false;
     if found.len() > SPLIT_CANDIDATES_KEPT {
-        // Keep every candidate tied with the last one kept, so a recompute
-        // "strictly later" never skips one.
+        // Keep the earliest few plus every candidate tied with the last one
+        // kept, so a recompute "strictly later" never skips one.
+        found.select_nth_unstable_by(SPLIT_CANDIDATES_KEPT - 1, |a, b| a.0.total_cmp(&b.0));
         let limit = found.get(SPLIT_CANDIDATES_KEPT - 1).map_or(f64::INFINITY, |c| c.0);
-        let keep = found.iter().take_while(|c| c.0 <= limit).count();
-        truncated = keep < found.len();
-        found.truncate(keep);
+        let before = found.len();
+        found.retain(|c| c.0 <= limit);
+        truncated = found.len() < before;
     }
+    found.sort_by(|a, b| a.0.total_cmp(&b.0));
     found.reverse();
     if let Some(vx) = wf.vertices.get_mut(v) {
         vx.splits = found;

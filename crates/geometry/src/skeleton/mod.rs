@@ -61,8 +61,10 @@ pub(crate) struct Skeleton {
 /// wall `lines` (indexed by global wall index).
 pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Result<Skeleton, String> {
     let n = lines.len();
+    let packed_lines = lines.iter().map(|l| [l.normal.x, l.normal.y, l.offset, l.speed]).collect();
     let mut wf = Wavefront {
         lines,
+        packed_lines,
         vertices: Vec::new(),
         edges: Vec::new(),
         nodes: Vec::new(),

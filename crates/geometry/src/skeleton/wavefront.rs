@@ -88,6 +88,8 @@ pub(crate) struct EdgePiece {
 pub(crate) struct Wavefront {
     /// Wall lines, indexed by global wall index.
     pub lines: Vec<WallLine>,
+    /// Each line's `[normal.x, normal.y, offset, speed]`, packed for the split search.
+    pub packed_lines: Vec<[f64; 4]>,
     /// All vertices ever created.
     pub vertices: Vec<Vertex>,
     /// All edge pieces ever created.
