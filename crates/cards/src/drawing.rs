@@ -99,10 +99,34 @@ pub(crate) fn tag(page: &mut Page, at: DVec2, size: f64, text: &str) {
 /// in its colour, hatched and tagged (edge-on faces as a thick coloured
 /// line with its tag).
 pub(crate) fn member_view(page: &mut Page, view: &MemberView, fit: Fit, tag_size: f64) {
-    let outline = fit.all(&view.outline);
-    page.line_width(0.9);
-    page.stroke_colour(BLACK);
-    page.polygon(&outline, Some([0.97, 0.94, 0.86]), true);
+    let wood = [0.97, 0.94, 0.86];
+    if view.parts.is_empty() {
+        page.line_width(0.9);
+        page.stroke_colour(BLACK);
+        page.polygon(&fit.all(&view.outline), Some(wood), true);
+    } else {
+        // Fill every part, then draw only the edges no two parts share,
+        // so the joins between parts do not read as cuts.
+        let parts: Vec<Vec<DVec2>> = view.parts.iter().map(|part| fit.all(part)).collect();
+        for part in &parts {
+            page.polygon(part, Some(wood), false);
+        }
+        page.line_width(0.9);
+        page.stroke_colour(BLACK);
+        let edges: Vec<(DVec2, DVec2)> = parts
+            .iter()
+            .flat_map(|part| part.iter().zip(part.iter().cycle().skip(1)).map(|(a, b)| (*a, *b)))
+            .collect();
+        let near = |a: DVec2, b: DVec2| a.distance(b) < 0.05;
+        for (index, &(a, b)) in edges.iter().enumerate() {
+            let shared = edges.iter().enumerate().any(|(other, &(c, d))| {
+                other != index && ((near(a, d) && near(b, c)) || (near(a, c) && near(b, d)))
+            });
+            if !shared {
+                page.line(a, b);
+            }
+        }
+    }
     for face in &view.faces {
         let points = fit.all(&face.outline);
         let colour = face.face.colour();

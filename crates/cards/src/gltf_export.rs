@@ -64,6 +64,12 @@ pub enum GltfError {
     /// The glTF JSON could not be written.
     #[error("the 3D model could not be written: {0}")]
     Json(#[from] json::Error),
+    /// A piece has a point that is not a finite number.
+    #[error("piece {label} has a position that is not a finite number, so it cannot be placed in the model")]
+    PieceNotFinite {
+        /// The piece's label.
+        label: String,
+    },
     /// The model is larger than a .glb file can hold (4 GiB).
     #[error("the 3D model is too large for a .glb file")]
     TooLarge,
@@ -294,6 +300,11 @@ pub fn frame_glb(scene: &ModelScene) -> Result<Vec<u8>, GltfError> {
     let mut meshes: Vec<(String, LocalSolid, Option<json::Index<json::Mesh>>)> = Vec::new();
     let mut nodes = Vec::new();
     for piece in &scene.pieces {
+        let finite = piece.axis.iter().all(|p| p.is_finite())
+            && piece.faces.iter().flat_map(|face| &face.vertices).all(|p| p.is_finite());
+        if !finite {
+            return Err(GltfError::PieceNotFinite { label: piece.label.clone() });
+        }
         let (origin, frame) = member_frame(piece.axis);
         let local = local_faces(piece, origin, frame);
         let found = meshes

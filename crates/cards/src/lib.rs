@@ -23,6 +23,7 @@ mod card_deck;
 mod cards_pdf;
 mod cut_list;
 mod drawing;
+mod from_frame;
 mod gltf_export;
 mod member_card;
 mod pdf_page;
@@ -33,5 +34,9 @@ pub use cards_pdf::{
     CAUTIONS, CardOptions, CardsError, POINTS_PER_IN, POINTS_PER_MM, Paper, render_cards, scale_bar_pt,
 };
 pub use cut_list::{CutListError, cut_list_csv, cut_list_table, cut_text};
+pub use from_frame::{
+    card_deck, kind_words, length_style, member_card, model_scene, order_pieces, outline_rings, size_words,
+    warning_words,
+};
 pub use gltf_export::{GltfError, ModelFace, ModelPiece, ModelScene, frame_glb};
 pub use member_card::{CardCut, CutFace, CutMark, MemberCard, MemberLengths, MemberView, ViewFace};

@@ -168,8 +168,12 @@ pub struct ViewFace {
 /// A member drawn in one view: its outline and its cut faces.
 #[derive(Debug, Clone, PartialEq, Serialize, Default)]
 pub struct MemberView {
-    /// The outline, in view coordinates (inches).
+    /// The outline, in view coordinates (inches); for a solid of several
+    /// convex parts, the hull of them all (used for fitting the view).
     pub outline: Vec<DVec2>,
+    /// The solid's convex parts, each as its outline in the view; when
+    /// given, these are drawn instead of `outline` so notches show.
+    pub parts: Vec<Vec<DVec2>>,
     /// The cut faces, each tagged by its cut.
     pub faces: Vec<ViewFace>,
 }

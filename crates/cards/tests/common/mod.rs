@@ -140,7 +140,7 @@ pub fn rafter_side_view(
             CutMark { edge_point: DVec2::new(x_top, depth), into_board: down, edge_along: along },
         ),
     ];
-    (MemberView { outline, faces }, marks)
+    (MemberView { outline, faces, parts: vec![] }, marks)
 }
 
 fn plumb_settings(theta: f64, plan_angle: f64) -> Vec<AngleSetting> {
@@ -295,6 +295,7 @@ pub fn sample_deck() -> CardDeck {
                 ],
             },
         ],
+        parts: vec![],
     });
     hip.lengths.long_point_in = hip.lengths.seat_to_top_cut_in;
     hip.lengths.short_point_in = hip.lengths.seat_to_top_cut_in.map(|l| l - cheek_back);

@@ -1,0 +1,512 @@
+//! Printed-output input read off the framing: member cards (views from each
+//! member's solid), the lumber order's pieces and the 3D model's pieces.
+
+use glam::{DVec2, DVec3};
+use pitchframe_geometry::framing::{
+    Cut, CutEnd, CutFace as FaceAngles, FaceTag, FramingWarning, Hand, PlacedPiece, SawKind, TailCut,
+};
+use pitchframe_geometry::{
+    AngleSetting, Frame, Length, LengthStyle, LengthUnit, MarkAlong, Member, MemberKind, Outline, Plan, Roof,
+    SquareSetting,
+};
+
+use crate::{
+    CardCut, CardDeck, CutFace, CutMark, LumberOrder, MemberCard, MemberLengths, MemberView, ModelFace,
+    ModelPiece, ModelScene, OrderPiece, ViewFace,
+};
+
+/// The trade's words for a member kind.
+pub fn kind_words(kind: MemberKind) -> &'static str {
+    match kind {
+        MemberKind::Ridge => "ridge board",
+        MemberKind::Common => "common rafter",
+        MemberKind::KingCommon => "king common",
+        MemberKind::Hip => "hip",
+        MemberKind::Valley => "valley",
+        MemberKind::HipJack => "hip jack",
+        MemberKind::ValleyJack => "valley jack",
+        MemberKind::CrippleJack => "cripple jack",
+    }
+}
+
+/// How a plan's lengths are written: feet-inches for inch plans,
+/// millimetres for metric ones.
+pub fn length_style(plan: &Plan) -> LengthStyle {
+    match plan.units {
+        LengthUnit::Inch => LengthStyle::FeetInches,
+        LengthUnit::Millimetre => LengthStyle::Millimetres,
+    }
+}
+
+/// A board size in words: "2x8" for the dressed US 2x sizes, thickness by
+/// depth otherwise.
+pub fn size_words(thickness_in: f64, depth_in: f64, style: LengthStyle) -> String {
+    let nominal = [(3.5, 4), (5.5, 6), (7.25, 8), (9.25, 10), (11.25, 12)];
+    if (thickness_in - 1.5).abs() < 1e-6
+        && let Some((_, depth)) = nominal.iter().find(|(dressed, _)| (dressed - depth_in).abs() < 1e-6)
+    {
+        return format!("2x{depth}");
+    }
+    let short =
+        if style == LengthStyle::Millimetres { LengthStyle::Millimetres } else { LengthStyle::Inches };
+    format!(
+        "{} x {}",
+        Length::from_inches(thickness_in).format(short),
+        Length::from_inches(depth_in).format(short)
+    )
+}
+
+/// A framing warning in words, for the member it is on.
+pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
+    let length = |inches: f64| Length::from_inches(inches).format(style);
+    match warning {
+        FramingWarning::NotchTooDeep { notch_depth_in, limit_in, .. } => format!(
+            "birdsmouth notch {} deep, past the notch limit of {}: check with whoever sized the member",
+            length(*notch_depth_in),
+            length(*limit_in)
+        ),
+        FramingWarning::BevelBeyondSaw { end, saw, bevel_deg, max_deg, .. } => format!(
+            "the {} cut needs a {bevel_deg:.1} deg bevel on the {}, past its {max_deg:.0} deg: cut the \
+             complement and recut, or use the other saw",
+            end_words(*end),
+            match saw {
+                SawKind::Circular => "circular saw",
+                SawKind::Miter => "miter saw",
+            }
+        ),
+        FramingWarning::HipTooShallow { hip, short_by_in, .. } => format!(
+            "its cheek cut hangs {} below {hip}: use a deeper {hip} or block under the jack",
+            length(*short_by_in)
+        ),
+        FramingWarning::RidgeTooShallow { ridge, short_by_in, .. } => format!(
+            "its plumb cut hangs {} below the ridge {ridge}: use a deeper ridge",
+            length(*short_by_in)
+        ),
+        FramingWarning::StockLengthExceeded { length_in, longest_stock_in, .. } => format!(
+            "{} long, more than the longest stock ({}): splice over a support or order special",
+            length(*length_in),
+            length(*longest_stock_in)
+        ),
+        FramingWarning::HipsMeetWithoutRidge { .. } => {
+            "hips meet at a point with no ridge: their tops need a fitted block or hub".to_string()
+        }
+    }
+}
+
+fn end_words(end: CutEnd) -> &'static str {
+    match end {
+        CutEnd::Top => "upper end",
+        CutEnd::Bottom => "lower end",
+        CutEnd::Seat => "birdsmouth",
+        CutEnd::Tail => "tail",
+        CutEnd::Start => "start end",
+        CutEnd::End => "far end",
+        CutEnd::FullLength => "full length",
+    }
+}
+
+fn face_kind(tag: FaceTag, end: Option<CutEnd>) -> Option<CutFace> {
+    match tag {
+        FaceTag::Plumb => {
+            Some(if end == Some(CutEnd::Tail) { CutFace::TailPlumb } else { CutFace::TopPlumb })
+        }
+        FaceTag::Seat => Some(CutFace::Seat),
+        FaceTag::Heel => Some(CutFace::Heel),
+        FaceTag::Cheek => Some(CutFace::Cheek),
+        FaceTag::Tail => Some(CutFace::TailPlumb),
+        FaceTag::Soffit => Some(CutFace::TailLevel),
+        FaceTag::Backing => Some(CutFace::Backing),
+        FaceTag::End => Some(CutFace::SquareEnd),
+        _ => None,
+    }
+}
+
+/// A piece's own frame: x up its axis, up square to it in the plumb plane,
+/// side completing the frame (pointing left looking up the member).
+fn piece_frame(piece: &PlacedPiece) -> (DVec3, DVec3, DVec3, DVec3) {
+    let origin = piece.axis[0];
+    let along = (piece.axis[1] - piece.axis[0]).try_normalize().unwrap_or(DVec3::X);
+    let up = (DVec3::Z - along * along.z).try_normalize().unwrap_or(DVec3::Y);
+    (origin, along, up, up.cross(along))
+}
+
+fn convex_hull(points: &[DVec2]) -> Vec<DVec2> {
+    let mut sorted = points.to_vec();
+    sorted.sort_by(|a, b| a.x.total_cmp(&b.x).then(a.y.total_cmp(&b.y)));
+    sorted.dedup_by(|a, b| a.distance(*b) < 1e-9);
+    if sorted.len() < 3 {
+        return sorted;
+    }
+    let mut hull: Vec<DVec2> = Vec::new();
+    for pass in 0..2 {
+        let start = hull.len();
+        let iter: Box<dyn Iterator<Item = &DVec2>> =
+            if pass == 0 { Box::new(sorted.iter()) } else { Box::new(sorted.iter().rev()) };
+        for &p in iter {
+            while hull.len() >= start + 2 {
+                let (a, b) = (hull[hull.len() - 2], hull[hull.len() - 1]);
+                if (b - a).perp_dot(p - b) <= 0.0 {
+                    hull.pop();
+                } else {
+                    break;
+                }
+            }
+            hull.push(p);
+        }
+        hull.pop();
+    }
+    hull
+}
+
+/// The side view (x along, y up from the bottom edge) and top view (x
+/// along, y across) of a piece.
+fn views(piece: &PlacedPiece, depth_in: f64, with_top: bool) -> (MemberView, Option<MemberView>) {
+    let (origin, along, up, side) = piece_frame(piece);
+    let side_point = |v: DVec3| DVec2::new((v - origin).dot(along), (v - origin).dot(up) + depth_in);
+    let top_point = |v: DVec3| DVec2::new((v - origin).dot(along), (v - origin).dot(side));
+    let mut side_view = MemberView::default();
+    let mut top_view = MemberView::default();
+    let mut all_side = Vec::new();
+    let mut all_top = Vec::new();
+    for part in &piece.solid.parts {
+        let projected: Vec<DVec2> = part.vertices.iter().map(|v| side_point(*v)).collect();
+        all_side.extend(projected.iter().copied());
+        side_view.parts.push(convex_hull(&projected));
+        let projected: Vec<DVec2> = part.vertices.iter().map(|v| top_point(*v)).collect();
+        all_top.extend(projected.iter().copied());
+        top_view.parts.push(convex_hull(&projected));
+        for face in &part.faces {
+            let Some(kind) = face_kind(face.tag, face.end) else { continue };
+            // Side view: faces seen from the near side or edge-on; top view:
+            // faces seen from above.
+            if face.normal.dot(side) <= 1e-6 && kind != CutFace::Backing {
+                side_view.faces.push(ViewFace {
+                    face: kind,
+                    outline: face.vertices.iter().map(|v| side_point(*v)).collect(),
+                });
+            }
+            if face.normal.dot(up) >= -1e-6
+                && matches!(kind, CutFace::Cheek | CutFace::Backing | CutFace::TopPlumb)
+            {
+                top_view.faces.push(ViewFace {
+                    face: kind,
+                    outline: face.vertices.iter().map(|v| top_point(*v)).collect(),
+                });
+            }
+        }
+    }
+    side_view.outline = convex_hull(&all_side);
+    top_view.outline = convex_hull(&all_top);
+    (side_view, with_top.then_some(top_view))
+}
+
+/// Where a plumb cut's line meets the top edge in the side view, and its
+/// direction into the board.
+fn plumb_mark(view: &MemberView, face: CutFace) -> Option<CutMark> {
+    let outline = &view.faces.iter().find(|f| f.face == face)?.outline;
+    let top = outline.iter().copied().max_by(|a, b| a.y.total_cmp(&b.y))?;
+    let bottom = outline.iter().copied().min_by(|a, b| a.y.total_cmp(&b.y))?;
+    Some(CutMark { edge_point: top, into_board: (bottom - top).try_normalize()?, edge_along: DVec2::X })
+}
+
+fn plumb_square(square: [f64; 2], member: &str) -> SquareSetting {
+    SquareSetting {
+        figure: square[1],
+        against: square[0],
+        mark_along: MarkAlong::Figure,
+        setup: format!(
+            "on the {member}'s side hold {} and {:.3} on the same edge; mark along the {:.3} arm",
+            square[0], square[1], square[1]
+        ),
+    }
+}
+
+fn angle_settings(face: &FaceAngles) -> Vec<AngleSetting> {
+    let mut out = vec![AngleSetting {
+        degrees: face.side_angle_deg,
+        setup: format!("line on the side face {:.1} deg from square to the edge", face.side_angle_deg),
+    }];
+    if face.top_edge_angle_deg > 1e-6 {
+        out.push(AngleSetting {
+            degrees: face.top_edge_angle_deg,
+            setup: format!(
+                "line across the top edge {:.1} deg from square (a line angle, not a saw bevel)",
+                face.top_edge_angle_deg
+            ),
+        });
+    }
+    out.extend([
+        AngleSetting {
+            degrees: face.face_bevel_deg,
+            setup: format!(
+                "circular saw on the side face along that line: bevel {:.1} deg",
+                face.face_bevel_deg
+            ),
+        },
+        AngleSetting {
+            degrees: face.edge_bevel_deg,
+            setup: format!("circular saw riding the top edge: bevel {:.1} deg", face.edge_bevel_deg),
+        },
+        AngleSetting {
+            degrees: face.miter_flat.miter_deg,
+            setup: format!(
+                "miter saw, board flat: miter {:.1} deg, bevel {:.1} deg",
+                face.miter_flat.miter_deg, face.miter_flat.bevel_deg
+            ),
+        },
+        AngleSetting {
+            degrees: face.miter_on_edge.miter_deg,
+            setup: format!(
+                "miter saw, board on edge: miter {:.1} deg, bevel {:.1} deg",
+                face.miter_on_edge.miter_deg, face.miter_on_edge.bevel_deg
+            ),
+        },
+    ]);
+    out
+}
+
+fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<CardCut> {
+    let words = kind_words(member.kind);
+    let length = |inches: f64| Length::from_inches(inches).format(style);
+    let mut cuts = Vec::new();
+    for cut in &member.cuts {
+        let place = end_words(cut.end()).to_string();
+        match cut {
+            Cut::Plumb { end, square, face, deduction_in, .. } => {
+                let kind = if *end == CutEnd::Tail { CutFace::TailPlumb } else { CutFace::TopPlumb };
+                cuts.push(CardCut {
+                    face: kind,
+                    place,
+                    square: Some(plumb_square(*square, words)),
+                    settings: angle_settings(face),
+                    mark: plumb_mark(side, kind),
+                    notes: vec![format!("shortened {} from the theoretical end, along the top edge", length(*deduction_in))],
+                });
+            }
+            Cut::Cheek { square, face, long_point, deduction_in, .. } => cuts.push(CardCut {
+                face: CutFace::Cheek,
+                place: format!(
+                    "{place}, long point on the {}",
+                    if *long_point == Hand::Left { "left" } else { "right" }
+                ),
+                square: Some(SquareSetting {
+                    figure: square[1],
+                    against: square[0],
+                    mark_along: MarkAlong::Against,
+                    setup: format!(
+                        "on the top edge hold {} and {:.3} on the same edge; mark along the {} arm for the cheek line",
+                        square[0], square[1], square[0]
+                    ),
+                }),
+                settings: angle_settings(face),
+                mark: None,
+                notes: vec![format!("shortened {} from the theoretical end", length(*deduction_in))],
+            }),
+            Cut::DoubleCheek { left, right, deduction_in, .. } => {
+                for (hand, face) in [("left", left), ("right", right)] {
+                    cuts.push(CardCut {
+                        face: CutFace::Cheek,
+                        place: format!("{place}, {hand} cheek of a double cheek"),
+                        square: face.top_edge_square.map(|square| SquareSetting {
+                            figure: square[1],
+                            against: square[0],
+                            mark_along: MarkAlong::Against,
+                            setup: format!(
+                                "on the top edge hold {} and {:.3}; mark along the {} arm",
+                                square[0], square[1], square[0]
+                            ),
+                        }),
+                        settings: angle_settings(face),
+                        mark: None,
+                        notes: vec![format!("shortened {} from the theoretical end", length(*deduction_in))],
+                    });
+                }
+            }
+            Cut::Seat { square, seat_width_in, heel_height_in, notch_depth_in, drop_in, .. } => {
+                cuts.push(CardCut {
+                    face: CutFace::Heel,
+                    place: "birdsmouth, plumb on the wall line".into(),
+                    square: Some(plumb_square(*square, words)),
+                    settings: vec![],
+                    mark: plumb_mark(side, CutFace::Heel),
+                    notes: vec![format!("height above plate {}", length(*heel_height_in))],
+                });
+                let mut notes = vec![
+                    format!("seat {} wide, level", length(*seat_width_in)),
+                    format!("notch depth {} square to the bottom edge", length(*notch_depth_in)),
+                ];
+                if *drop_in > 0.0 {
+                    notes.push(format!("dropped {} on its seat", length(*drop_in)));
+                }
+                cuts.push(CardCut {
+                    face: CutFace::Seat,
+                    place: "birdsmouth, level on the plate".into(),
+                    square: Some(SquareSetting { mark_along: MarkAlong::Against, ..plumb_square(*square, words) }),
+                    settings: vec![],
+                    mark: None,
+                    notes,
+                });
+            }
+            Cut::Tail { style: tail_style, square, faces, .. } => cuts.push(CardCut {
+                face: CutFace::TailPlumb,
+                place: match tail_style {
+                    TailCut::Square => "tail, square to the edge".into(),
+                    _ => "tail, plumb on the fascia line".into(),
+                },
+                square: Some(plumb_square(*square, words)),
+                settings: faces.first().map(angle_settings).unwrap_or_default(),
+                mark: plumb_mark(side, CutFace::TailPlumb),
+                notes: vec![],
+            }),
+            Cut::Soffit { square, length_in, .. } => cuts.push(CardCut {
+                face: CutFace::TailLevel,
+                place: "tail, level soffit cut".into(),
+                square: Some(SquareSetting { mark_along: MarkAlong::Against, ..plumb_square(*square, words) }),
+                settings: vec![],
+                mark: None,
+                notes: vec![format!("{} long on the side face", length(*length_in))],
+            }),
+            Cut::Backing { left_deg, right_deg, .. } => cuts.push(CardCut {
+                face: CutFace::Backing,
+                place: "full length, top edge".into(),
+                square: None,
+                settings: vec![
+                    AngleSetting { degrees: *left_deg, setup: format!("left side of the top: bevel {left_deg:.1} deg from level across the top") },
+                    AngleSetting { degrees: *right_deg, setup: format!("right side of the top: bevel {right_deg:.1} deg from level across the top") },
+                ],
+                mark: None,
+                notes: vec![],
+            }),
+            Cut::SquareEnd { .. } => cuts.push(CardCut {
+                face: CutFace::SquareEnd,
+                place,
+                square: None,
+                settings: vec![],
+                mark: None,
+                notes: vec!["square across".into()],
+            }),
+        }
+    }
+    cuts
+}
+
+/// One member's card, its views read off its first placed piece.
+pub fn member_card(member: &Member, pieces: &[PlacedPiece], style: LengthStyle) -> MemberCard {
+    let mine: Vec<&PlacedPiece> = pieces.iter().filter(|piece| piece.label == member.label).collect();
+    let has_cheek = member.cuts.iter().any(|cut| matches!(cut, Cut::Cheek { .. } | Cut::DoubleCheek { .. }));
+    // A piece whose placement is not finite cannot be drawn; the views come
+    // from the first one that can.
+    let (side_view, top_view) = mine
+        .iter()
+        .find(|piece| {
+            piece.axis.iter().all(|p| p.is_finite()) && piece.solid.vertices().all(|p| p.is_finite())
+        })
+        .map(|piece| views(piece, member.size.depth_in, has_cheek))
+        .unwrap_or_default();
+    let has_seat = member.cuts.iter().any(|cut| matches!(cut, Cut::Seat { .. }));
+    let sloped = member.kind != MemberKind::Ridge;
+    MemberCard {
+        label: member.label.clone(),
+        kind: kind_words(member.kind).to_string(),
+        count: u32::try_from(member.count).unwrap_or(u32::MAX),
+        size: size_words(member.size.thickness_in, member.size.depth_in, style),
+        thickness_in: member.size.thickness_in,
+        depth_in: member.size.depth_in,
+        pitch_rad: member.rise_per_run.atan(),
+        lengths: MemberLengths {
+            long_point_in: (sloped && has_cheek).then_some(member.long_point_length),
+            short_point_in: (sloped && has_cheek).then_some(member.short_point_length),
+            seat_to_top_cut_in: (sloped && has_seat).then_some(member.seat_to_top_cut),
+            tail_in: (member.tail_length > 0.0).then_some(member.tail_length),
+            overall_in: member.overall_length,
+        },
+        cuts: card_cuts(member, &side_view, style),
+        warnings: member.warnings.iter().map(|warning| warning_words(warning, style)).collect(),
+        side_view,
+        top_view,
+        places: mine.iter().map(|piece| piece.plan_line).collect(),
+    }
+}
+
+/// The lumber order's pieces: one per member, at its overall length.
+pub fn order_pieces(frame: &Frame, style: LengthStyle) -> Vec<OrderPiece> {
+    frame
+        .members
+        .iter()
+        .map(|member| OrderPiece {
+            label: member.label.clone(),
+            size: size_words(member.size.thickness_in, member.size.depth_in, style),
+            length_in: member.overall_length,
+            count: u32::try_from(member.count).unwrap_or(u32::MAX),
+        })
+        .collect()
+}
+
+/// The wall-line rings of an outline, outer first.
+pub fn outline_rings(outline: &Outline) -> Vec<Vec<DVec2>> {
+    std::iter::once(outline.outer())
+        .chain(outline.courtyards().iter().map(Vec::as_slice))
+        .map(|ring| ring.iter().map(|wall| wall.corner).collect())
+        .collect()
+}
+
+/// Everything the cut cards need, from a framed plan.
+pub fn card_deck(
+    title: &str,
+    plan: &Plan,
+    outline: &Outline,
+    roof: &Roof,
+    frame: &Frame,
+    lumber: Option<LumberOrder>,
+) -> CardDeck {
+    let style = length_style(plan);
+    CardDeck {
+        title: title.to_string(),
+        length_style: style,
+        outline: outline_rings(outline),
+        roof: roof.clone(),
+        members: frame.members.iter().map(|member| member_card(member, &frame.pieces, style)).collect(),
+        warnings: frame
+            .warnings
+            .iter()
+            .map(|warning| format!("{}: {}", warning.label(), warning_words(warning, style)))
+            .collect(),
+        lumber,
+    }
+}
+
+/// The 3D model's pieces (and optionally the roof surfaces and walls).
+pub fn model_scene(
+    outline: &Outline,
+    roof: &Roof,
+    frame: &Frame,
+    roof_surfaces: bool,
+    walls: bool,
+) -> ModelScene {
+    ModelScene {
+        pieces: frame
+            .pieces
+            .iter()
+            .map(|piece| ModelPiece {
+                label: piece.label.clone(),
+                kind: kind_words(piece.kind).to_string(),
+                axis: piece.axis,
+                faces: piece
+                    .solid
+                    .faces()
+                    .filter(|face| face.tag != FaceTag::Interior)
+                    .map(|face| ModelFace {
+                        vertices: face.vertices.clone(),
+                        cut: face_kind(face.tag, face.end),
+                    })
+                    .collect(),
+            })
+            .collect(),
+        roof_surfaces: if roof_surfaces {
+            roof.planes.iter().map(|plane| plane.eave_outline.clone()).collect()
+        } else {
+            vec![]
+        },
+        walls: if walls { outline_rings(outline) } else { vec![] },
+    }
+}
