@@ -16,8 +16,10 @@ mod picture;
 mod scene;
 mod side_panel;
 mod toolbar;
+mod triangles;
 mod triangulate;
 mod viewport;
+mod walls;
 
 use std::path::PathBuf;
 use std::sync::{Arc, Mutex};

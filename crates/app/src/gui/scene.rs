@@ -2,13 +2,12 @@
 //! the viewport can draw and the picker can hit. Lengths stay in f64 inches
 //! here; the viewport converts to f32 when it uploads.
 
-use glam::{DVec2, DVec3};
+use glam::DVec3;
 use pitchframe_geometry::framing::{FaceTag, PlacedPiece};
-use pitchframe_geometry::{
-    Frame, FramingSettings, MemberKind, Outline, Roof, RoofLineKind, Wall, frame_roof,
-};
+use pitchframe_geometry::{Frame, FramingSettings, MemberKind, Outline, Roof, RoofLineKind, frame_roof};
 
-use super::triangulate::{newell_normal, triangulate};
+pub use super::triangles::Triangles;
+use super::walls::wall_triangles;
 
 /// Width of the square bar drawn along a ridge, hip or valley line, in
 /// inches: about a board's thickness, so lines read at house scale.
@@ -48,61 +47,6 @@ pub struct ScenePiece {
 /// board as it came from the yard).
 pub fn is_cut_face(tag: FaceTag) -> bool {
     !matches!(tag, FaceTag::Side | FaceTag::Top | FaceTag::Bottom | FaceTag::Interior)
-}
-
-/// Flat-shaded triangles: three corners per triangle and one normal each.
-#[derive(Debug, Clone, Default, PartialEq)]
-pub struct Triangles {
-    /// Triangle corners, three per triangle, in inches.
-    pub corners: Vec<DVec3>,
-    /// One outward unit normal per triangle.
-    pub normals: Vec<DVec3>,
-}
-
-impl Triangles {
-    /// Adds the flat polygon `points` (counter-clockwise seen from the side
-    /// its normal should face).
-    fn push_polygon(&mut self, points: &[DVec3]) {
-        let normal = newell_normal(points).normalize_or_zero();
-        for [a, b, c] in triangulate(points) {
-            self.corners.extend_from_slice(&[points[a], points[b], points[c]]);
-            self.normals.push(normal);
-        }
-    }
-
-    /// Adds a square bar of `width` along `from..to`.
-    fn push_bar(&mut self, from: DVec3, to: DVec3, width: f64) {
-        let along = (to - from).normalize_or_zero();
-        if along == DVec3::ZERO {
-            return;
-        }
-        let side = along.cross(DVec3::Z).try_normalize().unwrap_or(DVec3::X) * (width / 2.0);
-        let up = side.cross(along).normalize_or_zero() * (width / 2.0);
-        let corners = [side + up, -side + up, -side - up, side - up];
-        for k in 0..4 {
-            let (p, q) = (corners[k], corners[(k + 1) % 4]);
-            self.push_quad(from + q, from + p, to + p, to + q);
-        }
-    }
-
-    /// Adds the planar quad `a b c d` (counter-clockwise seen from outside).
-    fn push_quad(&mut self, a: DVec3, b: DVec3, c: DVec3, d: DVec3) {
-        let normal = (b - a).cross(d - a).normalize_or_zero();
-        self.corners.extend_from_slice(&[a, b, c, a, c, d]);
-        self.normals.extend_from_slice(&[normal, normal]);
-    }
-
-    /// The box round every corner, `None` when there are none.
-    pub fn bounds(&self) -> Option<(DVec3, DVec3)> {
-        let mut corners = self.corners.iter().copied();
-        let first = corners.next()?;
-        Some(corners.fold((first, first), |(min, max), p| (min.min(p), max.max(p))))
-    }
-
-    /// Number of triangles.
-    pub fn len(&self) -> usize {
-        self.normals.len()
-    }
 }
 
 /// One drawable group of triangles.
@@ -240,74 +184,6 @@ fn bounds(parts: &[ScenePart]) -> (DVec3, DVec3) {
     corners.fold((first, first), |(min, max), p| (min.min(p), max.max(p)))
 }
 
-/// Walls stood on every ring of the outline: outside face on the wall line,
-/// inside face `thickness` in, tops level at `height`.
-fn wall_triangles(outline: &Outline, height_in: f64, thickness_in: f64) -> Triangles {
-    let mut triangles = Triangles::default();
-    let corners = |ring: &[Wall]| ring.iter().map(|wall| wall.corner).collect::<Vec<_>>();
-    // The building lies inside the outer ring and outside each courtyard
-    // ring; each ring is turned so the building is on its left.
-    let mut outer = corners(outline.outer());
-    if signed_area(&outer) < 0.0 {
-        outer.reverse();
-    }
-    add_ring(&mut triangles, &outer, height_in, thickness_in);
-    for ring in outline.courtyards() {
-        let mut ring = corners(ring);
-        if signed_area(&ring) > 0.0 {
-            ring.reverse();
-        }
-        add_ring(&mut triangles, &ring, height_in, thickness_in);
-    }
-    triangles
-}
-
-/// The signed area of a ring, positive when counter-clockwise.
-fn signed_area(ring: &[DVec2]) -> f64 {
-    let count = ring.len();
-    (0..count).map(|i| ring[i].perp_dot(ring[(i + 1) % count])).sum::<f64>() / 2.0
-}
-
-/// One closed ring of wall whose building side is on the ring's left.
-fn add_ring(triangles: &mut Triangles, outer: &[DVec2], height_in: f64, thickness_in: f64) {
-    let Some(inner) = inset_ring(outer, thickness_in) else {
-        return;
-    };
-    let up = DVec3::Z * height_in;
-    let count = outer.len();
-    for i in 0..count {
-        let j = (i + 1) % count;
-        let (o0, o1) = (outer[i].extend(0.0), outer[j].extend(0.0));
-        let (i0, i1) = (inner[i].extend(0.0), inner[j].extend(0.0));
-        // Outside face, seen from outside: bottom left to right, then up.
-        triangles.push_quad(o0, o1, o1 + up, o0 + up);
-        // Inside face, seen from the room.
-        triangles.push_quad(i1, i0, i0 + up, i1 + up);
-        // Top of the wall.
-        triangles.push_quad(o0 + up, o1 + up, i1 + up, i0 + up);
-    }
-}
-
-/// The ring offset `inset_in` to the left of each edge, corners mitred.
-/// `None` when two neighbouring edges fold back on each other (no mitre).
-fn inset_ring(ring: &[DVec2], inset_in: f64) -> Option<Vec<DVec2>> {
-    let count = ring.len();
-    let left_normal = |from: DVec2, to: DVec2| (to - from).normalize_or_zero().perp();
-    (0..count)
-        .map(|i| {
-            let prev = ring[(i + count - 1) % count];
-            let here = ring[i];
-            let next = ring[(i + 1) % count];
-            let n_in = left_normal(prev, here);
-            let n_out = left_normal(here, next);
-            // The mitre point lies inset from both edges: p . n_k = inset
-            // for both normals, solved as p = inset (n1 + n2) / (1 + n1.n2).
-            let denominator = 1.0 + n_in.dot(n_out);
-            (denominator > 1e-9).then(|| here + inset_in * (n_in + n_out) / denominator)
-        })
-        .collect()
-}
-
 #[cfg(test)]
 mod tests {
     use approx::assert_abs_diff_eq;
@@ -318,18 +194,6 @@ mod tests {
     fn demo_scene() -> Scene {
         let outline = pitchframe_geometry::demo_plan().unwrap().outline().unwrap();
         Scene::build(&outline, 96.0, 6.0)
-    }
-
-    #[test]
-    fn inset_of_a_square_is_a_smaller_square() {
-        let square =
-            [DVec2::new(0.0, 0.0), DVec2::new(10.0, 0.0), DVec2::new(10.0, 10.0), DVec2::new(0.0, 10.0)];
-        let inner = inset_ring(&square, 1.0).unwrap();
-        // Derivation: a counter-clockwise square inset by 1 on every side.
-        assert_abs_diff_eq!(inner[0].x, 1.0, epsilon = 1e-12);
-        assert_abs_diff_eq!(inner[0].y, 1.0, epsilon = 1e-12);
-        assert_abs_diff_eq!(inner[2].x, 9.0, epsilon = 1e-12);
-        assert_abs_diff_eq!(inner[2].y, 9.0, epsilon = 1e-12);
     }
 
     #[test]
