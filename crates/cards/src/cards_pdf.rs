@@ -416,8 +416,14 @@ fn side_elevation(page: &mut Page, member: &MemberCard, area: Area, base: f64, s
         if let (Some(tail_mark), Some(tail)) = (mark_of(CutFace::TailPlumb), member.lengths.tail_in) {
             let text = format!("tail {}", length_text(tail, style));
             let (from, to) = (fit.at(tail_mark.edge_point).x, fit.at(heel.edge_point).x);
-            let offset = if to - from < text_width(&text, base, false) { base * 3.0 } else { base * 1.4 };
-            dimension(page, DVec2::new(from, top_y), DVec2::new(to, top_y), offset, &text, base);
+            if to - from < text_width(&text, base, false) + base {
+                // Too short to hold its words: draw the line bare and write
+                // the words just past the heel, clear of the heading.
+                dimension(page, DVec2::new(from, top_y), DVec2::new(to, top_y), base * 1.4, "", base);
+                page.text(DVec2::new(to + base * 0.5, top_y + base * 1.6), base, false, &text);
+            } else {
+                dimension(page, DVec2::new(from, top_y), DVec2::new(to, top_y), base * 1.4, &text, base);
+            }
         }
     }
 }
