@@ -231,3 +231,37 @@ fn every_joint_of_a_hip_roof_fits_within_a_64th() {
         frame.warnings
     );
 }
+
+#[test]
+fn the_parry_check_sees_a_jack_moved_off_its_hip() {
+    // The independent check must fail a bad joint: move one jack 1/8 in
+    // back from the hip and it reads a 1/8 in gap; push it 1/8 in in and it
+    // reads a 1/8 in overlap.
+    let (outline, roof) = rect_hip(720.0, 300.0, 0.5, 0.5, 16.0);
+    let frame = frame_roof(&outline, &roof, &spaced(16.0)).unwrap();
+    let joint = frame.joints.iter().find(|j| frame.pieces[j.pieces[0]].kind == MemberKind::HipJack).unwrap();
+    let (gap, overlap, _) = framing_support::parry_fit::fit(&frame, joint.pieces[0], joint.pieces[1]);
+    assert!(gap < 1e-6 && overlap < 1e-6);
+    let cheek = frame.pieces[joint.pieces[0]]
+        .solid
+        .faces()
+        .find(|f| f.tag == pitchframe_geometry::framing::FaceTag::Cheek)
+        .unwrap()
+        .normal;
+    for (shift, want_gap, want_overlap) in [(-0.125, 0.125, 0.0), (0.125, 0.0, 0.125)] {
+        let mut moved = frame.clone();
+        for part in &mut moved.pieces[joint.pieces[0]].solid.parts {
+            for v in &mut part.vertices {
+                *v += cheek * shift;
+            }
+            for f in &mut part.faces {
+                for v in &mut f.vertices {
+                    *v += cheek * shift;
+                }
+            }
+        }
+        let (gap, overlap, _) = framing_support::parry_fit::fit(&moved, joint.pieces[0], joint.pieces[1]);
+        assert_abs_diff_eq!(gap, want_gap, epsilon = 1e-6);
+        assert_abs_diff_eq!(overlap, want_overlap, epsilon = 1e-6);
+    }
+}

@@ -681,15 +681,19 @@ impl Ctx<'_> {
         // A hip that starts up on the roof (where a valley and a ridge end)
         // has no seat: it sits against what is framed there first.
         let seated = line.from_z.abs() < 1e-6;
+        let mut foot_without_ridge = false;
         let mut foot_cuts = Vec::new();
         if !seated {
             for (k, other) in self.lines.iter().enumerate() {
+                // Hips meeting hips with no ridge are flagged for a fitted
+                // block instead (below).
                 let meets = match other.kind {
                     RoofLineKind::Ridge => other.touches(line.from),
-                    _ => {
+                    RoofLineKind::Valley => {
                         other.to.distance(line.from) < PLAN_TOL_IN * 1e3
                             && other.from.distance(line.from) > PLAN_TOL_IN * 1e3
                     }
+                    RoofLineKind::Hip => false,
                 };
                 if !meets || std::ptr::eq(other, line) {
                     continue;
@@ -709,6 +713,7 @@ impl Ctx<'_> {
                 bearings.push((usize::MAX - k, h));
             }
             if foot_cuts.is_empty() {
+                foot_without_ridge = true;
                 foot_cuts.extend(HalfSpace::through(
                     line.from.extend(line.from_z),
                     (line.from - line.to).extend(0.0),
@@ -790,7 +795,7 @@ impl Ctx<'_> {
             has_tail,
             drop_in,
         };
-        Some((spec, bearings, peak_without_ridge))
+        Some((spec, bearings, peak_without_ridge || foot_without_ridge))
     }
 
     /// A valley: its centre line in both planes, seated over the inside

@@ -47,6 +47,21 @@ pub fn check_fit(
     bearing_top: Option<&HalfSpace>,
 ) -> JointFit {
     let tol = 1e-6;
+    // Only the bearing's parts near the cut piece matter (a rafter against
+    // a long ridge meets one short stretch of it).
+    let (lo, hi) = bounds(cut.vertices());
+    let near = Solid {
+        parts: bearing
+            .parts
+            .iter()
+            .filter(|part| {
+                let (plo, phi) = bounds(part.vertices.iter().copied());
+                plo.cmple(hi + NEAR_IN).all() && phi.cmpge(lo - NEAR_IN).all()
+            })
+            .cloned()
+            .collect(),
+    };
+    let bearing = &near;
     let mut fit = JointFit { max_gap: 0.0, max_overlap: 0.0, max_hang: 0.0 };
     let mating_corners = cut
         .faces()
@@ -76,6 +91,17 @@ pub fn check_fit(
         fit.max_overlap = fit.max_overlap.max(cut.depth_of(p));
     }
     fit
+}
+
+/// How far past the cut piece's box a bearing part may lie and still be
+/// checked, inches.
+const NEAR_IN: f64 = 1.0;
+
+/// The corner-wise bounds of some points.
+fn bounds(points: impl Iterator<Item = glam::DVec3>) -> (glam::DVec3, glam::DVec3) {
+    points.fold((glam::DVec3::splat(f64::INFINITY), glam::DVec3::splat(f64::NEG_INFINITY)), |(lo, hi), p| {
+        (lo.min(p), hi.max(p))
+    })
 }
 
 /// Where the line `p + t u` enters the convex region of `planes` (the

@@ -68,8 +68,9 @@ pub enum FramingWarning {
         /// The longest stock, inches.
         longest_stock_in: f64,
     },
-    /// Hips meet at a point with no ridge: their tops are cut plumb at the
-    /// theoretical peak and need a fitted block or hub.
+    /// Hips meet at a point with no ridge (a peak, or where two hips merge
+    /// into one on an irregular plan): the ends there are cut plumb, square
+    /// to the hip, at the theoretical point, and need a fitted block or hub.
     HipsMeetWithoutRidge {
         /// The hip.
         label: String,
