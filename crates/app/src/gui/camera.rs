@@ -33,6 +33,8 @@ pub struct OrbitCamera {
     pub fov_y_rad: f64,
     /// Radius of the sphere holding the scene, which scales zoom limits.
     scene_radius_in: f64,
+    /// Centre of that sphere, where preset views aim.
+    scene_centre: DVec3,
 }
 
 /// A ray from the eye through a point on the screen.
@@ -56,14 +58,16 @@ impl OrbitCamera {
             elevation_rad: 0.0,
             fov_y_rad,
             scene_radius_in,
+            scene_centre: (min + max) / 2.0,
         };
         camera.set_view(view);
         camera
     }
 
-    /// Turns the camera to a preset direction and backs off far enough to
-    /// see the whole scene.
+    /// Turns the camera to a preset direction, aimed at the middle of the
+    /// scene and far enough back to see all of it.
     pub fn set_view(&mut self, view: ViewPreset) {
+        self.target = self.scene_centre;
         let (azimuth_deg, elevation_deg) = match view {
             ViewPreset::Corner => (-60.0, 28.0),
             ViewPreset::Top => (-90.0, 90.0),
@@ -241,6 +245,15 @@ mod tests {
             let at = cam.project(corner, size).unwrap();
             assert!(at.x > 0.0 && at.x < 800.0 && at.y > 0.0 && at.y < 600.0, "{at:?} outside the view");
         }
+    }
+
+    #[test]
+    fn a_preset_view_after_a_focus_shows_the_whole_scene_again() {
+        let mut cam = camera(ViewPreset::Corner);
+        let before = cam;
+        cam.focus(DVec3::new(100.0, 10.0, 96.0), DVec3::new(110.0, 12.0, 104.0));
+        cam.set_view(ViewPreset::Corner);
+        assert_eq!(cam, before);
     }
 
     #[test]

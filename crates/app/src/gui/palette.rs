@@ -12,6 +12,9 @@ pub const BACKGROUND: [u8; 3] = [206, 218, 232];
 /// The picked piece's body: a magenta that no member kind uses, lit.
 pub const HIGHLIGHT: [u8; 3] = [240, 0, 200];
 
+/// The other pieces of the picked member: a pale version of the highlight.
+pub const SAME_MEMBER: [u8; 3] = [245, 160, 225];
+
 /// The colour a part is drawn in before lighting.
 pub fn part(kind: PartKind) -> [u8; 3] {
     match kind {

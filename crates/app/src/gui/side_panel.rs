@@ -247,7 +247,8 @@ fn legend_ui(ui: &mut egui::Ui, scene: &Scene) {
     for kind in palette::MEMBER_KINDS.into_iter().filter(|&kind| present(kind)) {
         swatch(ui, palette::member(kind), palette::member_name(kind));
     }
-    swatch(ui, palette::HIGHLIGHT, "Picked member");
+    swatch(ui, palette::HIGHLIGHT, "Picked piece");
+    swatch(ui, palette::SAME_MEMBER, "Other pieces of the picked member");
     for tag in palette::CUT_TAGS {
         swatch(ui, palette::cut(tag), palette::cut_name(tag));
     }

@@ -67,6 +67,9 @@ struct Highlight {
     piece: usize,
     body: Option<Gm<Mesh, PhysicalMaterial>>,
     cuts: Vec<Gm<Mesh, ColorMaterial>>,
+    /// The other pieces cut to the same member, so the framer sees where
+    /// each one goes.
+    siblings: Option<Gm<Mesh, PhysicalMaterial>>,
 }
 
 /// GL-side state for the 3D view, created once per window.
@@ -168,7 +171,24 @@ impl Renderer {
                         })
                     })
                     .collect();
-                Highlight { scene: Arc::clone(scene), piece: index, body, cuts }
+                let mut siblings = Triangles::default();
+                let same_member = scene
+                    .pieces
+                    .iter()
+                    .enumerate()
+                    .filter(|&(other, p)| other != index && p.label == piece.label);
+                for (_, sibling) in same_member {
+                    let faces = overlay_triangles(sibling, |_| true);
+                    siblings.corners.extend(faces.corners);
+                    siblings.normals.extend(faces.normals);
+                }
+                let siblings = (siblings.len() > 0).then(|| {
+                    Gm::new(
+                        Mesh::new(&self.context, &cpu_mesh(&siblings)),
+                        self.lit_material(palette::SAME_MEMBER, 255),
+                    )
+                });
+                Highlight { scene: Arc::clone(scene), piece: index, body, cuts, siblings }
             },
         );
     }
@@ -225,6 +245,7 @@ impl Renderer {
         if let Some(highlight) = &self.highlight {
             objects.extend(highlight.body.iter().map(|gm| gm as &dyn Object));
             objects.extend(highlight.cuts.iter().map(|gm| gm as &dyn Object));
+            objects.extend(highlight.siblings.iter().map(|gm| gm as &dyn Object));
         }
         target.clear_partially(scissor, ClearState::color_and_depth(r, g, b, 1.0, 1.0)).render_partially(
             scissor,
