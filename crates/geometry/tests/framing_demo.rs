@@ -38,3 +38,39 @@ fn demo_house_frames_every_member_kind_and_every_joint_fits() {
     );
     assert!(frame.warnings.iter().any(|w| matches!(w, FramingWarning::BevelBeyondSaw { bevel_deg, .. } if (*bevel_deg - 56.30993).abs() < 1e-4)));
 }
+
+#[test]
+fn demo_house_cripples_shorten_by_two_spaces() {
+    let plan = demo_plan().unwrap();
+    let outline = plan.outline().unwrap();
+    let roof = Roof::solve(&outline).unwrap();
+    let settings = FramingSettings::default();
+    let frame = frame_roof(&outline, &roof, &settings).unwrap();
+    let mut cripples: Vec<&pitchframe_geometry::Member> =
+        frame.members.iter().filter(|m| m.kind == MemberKind::CrippleJack).collect();
+    assert!(cripples.len() >= 2);
+    cripples.sort_by(|a, b| a.run.total_cmp(&b.run));
+    // Derivation: the cripples run square to the 6/12 north eave between
+    // a valley and a hip that are square to each other at 45 degrees, so
+    // each space along the wall takes a space off both ends: consecutive
+    // runs differ by twice the spacing, lengths by that at the common's
+    // factor sqrt(1 + 0.5^2); both cheeks are cut 45 deg on the face.
+    for w in cripples.windows(2) {
+        approx::assert_abs_diff_eq!(w[1].run - w[0].run, 2.0 * settings.spacing_in, epsilon = 1e-9);
+    }
+    for c in cripples {
+        approx::assert_abs_diff_eq!(c.theoretical_length, c.run * 1.25f64.sqrt(), epsilon = 1e-9);
+        let cheeks: Vec<f64> = c
+            .cuts
+            .iter()
+            .filter_map(|cut| match cut {
+                pitchframe_geometry::framing::Cut::Cheek { face_bevel_deg, .. } => Some(*face_bevel_deg),
+                _ => None,
+            })
+            .collect();
+        assert_eq!(cheeks.len(), 2, "{}: {:?}", c.label, c.cuts);
+        for b in cheeks {
+            approx::assert_abs_diff_eq!(b, 45.0, epsilon = 1e-9);
+        }
+    }
+}

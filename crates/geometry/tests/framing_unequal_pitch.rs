@@ -119,3 +119,26 @@ fn regular_hip_roof_joints_fit_by_parry() {
         assert_joints_fit(&frame);
     }
 }
+
+#[test]
+fn irregular_hip_drops_by_the_larger_side() {
+    let (ra, rb) = (8.0 / 12.0, 14.0 / 12.0);
+    let settings = FramingSettings {
+        hip_top: pitchframe_geometry::framing::HipTop::Dropped,
+        ..FramingSettings::default()
+    };
+    let (outline, roof) = rect_hip(720.0, 360.0, ra, rb, 12.0);
+    let frame = frame_roof(&outline, &roof, &settings).unwrap();
+    let hip = of_kind(&frame, MemberKind::Hip)[0];
+    let Some(Cut::Seat { drop_in, .. }) = hip.cuts.iter().find(|c| matches!(c, Cut::Seat { .. })) else {
+        panic!()
+    };
+    // trade.md section 4: each side drops (t/2) tan(theta) cos(beta), beta
+    // the plan angle between the hip and that side's plate
+    // (tan beta_A = R_b / R_a); a dropped irregular hip takes the larger.
+    let beta_a = (rb / ra).atan();
+    let beta_b = std::f64::consts::FRAC_PI_2 - beta_a;
+    let larger = (0.75 * ra * beta_a.cos()).max(0.75 * rb * beta_b.cos());
+    assert_abs_diff_eq!(*drop_in, larger, epsilon = 1e-9);
+    assert_joints_fit(&frame);
+}

@@ -31,9 +31,26 @@ pub struct Frame {
     pub warnings: Vec<FramingWarning>,
 }
 
+/// What a piece bears on, as known while pieces are still being built.
+#[derive(Debug, Clone, Copy, PartialEq)]
+enum Bearing {
+    /// A piece already built, by index.
+    Piece(usize),
+    /// The member built on a roof line, by line index (a ridge line may
+    /// have several pieces; the nearest is taken).
+    Line(usize),
+}
+
 /// A joint recorded while pieces are built: `cut` was cut by `mating` to
 /// bear on `bearing`.
 struct JointSpec {
+    cut: usize,
+    bearing: Bearing,
+    mating: HalfSpace,
+}
+
+/// A joint with both pieces known.
+struct ResolvedJoint {
     cut: usize,
     bearing: usize,
     mating: HalfSpace,
@@ -41,10 +58,28 @@ struct JointSpec {
 
 /// Frames a solved roof over its outline.
 ///
+/// Lays rafter lines square to each wall at the spacing, builds every piece
+/// as a solid and reads its lengths and cuts off it, groups identical
+/// pieces under one label, and checks the fit of every joint.
+///
 /// ```
-/// use pitchframe_geometry::framing::FramingSettings;
-/// let settings = FramingSettings::default();
-/// assert_eq!(settings.spacing_in, 24.0);
+/// use glam::dvec2;
+/// use pitchframe_geometry::framing::{FramingSettings, MemberKind, frame_roof};
+/// use pitchframe_geometry::{Outline, Roof, Wall, WallRoof};
+///
+/// // A 40 ft x 24 ft house hipped all round at 6 in 12, 16 in overhangs.
+/// let corners = [dvec2(0.0, 0.0), dvec2(480.0, 0.0), dvec2(480.0, 288.0), dvec2(0.0, 288.0)];
+/// let walls = corners
+///     .iter()
+///     .map(|&corner| Wall { corner, roof: WallRoof::Pitched { rise_per_run: 0.5 }, overhang_in: 16.0 })
+///     .collect();
+/// let outline = Outline::new(walls, Vec::new()).unwrap();
+/// let roof = Roof::solve(&outline).unwrap();
+/// let frame = frame_roof(&outline, &roof, &FramingSettings::default()).unwrap();
+/// let common = frame.members.iter().find(|m| m.kind == MemberKind::Common).unwrap();
+/// // 12 ft of run at 13.42 in per foot: 161.0 in.
+/// assert!((common.theoretical_length - 144.0 * 1.25f64.sqrt()).abs() < 1e-6);
+/// assert!(frame.joints.iter().all(|j| j.max_gap < 1.0 / 64.0 && j.max_overlap < 1.0 / 64.0));
 /// ```
 pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) -> Result<Frame, FramingError> {
     validate(outline, settings)?;
@@ -108,7 +143,11 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             {
                 // The splice: the earlier piece's end face against this one.
                 let flipped = HalfSpace { normal: -mating.normal, offset: -mating.offset, ..mating };
-                joint_specs.push(JointSpec { cut: first + k - 1, bearing: first + k, mating: flipped });
+                joint_specs.push(JointSpec {
+                    cut: first + k - 1,
+                    bearing: Bearing::Piece(first + k),
+                    mating: flipped,
+                });
             }
             ridge_pieces[li].push(specs.len());
             specs.push(spec);
@@ -139,10 +178,10 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         let index = specs.len();
         rafter_piece[ri] = Some(index);
         if let Some((li, mating)) = upper_bearing {
-            joint_specs.push(JointSpec { cut: index, bearing: usize::MAX - li, mating });
+            joint_specs.push(JointSpec { cut: index, bearing: Bearing::Line(li), mating });
         }
         if let Some((li, mating)) = lower_bearing {
-            joint_specs.push(JointSpec { cut: index, bearing: usize::MAX - li, mating });
+            joint_specs.push(JointSpec { cut: index, bearing: Bearing::Line(li), mating });
         }
         specs.push(spec);
     }
@@ -169,23 +208,29 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         specs.push(spec);
     }
 
-    // Bearing pieces named by roof line become piece indices now.
-    for j in &mut joint_specs {
-        if j.bearing > specs.len() {
-            let li = usize::MAX - j.bearing;
-            let bearing = match lines.get(li).map(|l| l.kind) {
-                Some(RoofLineKind::Ridge) => {
-                    let end = if j.mating.end == Some(CutEnd::Bottom) { 0 } else { 1 };
-                    let cut_point = specs[j.cut].plan_line[end];
-                    ridge_piece_at(li, cut_point, &specs)
-                }
-                Some(_) => line_piece.get(li).copied().flatten(),
-                None => None,
-            };
-            j.bearing = bearing.unwrap_or(usize::MAX);
-        }
-    }
-    joint_specs.retain(|j| j.bearing < specs.len());
+    // Bearings named by roof line become pieces now that all are built.
+    let joint_specs: Vec<ResolvedJoint> = joint_specs
+        .into_iter()
+        .filter_map(|j| {
+            let bearing = match j.bearing {
+                Bearing::Piece(i) => Some(i),
+                Bearing::Line(li) => match lines.get(li).map(|l| l.kind) {
+                    Some(RoofLineKind::Ridge) => {
+                        let end = if j.mating.end == Some(CutEnd::Bottom) { 0 } else { 1 };
+                        let cut_point = specs.get(j.cut)?.plan_line[end];
+                        ridge_piece_at(li, cut_point, &specs)
+                    }
+                    Some(_) => line_piece.get(li).copied().flatten(),
+                    None => None,
+                },
+            }?;
+            (bearing < specs.len() && j.cut < specs.len()).then_some(ResolvedJoint {
+                cut: j.cut,
+                bearing,
+                mating: j.mating,
+            })
+        })
+        .collect();
 
     let solids: Vec<_> = specs.iter().map(PieceSpec::solid).collect();
     let measured: Vec<Measured> =
@@ -424,7 +469,7 @@ struct Ctx<'a> {
 
 /// A hip or valley: its spec, the pieces it bears on with the mating
 /// planes, and whether its top met no ridge.
-type Built = (PieceSpec, Vec<(usize, HalfSpace)>, bool);
+type Built = (PieceSpec, Vec<(Bearing, HalfSpace)>, bool);
 
 /// A bearing named by roof line (resolved to a piece later) with the
 /// mating plane.
@@ -710,7 +755,7 @@ impl Ctx<'_> {
                 };
                 h.tag = cut_tag(&h, &frame);
                 foot_cuts.push(h);
-                bearings.push((usize::MAX - k, h));
+                bearings.push((Bearing::Line(k), h));
             }
             if foot_cuts.is_empty() {
                 foot_without_ridge = true;
@@ -740,7 +785,7 @@ impl Ctx<'_> {
                     h.tag = cut_tag(&h, &frame);
                     upper_cuts.push(h);
                     if let Some(Some(piece)) = rafter_piece.get(ki) {
-                        bearings.push((*piece, h));
+                        bearings.push((Bearing::Piece(*piece), h));
                     }
                 }
                 None => peak_without_ridge = true,
@@ -862,7 +907,7 @@ impl Ctx<'_> {
             drop_in: 0.0,
         };
         // Ridge bearings are resolved to pieces by the caller.
-        let bearings = ridges.into_iter().map(|(ri, h)| (usize::MAX - ri, h)).collect();
+        let bearings = ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).collect();
         Some((spec, bearings, false))
     }
 }
