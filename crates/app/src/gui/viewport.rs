@@ -17,6 +17,7 @@ use three_d::{
 
 use super::camera::OrbitCamera;
 use super::palette;
+use super::pick::pick;
 use super::scene::{PartKind, Scene, ScenePiece, Triangles, is_cut_face};
 
 /// Opacity of the roof planes in the framing view: enough to see the
@@ -344,6 +345,22 @@ pub fn viewport_ui(
         .then(|| response.interact_pointer_pos())
         .flatten()
         .map(|pos| DVec2::new(f64::from(pos.x - rect.left()), f64::from(pos.y - rect.top())));
+
+    // Name the member under the pointer, so a framer can find one before
+    // picking it.
+    let hovered = response
+        .hover_pos()
+        .filter(|_| !style.client_view && !response.dragged())
+        .and_then(|pos| {
+            let at = DVec2::new(f64::from(pos.x - rect.left()), f64::from(pos.y - rect.top()));
+            let size = DVec2::new(f64::from(rect.width()), f64::from(rect.height()));
+            pick(scene, &camera.ray(at, size))
+        })
+        .and_then(|hit| scene.pieces.get(hit.piece));
+    if let Some(piece) = hovered {
+        let text = format!("{}  {}", piece.label, palette::member_name(piece.kind));
+        response.clone().on_hover_text_at_pointer(text);
+    }
 
     let renderer = Arc::clone(renderer);
     let frame = FrameInput { scene: Arc::clone(scene), camera: *camera, style, picked };
