@@ -1,1 +1,35 @@
-fn main() {}
+//! Pitchframe: the desktop app and its command line.
+
+mod cli;
+mod gui;
+
+use std::io::Write;
+use std::process::ExitCode;
+
+use clap::Parser;
+
+fn main() -> ExitCode {
+    let args = cli::Cli::parse();
+    if let Some(command) = &args.command {
+        return match cli::run(command) {
+            Ok(text) => {
+                // A closed pipe (`pitchframe table 7/12 | head`) is not an error.
+                let mut out = std::io::stdout().lock();
+                let _ = writeln!(out, "{}", text.trim_end());
+                ExitCode::SUCCESS
+            }
+            Err(cli::UserError(message)) => {
+                eprintln!("pitchframe: {message}");
+                ExitCode::from(2)
+            }
+        };
+    }
+    let options = gui::GuiOptions { plan_path: args.plan, picture: args.picture, view: args.view };
+    match gui::run(options) {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(e) => {
+            eprintln!("pitchframe: {e:#}");
+            ExitCode::from(1)
+        }
+    }
+}
