@@ -23,7 +23,7 @@ use crate::{Outline, Wall, WallRoof};
 use skeleton::eaves::{EdgeSide, eave_outline};
 use skeleton::lines::WallLine;
 use skeleton::tolerance::Tolerance;
-use skeleton::{Ring, Skeleton};
+use skeleton::{Ring, Skeleton, SkeletonError};
 
 /// The kind of line where two roof planes meet.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
@@ -132,6 +132,12 @@ pub enum RoofError {
         /// The pitched wall in line with it (global index).
         wall: usize,
     },
+    /// Part of the plan is ringed by gable walls only, so no roof plane reaches it.
+    #[error("walls {} are all gables round part of the plan that no roof plane reaches; make one of them pitched", list_walls(.walls))]
+    GablesOnly {
+        /// The gable walls round the unroofed part (global indices).
+        walls: Vec<usize>,
+    },
     /// The solver met a configuration it could not resolve.
     #[error("the roof could not be solved: {reason}")]
     Unsolvable {
@@ -234,8 +240,26 @@ impl Roof {
             }
         }
 
-        let sk = skeleton::solve(lines, &rings, tol).map_err(|reason| RoofError::Unsolvable { reason })?;
+        let sk = skeleton::solve(lines, &rings, tol).map_err(|e| match e {
+            SkeletonError::Unroofed { walls } => RoofError::GablesOnly { walls },
+            SkeletonError::FaceOpen { wall } => RoofError::Unsolvable {
+                reason: format!("the roof plane over wall {} does not close", wall + 1),
+            },
+            SkeletonError::TooManyEvents => {
+                RoofError::Unsolvable { reason: "the solve did not settle (too many events)".into() }
+            }
+        })?;
         Ok(build_roof(&sk, &tol))
+    }
+}
+
+/// Wall numbers as people count them: "1, 2 and 3".
+fn list_walls(walls: &[usize]) -> String {
+    let names: Vec<String> = walls.iter().map(|w| (w + 1).to_string()).collect();
+    match names.split_last() {
+        Some((last, rest)) if !rest.is_empty() => format!("{} and {last}", rest.join(", ")),
+        Some((last, _)) => last.clone(),
+        None => String::new(),
     }
 }
 

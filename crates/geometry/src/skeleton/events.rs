@@ -93,7 +93,10 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
     for (i, &[nx, ny, offset, speed]) in wf.packed_lines.iter().enumerate() {
         let d0 = nx * anchor.x + ny * anchor.y - offset - speed * t0;
         let rate = nx * vel.x + ny * vel.y - speed;
-        if d0 < -wf.tol.point || rate >= 0.0 || own.contains(&i) {
+        // A vertex born at an event on a line that passes through its birth
+        // point has already been resolved against it there.
+        let born_on_line = t0 > 0.0 && d0 <= wf.tol.point;
+        if d0 < -wf.tol.point || rate >= 0.0 || own.contains(&i) || born_on_line {
             continue;
         }
         let t = t0 + d0.max(0.0) / -rate;

@@ -57,9 +57,27 @@ pub(crate) struct Skeleton {
     pub lines: Vec<WallLine>,
 }
 
+/// Why the skeleton could not be completed.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub(crate) enum SkeletonError {
+    /// Part of the plan is ringed by gable walls only (global indices):
+    /// no roof plane ever reaches it.
+    Unroofed {
+        /// The gable walls round it.
+        walls: Vec<usize>,
+    },
+    /// The face over a wall did not close into one outline (a solver fault).
+    FaceOpen {
+        /// Global wall index.
+        wall: usize,
+    },
+    /// The event count ran past its bound (a solver fault).
+    TooManyEvents,
+}
+
 /// Computes the skeleton of `rings` (the first the outer ring) over the
 /// wall `lines` (indexed by global wall index).
-pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Result<Skeleton, String> {
+pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Result<Skeleton, SkeletonError> {
     let n = lines.len();
     let packed_lines = lines.iter().map(|l| [l.normal.x, l.normal.y, l.offset, l.speed]).collect();
     let mut wf = Wavefront {
@@ -115,7 +133,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
     while let Some(first) = pop_valid(&mut wf, &mut heap, f64::INFINITY) {
         steps += 1;
         if steps > limit {
-            return Err("the wavefront did not settle (too many events)".into());
+            return Err(SkeletonError::TooManyEvents);
         }
         let t0 = first.0.time;
         let mut batch = vec![first];
@@ -134,9 +152,22 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         schedule(&mut wf, &mut heap, &touched, t0);
     }
 
-    if let Some(v) = wf.vertices.iter().find(|v| v.alive && v.vel.length() > 0.0) {
-        let wall = wf.lines.get(v.in_line).map_or(0, |l| l.wall) + 1;
-        return Err(format!("the roof never closes above wall {wall}"));
+    if let Some(v) = wf.vertices.iter().position(|v| v.alive) {
+        // What is left is ringed by walls that no longer move: gables only.
+        let mut walls = Vec::new();
+        let mut u = v;
+        for _ in 0..wf.vertices.len() {
+            if let Some(x) = wf.vertices.get(u) {
+                walls.push(x.out_line);
+            }
+            u = wf.next(u);
+            if u == v {
+                break;
+            }
+        }
+        walls.sort_unstable();
+        walls.dedup();
+        return Err(SkeletonError::Unroofed { walls });
     }
 
     let mut faces = vec![Vec::new(); n];
@@ -148,7 +179,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         };
         match faces::chain_face((s, e), arcs) {
             Some(chain) => *face = chain,
-            None => return Err(format!("the roof plane over wall {} does not close", w + 1)),
+            None => return Err(SkeletonError::FaceOpen { wall: w }),
         }
     }
     Ok(Skeleton { nodes: wf.nodes, faces, lines: wf.lines })

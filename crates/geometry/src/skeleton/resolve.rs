@@ -104,7 +104,10 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         }
         let mut first = v;
         let mut whole_cycle = false;
-        loop {
+        // Runs are at most the whole member set long; the bound only guards
+        // against a broken cycle.
+        let bound = members.len() + 1;
+        for _ in 0..bound {
             let pv = wf.prev(first);
             if !members.contains(&pv) {
                 break;
@@ -117,7 +120,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         }
         let mut last = first;
         seen.insert(first);
-        loop {
+        for _ in 0..bound {
             let nv = wf.next(last);
             if whole_cycle && nv == first {
                 if let Some(x) = wf.vertices.get(last) {
@@ -155,7 +158,27 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         rays.push(Ray { angle: angle_of(l.dir), leaving: true, edge: e, through: Some(i) });
     }
 
-    // Retire the members at one node.
+    // Retire the members at one node, placed where the lines met there
+    // cross best (least squares), which is closer than the events' mean.
+    let mut met: Vec<usize> = Vec::new();
+    for &v in &sorted {
+        if let Some(x) = wf.vertices.get(v) {
+            met.push(x.in_line);
+            met.push(x.out_line);
+        }
+    }
+    met.extend(through.iter().map(|&e| wf.edge_line(e)));
+    met.sort_unstable();
+    met.dedup();
+    // Only when the mean misses a line noticeably: refining a point that
+    // already sits on every line would only add rounding.
+    let residual =
+        met.iter().filter_map(|&i| wf.lines.get(i)).map(|l| l.distance_at(p, t).abs()).fold(0.0, f64::max);
+    let (p, t) = if residual > 1e-3 * wf.tol.point {
+        refine_in_time(wf, &met, p, t, near).unwrap_or((refine(wf, &met, p, t, near), t))
+    } else {
+        (p, t)
+    };
     let node = wf.add_node(p, t);
     for &v in &sorted {
         wf.retire(v, node);
@@ -220,6 +243,69 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         created.push(w);
     }
     created
+}
+
+/// The plan point and height nearest, in least squares, to all `lines`
+/// (each `normal . p - speed * t = offset`), if they fix both well and the
+/// answer stays within `near` of `p` and a little of `t`.
+fn refine_in_time(wf: &Wavefront, lines: &[usize], p: DVec2, t: f64, near: f64) -> Option<(DVec2, f64)> {
+    if lines.len() < 3 {
+        return None;
+    }
+    let mut m = [[0.0f64; 3]; 3];
+    let mut r = [0.0f64; 3];
+    for l in lines.iter().filter_map(|&i| wf.lines.get(i)) {
+        let row = [l.normal.x, l.normal.y, -l.speed];
+        for (i, &ri) in row.iter().enumerate() {
+            for (j, &rj) in row.iter().enumerate() {
+                m[i][j] += ri * rj;
+            }
+            r[i] += ri * l.offset;
+        }
+    }
+    let det3 = |a: [[f64; 3]; 3]| {
+        a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1]) - a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0])
+            + a[0][2] * (a[1][0] * a[2][1] - a[1][1] * a[2][0])
+    };
+    let d = det3(m);
+    let scale = m[0][0] + m[1][1] + m[2][2];
+    if d.is_nan() || d.abs() <= 1e-6 * scale * scale * scale {
+        return None;
+    }
+    let mut x = [0.0f64; 3];
+    for (k, xk) in x.iter_mut().enumerate() {
+        let mut mk = m;
+        for (row, &rv) in mk.iter_mut().zip(&r) {
+            row[k] = rv;
+        }
+        *xk = det3(mk) / d;
+    }
+    let q = DVec2::new(x[0], x[1]);
+    let ok = q.is_finite()
+        && x[2].is_finite()
+        && (q - p).length() <= near
+        && (x[2] - t).abs() <= 4.0 * wf.tol.time;
+    ok.then_some((q, x[2]))
+}
+
+/// The point nearest, in least squares, to all `lines` at height `t`; `p`
+/// itself if the lines do not fix a point or the answer strays beyond `near`.
+fn refine(wf: &Wavefront, lines: &[usize], p: DVec2, t: f64, near: f64) -> DVec2 {
+    let (mut a, mut b, mut c, mut r1, mut r2) = (0.0, 0.0, 0.0, 0.0, 0.0);
+    for l in lines.iter().filter_map(|&i| wf.lines.get(i)) {
+        let rhs = l.offset + l.speed * t;
+        a += l.normal.x * l.normal.x;
+        b += l.normal.x * l.normal.y;
+        c += l.normal.y * l.normal.y;
+        r1 += l.normal.x * rhs;
+        r2 += l.normal.y * rhs;
+    }
+    let det = a * c - b * b;
+    if det <= 1e-6 * (a + c) * (a + c) {
+        return p;
+    }
+    let q = DVec2::new(c * r1 - b * r2, a * r2 - b * r1) / det;
+    if q.is_finite() && (q - p).length() <= near { q } else { p }
 }
 
 /// The live piece of `line` whose segment holds `p` at height `t`.
