@@ -97,7 +97,18 @@ impl RafterLine {
 }
 
 /// Classifies each edge of a plane's polygon.
-pub fn edge_kinds(plane_index: usize, frame: &PlaneFrame, lines: &[PlanLine]) -> Vec<EdgeKind> {
+///
+/// A roof line may name any wall of a shared plane, so a line of a plane
+/// coplanar with this one counts as this plane's.
+pub fn edge_kinds(
+    plane_index: usize,
+    frame: &PlaneFrame,
+    all_planes: &[PlaneFrame],
+    lines: &[PlanLine],
+) -> Vec<EdgeKind> {
+    let ours = |p: usize| {
+        p == plane_index || all_planes.get(p).is_some_and(|o| frame.coplanar_walls.contains(&o.wall))
+    };
     let n = frame.polygon.len();
     (0..n)
         .map(|i| {
@@ -108,7 +119,7 @@ pub fn edge_kinds(plane_index: usize, frame: &PlaneFrame, lines: &[PlanLine]) ->
             }
             lines
                 .iter()
-                .position(|l| l.planes.contains(&plane_index) && l.touches(a) && l.touches(b))
+                .position(|l| l.planes.iter().any(|&p| ours(p)) && l.touches(a) && l.touches(b))
                 .map_or(EdgeKind::Other, EdgeKind::Line)
         })
         .collect()
@@ -127,7 +138,7 @@ pub fn rafter_lines(
     origin: DVec2,
     settings: &FramingSettings,
 ) -> Vec<RafterLine> {
-    let edges = edge_kinds(plane_index, frame, lines);
+    let edges = edge_kinds(plane_index, frame, all_planes, lines);
     let n = frame.polygon.len();
     let tau = |p: DVec2| (p - origin).dot(frame.along);
     let taus: Vec<f64> = frame.polygon.iter().map(|p| tau(*p)).collect();
