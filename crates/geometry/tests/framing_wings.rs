@@ -76,3 +76,24 @@ fn l_plan_with_steeper_ends() {
     let frame = frames(&corners, &[0.5, 0.75, 0.5, 0.5, 0.75, 0.5]);
     assert!(!of_kind(&frame, MemberKind::Valley).is_empty());
 }
+
+#[test]
+fn square_plan_round_a_courtyard() {
+    // Invented: a 60 ft square with a 20 ft courtyard in the middle; the
+    // roof is a ring of ridges, hips at the outer corners and valleys at
+    // the courtyard's.
+    let w = |x: f64, y: f64| pitchframe_geometry::Wall {
+        corner: dvec2(x, y),
+        roof: pitchframe_geometry::WallRoof::Pitched { rise_per_run: 0.5 },
+        overhang_in: 12.0,
+    };
+    let outer = vec![w(0.0, 0.0), w(720.0, 0.0), w(720.0, 720.0), w(0.0, 720.0)];
+    let court = vec![w(240.0, 240.0), w(240.0, 480.0), w(480.0, 480.0), w(480.0, 240.0)];
+    let o = pitchframe_geometry::Outline::new(outer, vec![court]).unwrap_or_else(|e| panic!("{e}"));
+    let roof = Roof::solve(&o).unwrap_or_else(|e| panic!("solve: {e}"));
+    let frame = frame_roof(&o, &roof, &spaced(16.0)).unwrap_or_else(|e| panic!("frame: {e}"));
+    assert_eq!(of_kind(&frame, MemberKind::Hip).iter().map(|m| m.count).sum::<usize>(), 4);
+    assert_eq!(of_kind(&frame, MemberKind::Valley).iter().map(|m| m.count).sum::<usize>(), 4);
+    assert!(!of_kind(&frame, MemberKind::ValleyJack).is_empty());
+    assert_joints_fit(&frame);
+}

@@ -235,6 +235,41 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     let solids: Vec<_> = specs.iter().map(PieceSpec::solid).collect();
     let measured: Vec<Measured> =
         specs.iter().zip(&solids).map(|(s, solid)| measure(s, solid, settings)).collect();
+    // A piece its cuts leave nothing of (a layout line squeezed out at a
+    // crowded node) is not cut at all: drop it and the joints naming it.
+    let usable = |i: usize| {
+        solids[i].volume() > 1e-6
+            && [measured[i].overall_length, measured[i].long_point_length, measured[i].short_point_length]
+                .iter()
+                .all(|x| x.is_finite())
+    };
+    let kept: Vec<usize> = (0..specs.len()).filter(|&i| usable(i)).collect();
+    let (specs, solids, measured, joint_specs, warnings_extra) = if kept.len() == specs.len() {
+        (specs, solids, measured, joint_specs, warnings_extra)
+    } else {
+        let mut new_index = vec![None; specs.len()];
+        for (n, &i) in kept.iter().enumerate() {
+            new_index[i] = Some(n);
+        }
+        let joints = joint_specs
+            .into_iter()
+            .filter_map(|j| {
+                Some(ResolvedJoint {
+                    cut: new_index[j.cut]?,
+                    bearing: new_index[j.bearing]?,
+                    mating: j.mating,
+                })
+            })
+            .collect();
+        let extra = warnings_extra.into_iter().filter_map(|(i, w)| Some((new_index[i]?, w))).collect();
+        (
+            kept_only(specs, &new_index),
+            kept_only(solids, &new_index),
+            kept_only(measured, &new_index),
+            joints,
+            extra,
+        )
+    };
     let labels = label_pieces(&specs, &measured);
 
     // A rafter on a ridge splice bears on both pieces: check ridges whole.
@@ -378,6 +413,11 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         })
         .collect();
     Ok(Frame { members, pieces, joints: joints.into_iter().map(|(j, _)| j).collect(), warnings })
+}
+
+/// The items whose index maps to a new one.
+fn kept_only<T>(items: Vec<T>, new_index: &[Option<usize>]) -> Vec<T> {
+    items.into_iter().zip(new_index).filter(|(_, n)| n.is_some()).map(|(x, _)| x).collect()
 }
 
 /// Checks the settings once, at the boundary.
