@@ -4,7 +4,7 @@
 use glam::DVec3;
 
 use super::camera::Ray;
-use super::scene::{Scene, Triangles};
+use super::scene::{PartKind, Scene, Triangles};
 
 /// Where a ray first meets a framing piece.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -17,9 +17,10 @@ pub struct Hit {
     pub distance_in: f64,
 }
 
-/// The nearest framing piece the ray meets, if any.
+/// The nearest framing piece the ray meets, if any, unless a wall stands
+/// in front of it.
 pub fn pick(scene: &Scene, ray: &Ray) -> Option<Hit> {
-    scene
+    let hit = scene
         .pieces
         .iter()
         .enumerate()
@@ -30,7 +31,14 @@ pub fn pick(scene: &Scene, ray: &Ray) -> Option<Hit> {
                 distance_in,
             })
         })
-        .min_by(|a, b| a.distance_in.total_cmp(&b.distance_in))
+        .min_by(|a, b| a.distance_in.total_cmp(&b.distance_in))?;
+    let wall_in_front = scene
+        .parts
+        .iter()
+        .filter(|part| part.kind == PartKind::Walls)
+        .filter_map(|part| nearest_triangle(&part.triangles, ray))
+        .any(|(_, distance_in)| distance_in < hit.distance_in);
+    (!wall_in_front).then_some(hit)
 }
 
 /// The nearest triangle the ray meets, with its distance.
@@ -74,6 +82,7 @@ fn ray_triangle(ray: &Ray, a: DVec3, b: DVec3, c: DVec3) -> Option<f64> {
 #[cfg(test)]
 mod tests {
     use approx::assert_abs_diff_eq;
+    use glam::DVec2;
 
     use super::*;
 
@@ -136,5 +145,50 @@ mod tests {
         assert_abs_diff_eq!(hit.distance_in, 74.5, epsilon = 1e-9);
         // Beside both boxes there is nothing to pick.
         assert_eq!(pick(&scene, &down_from(20.0, 0.5)), None);
+    }
+
+    #[test]
+    fn a_wall_in_front_of_a_piece_blocks_the_pick() {
+        use super::super::scene::ScenePart;
+        let mut scene = two_boxes();
+        // A level sheet above both boxes, standing in for a wall face.
+        let wall = Triangles {
+            corners: vec![
+                DVec3::new(-5.0, -5.0, 50.0),
+                DVec3::new(20.0, -5.0, 50.0),
+                DVec3::new(-5.0, 20.0, 50.0),
+            ],
+            normals: vec![DVec3::Z],
+        };
+        scene.parts.push(ScenePart { kind: PartKind::Walls, triangles: wall });
+        assert_eq!(pick(&scene, &down_from(5.0, 0.5)), None);
+    }
+
+    #[test]
+    fn clicking_a_demo_member_where_its_label_sits_picks_that_member() {
+        use super::super::ViewPreset;
+        use super::super::camera::OrbitCamera;
+        let outline = pitchframe_geometry::demo_plan().unwrap().outline().unwrap();
+        let scene = Scene::build(&outline, 96.0, 6.0);
+        assert!(scene.pieces.len() > 50, "the demo frame has {} pieces", scene.pieces.len());
+        let camera = OrbitCamera::framing(scene.min, scene.max, ViewPreset::Top);
+        let size = DVec2::new(1000.0, 800.0);
+        let picked_itself = scene
+            .pieces
+            .iter()
+            .enumerate()
+            .filter(|(index, piece)| {
+                let at = camera.project(piece.label_at, size).unwrap();
+                pick(&scene, &camera.ray(at, size))
+                    .is_some_and(|hit| hit.piece == *index || scene.pieces[hit.piece].label == piece.label)
+            })
+            .count();
+        // From straight above, a member's top edge is only hidden where
+        // another member crosses over it; walls never cover it.
+        assert!(
+            picked_itself * 10 >= scene.pieces.len() * 9,
+            "only {picked_itself} of {} members pick themselves from above",
+            scene.pieces.len()
+        );
     }
 }
