@@ -24,9 +24,18 @@ pub(crate) fn clean_up(wf: &mut Wavefront, start: Vec<VertexId>, t: f64) -> Vec<
         touched.push(v);
         let n1 = wf.next(v);
         let short = n1 == v || wf.next(n1) == v;
-        let spike = wf.vertices.get(v).is_some_and(|x| x.corner == Corner::Spike);
+        let corner = wf.vertices.get(v).map(|x| x.corner);
+        let spike = corner == Some(Corner::Spike);
         if short {
             collapse_cycle(wf, v, t);
+            continue;
+        }
+        if corner == Some(Corner::Overtake) {
+            if let Some(w) = overtake(wf, v, t) {
+                work.push(w);
+                work.push(wf.prev(w));
+                work.push(wf.next(w));
+            }
             continue;
         }
         if !spike {
@@ -160,6 +169,51 @@ fn remove_spike(wf: &mut Wavefront, v: VertexId, t: f64) -> Option<VertexId> {
         wf.link(w, qx.next);
         wf.set_edge_end(vx.in_edge, w);
         wf.set_edge_start(qx.out_edge, w);
+        Some(w)
+    }
+}
+
+/// At `v`, two parallel lines running the same way have come into line at
+/// different speeds. From here the faster line is ahead, and its plane is
+/// the lower along the whole shared stretch, so it takes over the slower
+/// line's piece at once: the two planes meet in a level line along that
+/// piece, and the faster line runs on to the slower piece's far end.
+/// Returns the vertex that replaces that far end.
+fn overtake(wf: &mut Wavefront, v: VertexId, t: f64) -> Option<VertexId> {
+    let vx = wf.vertices.get(v)?.clone();
+    let speed = |line: usize| wf.lines.get(line).map_or(0.0, |l| l.speed);
+    let in_is_faster = speed(vx.in_line) >= speed(vx.out_line);
+    let nv = wf.node_at(v, t);
+    wf.retire(v, nv);
+    if in_is_faster {
+        // The leaving piece (v -> q) is taken over.
+        let q = vx.next;
+        let qx = wf.vertices.get(q)?.clone();
+        let nq = wf.node_at(q, t);
+        wf.retire(q, nq);
+        wf.add_arc(vx.out_line, nq, nv);
+        wf.add_arc(vx.in_line, nv, nq);
+        wf.kill_edge(vx.out_edge);
+        let w = wf.add_vertex(vx.in_edge, qx.out_edge, nq);
+        wf.link(vx.prev, w);
+        wf.link(w, qx.next);
+        wf.set_edge_end(vx.in_edge, w);
+        wf.set_edge_start(qx.out_edge, w);
+        Some(w)
+    } else {
+        // The arriving piece (p -> v) is taken over.
+        let p = vx.prev;
+        let px = wf.vertices.get(p)?.clone();
+        let np = wf.node_at(p, t);
+        wf.retire(p, np);
+        wf.add_arc(vx.in_line, nv, np);
+        wf.add_arc(vx.out_line, np, nv);
+        wf.kill_edge(vx.in_edge);
+        let w = wf.add_vertex(px.in_edge, vx.out_edge, np);
+        wf.link(px.prev, w);
+        wf.link(w, vx.next);
+        wf.set_edge_end(px.in_edge, w);
+        wf.set_edge_start(vx.out_edge, w);
         Some(w)
     }
 }

@@ -31,6 +31,10 @@ pub(crate) enum Corner {
     /// The two lines are parallel and run the same way: the vertex moves
     /// square to them.
     Straight,
+    /// The two lines are parallel, run the same way and have just come into
+    /// line at different speeds: the faster (lower-pitch) line overtakes
+    /// and takes over the slower one's piece at once (the clean-up does it).
+    Overtake,
     /// The two lines are parallel and run opposite ways: a sliver of zero
     /// width that the clean-up removes at once.
     Spike,
@@ -119,9 +123,12 @@ pub(crate) fn vertex_motion(a: &WallLine, b: &WallLine, tol: &Tolerance) -> (DVe
         let corner = if det > 0.0 { Corner::Convex } else { Corner::Reflex };
         (vel, corner)
     } else if a.dir.dot(b.dir) > 0.0 {
-        // Parallel and running the same way: the lower-pitch (faster) line
-        // leads and the shared corner keeps to it.
-        (a.normal * a.speed.max(b.speed), Corner::Straight)
+        if (a.speed - b.speed).abs() <= 1e-12 * a.speed.max(b.speed) {
+            // One plane on both sides: the shared corner moves square to them.
+            (a.normal * a.speed, Corner::Straight)
+        } else {
+            (DVec2::ZERO, Corner::Overtake)
+        }
     } else {
         (DVec2::ZERO, Corner::Spike)
     }
