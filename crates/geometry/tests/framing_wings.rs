@@ -31,6 +31,8 @@ fn frames(corners: &[DVec2], slopes: &[f64]) -> pitchframe_geometry::Frame {
         assert!(!p.solid.parts.is_empty(), "{} has no solid", p.label);
     }
     assert_joints_fit(&frame);
+    let (depth, a, b) = framing_support::parry_fit::worst_interference(&frame);
+    assert!(depth < 1.0 / 64.0, "{a} and {b} overlap by {depth} in");
     frame
 }
 
@@ -96,4 +98,6 @@ fn square_plan_round_a_courtyard() {
     assert_eq!(of_kind(&frame, MemberKind::Valley).iter().map(|m| m.count).sum::<usize>(), 4);
     assert!(!of_kind(&frame, MemberKind::ValleyJack).is_empty());
     assert_joints_fit(&frame);
+    let (depth, a, b) = framing_support::parry_fit::worst_interference(&frame);
+    assert!(depth < 1.0 / 64.0, "{a} and {b} overlap by {depth} in");
 }

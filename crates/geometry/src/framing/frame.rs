@@ -702,6 +702,21 @@ impl Ctx<'_> {
             });
             if has_tail {
                 lower_cuts.extend(self.tail_cuts(p, &frame));
+                // Tails fan in over an inside corner: near it they are cut
+                // back to the side of the valley's tail.
+                for l in self.lines.iter().filter(|l| l.kind == RoofLineKind::Valley) {
+                    let at_wall_end = [p.start, p.end].iter().any(|c| c.distance(l.from) < PLAN_TOL_IN * 1e3);
+                    if at_wall_end {
+                        lower_cuts.extend(side_face(
+                            l.from,
+                            l.to,
+                            self.settings.valley.thickness_in,
+                            mid,
+                            FaceTag::Tail,
+                            CutEnd::Tail,
+                        ));
+                    }
+                }
             }
         } else {
             let (li, h) = line_face(r.lower_edge, CutEnd::Bottom)?;
@@ -724,13 +739,28 @@ impl Ctx<'_> {
         Some((spec, Some((upper_line, upper_cut)), lower_bearing))
     }
 
+    /// Whether planes `a` and `b` are one roof plane (the same, or parts of
+    /// coplanar walls: a roof line may name either wall).
+    fn same_group(&self, a: usize, b: usize) -> bool {
+        a == b
+            || match (self.planes.get(a), self.planes.get(b)) {
+                (Some(pa), Some(pb)) => pa.coplanar_walls.contains(&pb.wall),
+                _ => false,
+            }
+    }
+
+    /// Whether plan point `p` lies on plane `a` or a part coplanar with it.
+    fn group_contains(&self, a: usize, p: DVec2) -> bool {
+        (0..self.planes.len()).any(|j| self.same_group(a, j) && self.planes[j].contains(p))
+    }
+
     /// The plane of a hip or valley on its left and right, looking up it.
     fn sides(&self, line: &PlanLine) -> Option<(usize, usize)> {
         let dir = (line.to - line.from).try_normalize()?;
         let mid = (line.from + line.to) / 2.0;
         let probe = mid + dir.perp() * (line.from.distance(line.to) * 1e-3).min(1.0);
         let [a, b] = line.planes;
-        let a_left = self.planes.get(a)?.contains(probe);
+        let a_left = self.group_contains(a, probe);
         Some(if a_left { (a, b) } else { (b, a) })
     }
 
@@ -810,7 +840,9 @@ impl Ctx<'_> {
         for &pi in &[left, right] {
             // The king in this plane at the hip's top, if any.
             let king = self.rafters.iter().enumerate().find(|(_, r)| {
-                r.plane == pi && r.king.is_some() && r.upper.distance(line.to) < PLAN_TOL_IN * 1e3
+                self.same_group(r.plane, pi)
+                    && r.king.is_some()
+                    && r.upper.distance(line.to) < PLAN_TOL_IN * 1e3
             });
             match king {
                 Some((ki, r)) => {

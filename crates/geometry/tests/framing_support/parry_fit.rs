@@ -75,3 +75,50 @@ pub fn fit(frame: &Frame, cut: usize, bearing: usize) -> (f64, f64, usize) {
     }
     (gap, overlap, mating)
 }
+
+/// The deepest interpenetration between any two pieces of a frame, with
+/// their labels, measured by parry contact between their convex parts.
+pub fn worst_interference(frame: &Frame) -> (f64, String, String) {
+    let id = Pose::identity();
+    let hulls: Vec<Vec<(ConvexPolyhedron, glam::DVec3, glam::DVec3)>> = frame
+        .pieces
+        .iter()
+        .map(|p| {
+            hulls(p)
+                .into_iter()
+                .zip(&p.solid.parts)
+                .map(|(h, part)| {
+                    let lo = part
+                        .vertices
+                        .iter()
+                        .copied()
+                        .fold(glam::DVec3::splat(f64::INFINITY), glam::DVec3::min);
+                    let hi = part
+                        .vertices
+                        .iter()
+                        .copied()
+                        .fold(glam::DVec3::splat(f64::NEG_INFINITY), glam::DVec3::max);
+                    (h, lo, hi)
+                })
+                .collect()
+        })
+        .collect();
+    let mut worst = (0.0, String::new(), String::new());
+    for i in 0..hulls.len() {
+        for j in i + 1..hulls.len() {
+            for (a, alo, ahi) in &hulls[i] {
+                for (b, blo, bhi) in &hulls[j] {
+                    if alo.cmpgt(*bhi).any() || blo.cmpgt(*ahi).any() {
+                        continue;
+                    }
+                    if let Ok(Some(c)) = contact(&id, a, &id, b, 0.0) {
+                        if -c.dist > worst.0 {
+                            worst = (-c.dist, frame.pieces[i].label.clone(), frame.pieces[j].label.clone());
+                        }
+                    }
+                }
+            }
+        }
+    }
+    worst
+}
