@@ -111,10 +111,10 @@ pub fn worst_interference(frame: &Frame) -> (f64, String, String) {
                     if alo.cmpgt(*bhi).any() || blo.cmpgt(*ahi).any() {
                         continue;
                     }
-                    if let Ok(Some(c)) = contact(&id, a, &id, b, 0.0) {
-                        if -c.dist > worst.0 {
-                            worst = (-c.dist, frame.pieces[i].label.clone(), frame.pieces[j].label.clone());
-                        }
+                    if let Ok(Some(c)) = contact(&id, a, &id, b, 0.0)
+                        && -c.dist > worst.0
+                    {
+                        worst = (-c.dist, frame.pieces[i].label.clone(), frame.pieces[j].label.clone());
                     }
                 }
             }
