@@ -885,3 +885,35 @@ fn part_of_the_plan_ringed_by_gables_is_an_error() {
     assert!(matches!(err, pitchframe_geometry::RoofError::GablesOnly { .. }), "{err}");
     assert!(err.to_string().contains("gables"), "{err}");
 }
+
+#[test]
+fn cross_with_uneven_arms_reports_the_long_ridge() {
+    // Derivation: the long arm is 180 wide at 12 in 12, so its ridge runs
+    // along x = 270 at height 90 from hip point (270, 90) to (270, 378),
+    // straight through the narrower cross arm (104 wide, ridge at 52).
+    let outer = ring(
+        &[
+            (0.0, 214.0),
+            (180.0, 214.0),
+            (180.0, 0.0),
+            (360.0, 0.0),
+            (360.0, 214.0),
+            (540.0, 214.0),
+            (540.0, 318.0),
+            (360.0, 318.0),
+            (360.0, 468.0),
+            (180.0, 468.0),
+            (180.0, 318.0),
+            (0.0, 318.0),
+        ],
+        1.0,
+    );
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    assert!(has_line(
+        &roof,
+        RoofLineKind::Ridge,
+        DVec3::new(270.0, 90.0, 90.0),
+        DVec3::new(270.0, 378.0, 90.0)
+    ));
+}

@@ -90,6 +90,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         arcs: vec![Vec::new(); n],
         wall_start_node: vec![0; n],
         wall_end_node: vec![0; n],
+        batch_nodes: Vec::new(),
         tol,
     };
     let mut heap: BinaryHeap<Event> = BinaryHeap::new();
@@ -142,6 +143,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
             batch.push(next);
         }
         let sites = cluster(&wf, &batch);
+        wf.batch_nodes.clear();
 
         let mut created = Vec::new();
         for site in &sites {

@@ -108,6 +108,9 @@ pub(crate) struct Wavefront {
     pub wall_start_node: Vec<NodeId>,
     /// Node of each wall's end corner, by global wall index.
     pub wall_end_node: Vec<NodeId>,
+    /// Nodes made during the current batch of events, so two vertices
+    /// stopping at one point share one node.
+    pub batch_nodes: Vec<NodeId>,
     /// Tolerances.
     pub tol: Tolerance,
 }
@@ -143,10 +146,24 @@ impl Wavefront {
         }
     }
 
-    /// Adds a skeleton node.
+    /// Adds a skeleton node, or returns the one already made in this batch
+    /// at the same point and height.
     pub fn add_node(&mut self, pos: DVec2, time: f64) -> NodeId {
+        let near = 4.0 * self.tol.point;
+        let found = self.batch_nodes.iter().copied().find(|&n| {
+            self.nodes
+                .get(n)
+                .is_some_and(|x| (x.pos - pos).length() <= near && (x.time - time).abs() <= self.tol.time)
+        });
+        if let Some(n) = found {
+            return n;
+        }
         self.nodes.push(Node { pos, time });
-        self.nodes.len() - 1
+        let id = self.nodes.len() - 1;
+        if time > 0.0 {
+            self.batch_nodes.push(id);
+        }
+        id
     }
 
     /// Adds an edge piece on `line` (links are set by the caller).
