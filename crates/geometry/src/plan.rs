@@ -272,14 +272,15 @@ impl Plan {
         }
     }
 
-    /// A length as a plain number in the plan's unit, at full precision.
+    /// A length as a plain number in the plan's unit, at full precision;
+    /// in a millimetre plan a length that millimetres cannot carry exactly
+    /// (one typed in inches) is written in inches, so nothing is lost.
     fn number(&self, length: Length) -> String {
-        let value = match self.units {
-            LengthUnit::Inch => length.inches(),
-            LengthUnit::Millimetre => length.mm(),
-        };
-        // `{:?}` prints the shortest text that reads back to the same f64.
-        format!("{value:?}")
+        match self.units {
+            LengthUnit::Inch => format!("{:?}", length.inches()),
+            LengthUnit::Millimetre if Length::from_mm(length.mm()) == length => format!("{:?}", length.mm()),
+            LengthUnit::Millimetre => format!("\"{}\\\"\"", length.inches()),
+        }
     }
 
     /// A length in the plan's usual display style.
@@ -305,13 +306,25 @@ fn one_line(text: &str, error: &toml::de::Error) -> String {
     }
 }
 
-/// A pitch as text that reads back to the same slope.
+/// A pitch as text that reads back to exactly the same slope: the
+/// simplest of "x/12", degrees, or the full-precision rise per run.
 fn pitch_text(pitch: Pitch) -> String {
-    // Rise per 12 at full precision: "6/12" stays "6/12", odd slopes keep
-    // every digit.
-    let rise = pitch.rise_in_12();
-    let rounded = (rise * 1e9).round() / 1e9;
-    if (rise - rounded).abs() < 1e-12 { format!("{rounded}/12") } else { format!("{rise:?}/12") }
+    let short = |v: f64| {
+        let rounded = (v * 1e9).round() / 1e9;
+        format!("{rounded}")
+    };
+    let candidates = [
+        format!("{}/12", short(pitch.rise_in_12())),
+        format!("{}deg", short(pitch.degrees())),
+        format!("{}:1", pitch.rise_per_run()),
+    ];
+    for text in &candidates {
+        if Pitch::parse(text).is_ok_and(|p| p == pitch) {
+            return text.clone();
+        }
+    }
+    // Display of an f64 is the shortest text that reads back to it.
+    format!("{}:1", pitch.rise_per_run())
 }
 
 fn write_framing(out: &mut String, f: &FramingInput, plan: &Plan) {

@@ -154,3 +154,34 @@ fn reads_courtyards() {
     assert_eq!(plan.courtyards.len(), 1);
     assert_eq!(plan.courtyards[0].len(), 3);
 }
+
+mod round_trip {
+    use pitchframe_geometry::{Length, Pitch, Plan, PlanWall, demo_plan};
+    use proptest::prelude::*;
+
+    proptest! {
+        /// Saving and reopening never changes a plan, whatever its numbers.
+        #[test]
+        fn any_pitch_and_corner_survive_a_save(
+            degrees in 0.01f64..89.99,
+            rise_in_12 in 0.01f64..100.0,
+            x in -10_000.0f64..10_000.0,
+            y in -10_000.0f64..10_000.0,
+            metric in any::<bool>(),
+        ) {
+            let mut plan = demo_plan().unwrap();
+            if metric {
+                plan.units = pitchframe_geometry::LengthUnit::Millimetre;
+            }
+            plan.default_pitch = Pitch::from_degrees(degrees).unwrap();
+            plan.walls.push(PlanWall {
+                at: [Length::from_inches(x), Length::from_mm(y)],
+                pitch: Some(Pitch::from_rise_per_run(rise_in_12 / 12.0).unwrap()),
+                gable: false,
+                overhang: Some(Length::from_mm(y.abs())),
+            });
+            let again = Plan::from_toml(&plan.to_toml()).unwrap();
+            prop_assert_eq!(again, plan);
+        }
+    }
+}
