@@ -29,8 +29,20 @@ use serde::Deserialize;
 use serde::de::{self, Visitor};
 use thiserror::Error;
 
+use crate::framing::{BoardSize, FramingSettings, Heel, HipTop, TailCut};
 use crate::{Length, LengthError, LengthStyle, LengthUnit, Outline, OutlineError, Pitch, PitchError};
-use crate::{Wall, WallRoof};
+use crate::{MemberSize, Wall, WallRoof};
+
+/// Plumb cut on a rafter tail above a level soffit cut, when the plan
+/// asks for "plumb+level" without `tail_plumb`: 3-1/2 in, a common fascia
+/// backing depth (common practice, no source).
+const DEFAULT_TAIL_PLUMB_IN: f64 = 3.5;
+
+/// Metric stock lengths, 2.4 m to 6.0 m in 0.3 m steps (common practice
+/// in metric timber supply, no source), in inches.
+fn metric_stock_lengths_in() -> Vec<f64> {
+    (8..=20).map(|step| Length::from_mm(f64::from(step) * 300.0).inches()).collect()
+}
 
 /// The only plan format version this build reads and writes.
 pub const PLAN_FORMAT: u32 = 1;
@@ -98,6 +110,8 @@ pub struct FramingInput {
     pub heel: Option<Length>,
     /// Tail end: `"plumb"`, `"square"` or `"plumb+level"`.
     pub tail: Option<String>,
+    /// With `"plumb+level"`: the plumb cut's height above the soffit cut.
+    pub tail_plumb: Option<Length>,
     /// Hip treatment: `"backed"` or `"dropped"`.
     pub hips: Option<String>,
     /// Deepest birdsmouth notch allowed before a warning, as a fraction of depth.
@@ -283,6 +297,77 @@ impl Plan {
         }
     }
 
+    /// The framing settings: the plan's `[framing]` table over the defaults.
+    ///
+    /// Sizes are parsed here (`"2x8"`, `"45x195"` in a millimetre plan) and
+    /// the layout corner is checked against the outline, so framing gets
+    /// settings that are already valid.
+    pub fn framing_settings(&self) -> Result<FramingSettings, PlanError> {
+        let f = &self.framing;
+        let mut settings = FramingSettings::default();
+        if let Some(spacing) = f.spacing {
+            settings.spacing_in = spacing.inches();
+        }
+        if let Some(corner) = f.layout_from {
+            if corner >= self.walls.len() {
+                return Err(PlanError::OutOfRange {
+                    place: "[framing] layout_from".into(),
+                    reason: format!(
+                        "corner {corner} does not exist; the outline has corners 0 to {}",
+                        self.walls.len().saturating_sub(1)
+                    ),
+                });
+            }
+            settings.layout_start.corner = corner;
+        }
+        if let Some(centred) = f.centre_commons {
+            settings.layout_start.centred = centred;
+        }
+        let size = |text: &Option<String>, name: &str, default: BoardSize| -> Result<BoardSize, PlanError> {
+            match text {
+                None => Ok(default),
+                Some(t) => MemberSize::parse(t, self.units).map(|s| BoardSize::from(&s)).map_err(|e| {
+                    PlanError::OutOfRange { place: format!("[framing] {name}"), reason: e.to_string() }
+                }),
+            }
+        };
+        settings.rafter = size(&f.rafter, "rafter", settings.rafter)?;
+        settings.hip = size(&f.hip, "hip", settings.hip)?;
+        settings.valley = size(&f.valley, "valley", settings.valley)?;
+        settings.ridge = size(&f.ridge, "ridge", settings.ridge)?;
+        if let Some(seat) = f.seat {
+            settings.seat_width_in = seat.inches();
+        }
+        if let Some(heel) = f.heel {
+            settings.heel = Heel::Plumb { height_in: heel.inches() };
+        }
+        settings.tail = match f.tail.as_deref() {
+            None | Some("plumb") => TailCut::Plumb,
+            Some("square") => TailCut::Square,
+            Some(_) => TailCut::PlumbAndLevel {
+                plumb_height_in: f.tail_plumb.map_or(DEFAULT_TAIL_PLUMB_IN, |l| l.inches()),
+            },
+        };
+        settings.hip_top = match f.hips.as_deref() {
+            Some("dropped") => HipTop::Dropped,
+            _ => HipTop::Backed,
+        };
+        if let Some(limit) = f.notch_limit {
+            settings.notch_limit = limit;
+        }
+        if let Some(bevel) = f.max_bevel_deg {
+            settings.saws.max_bevel_deg = bevel;
+        }
+        if let Some(stock) = &f.stock {
+            let mut lengths: Vec<f64> = stock.iter().map(|l| l.inches()).collect();
+            lengths.sort_by(f64::total_cmp);
+            settings.stock_lengths_in = lengths;
+        } else if self.units == LengthUnit::Millimetre {
+            settings.stock_lengths_in = metric_stock_lengths_in();
+        }
+        Ok(settings)
+    }
+
     /// A length in the plan's usual display style.
     pub fn display_length(&self, length: Length) -> String {
         match self.units {
@@ -358,6 +443,7 @@ fn write_framing(out: &mut String, f: &FramingInput, plan: &Plan) {
         out.push_str(&format!("heel = {}\n", plan.number(h)));
     }
     text("tail", &f.tail, out);
+    len("tail_plumb", &f.tail_plumb, out);
     text("hips", &f.hips, out);
     if let Some(v) = f.notch_limit {
         out.push_str(&format!("notch_limit = {v:?}\n"));
@@ -442,6 +528,7 @@ struct RawFraming {
     seat: Option<RawLength>,
     heel: Option<RawLength>,
     tail: Option<String>,
+    tail_plumb: Option<RawLength>,
     hips: Option<String>,
     notch_limit: Option<f64>,
     max_bevel: Option<f64>,
@@ -727,6 +814,7 @@ impl RawFraming {
                 other => opt_len(other, "[framing] heel")?,
             },
             tail: self.tail,
+            tail_plumb: opt_len(&self.tail_plumb, "[framing] tail_plumb")?,
             hips: self.hips,
             notch_limit: self.notch_limit,
             max_bevel_deg: self.max_bevel,

@@ -185,3 +185,58 @@ mod round_trip {
         }
     }
 }
+
+mod framing_settings {
+    use pitchframe_geometry::framing::{Heel, HipTop, TailCut};
+    use pitchframe_geometry::{Plan, demo_plan};
+
+    const METRIC: &str = include_str!("../../../examples/metric-bungalow.toml");
+    const COTTAGE: &str = include_str!("../../../examples/hillside-cottage.toml");
+
+    #[test]
+    fn the_demo_table_becomes_settings() {
+        let settings = demo_plan().unwrap().framing_settings().unwrap();
+        assert_eq!(settings.spacing_in, 24.0);
+        // US dressed lumber: a 2x8 is 1-1/2 x 7-1/4, a 2x10 1-1/2 x 9-1/4
+        // (American Softwood Lumber Standard PS 20 dry sizes, from memory).
+        assert_eq!((settings.rafter.thickness_in, settings.rafter.depth_in), (1.5, 7.25));
+        assert_eq!((settings.hip.thickness_in, settings.hip.depth_in), (1.5, 9.25));
+        assert_eq!(settings.seat_width_in, 3.5);
+        assert_eq!(settings.heel, Heel::Auto);
+        assert_eq!(settings.tail, TailCut::Plumb);
+        assert_eq!(settings.hip_top, HipTop::Backed);
+    }
+
+    #[test]
+    fn metric_sizes_and_stock_are_read_in_millimetres() {
+        let settings = Plan::from_toml(METRIC).unwrap().framing_settings().unwrap();
+        // 45 x 195 mm is the plan's own size; 25.4 mm to the inch.
+        assert!((settings.rafter.thickness_in * 25.4 - 45.0).abs() < 1e-9);
+        assert!((settings.rafter.depth_in * 25.4 - 195.0).abs() < 1e-9);
+        assert!((settings.spacing_in * 25.4 - 600.0).abs() < 1e-9);
+        assert_eq!(settings.stock_lengths_in.len(), 7);
+        assert!((settings.longest_stock_in().unwrap() * 25.4 - 6000.0).abs() < 1e-9);
+    }
+
+    #[test]
+    fn tail_and_hip_choices_are_read() {
+        let settings = Plan::from_toml(COTTAGE).unwrap().framing_settings().unwrap();
+        assert_eq!(settings.spacing_in, 16.0);
+        assert!(matches!(settings.tail, TailCut::PlumbAndLevel { .. }));
+        assert_eq!(settings.hip_top, HipTop::Dropped);
+    }
+
+    #[test]
+    fn a_layout_corner_that_does_not_exist_is_named() {
+        let text = COTTAGE.replace("layout_from = 0", "layout_from = 8");
+        let message = Plan::from_toml(&text).unwrap().framing_settings().unwrap_err().to_string();
+        assert!(message.contains("[framing] layout_from") && message.contains("corner 8"), "{message}");
+    }
+
+    #[test]
+    fn a_bad_size_is_named() {
+        let text = COTTAGE.replace("rafter = \"2x8\"", "rafter = \"2x\"");
+        let message = Plan::from_toml(&text).unwrap().framing_settings().unwrap_err().to_string();
+        assert!(message.starts_with("[framing] rafter"), "{message}");
+    }
+}
