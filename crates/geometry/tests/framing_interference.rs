@@ -46,3 +46,31 @@ fn solved_roofs_have_no_interference() {
     let r = Roof::solve(&o).unwrap();
     check("T", &frame_roof(&o, &r, &spaced(16.0)).unwrap());
 }
+
+#[test]
+fn a_pyramid_and_a_plan_of_many_wings_have_no_interference() {
+    // A square hipped to a point: four hips meet with no ridge and are
+    // mitred to each other (flagged for a fitted block).
+    let o = outline(
+        &[dvec2(0.0, 0.0), dvec2(300.0, 0.0), dvec2(300.0, 300.0), dvec2(0.0, 300.0)],
+        &[0.5; 4],
+        12.0,
+    );
+    let r = Roof::solve(&o).unwrap();
+    let frame = frame_roof(&o, &r, &spaced(16.0)).unwrap();
+    assert!(
+        frame
+            .warnings
+            .iter()
+            .any(|w| matches!(w, pitchframe_geometry::framing::FramingWarning::HipsMeetWithoutRidge { .. }))
+    );
+    framing_support::assert_joints_fit(&frame);
+    check("pyramid", &frame);
+
+    let o = framing_support::many_wings(0.5);
+    let r = Roof::solve(&o).unwrap();
+    let frame = frame_roof(&o, &r, &spaced(16.0)).unwrap();
+    assert!(frame.pieces.len() > 900);
+    assert!(frame.joints.iter().all(|j| j.max_gap < 1.0 / 64.0 && j.max_overlap < 1.0 / 64.0));
+    check("many wings", &frame);
+}

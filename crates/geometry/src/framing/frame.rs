@@ -172,12 +172,15 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     let mut rafter_piece: Vec<Option<usize>> = vec![None; rafters.len()];
     for (ri, r) in rafters.iter().enumerate() {
         let Some(kind) = r.kind(&lines) else { continue };
-        let Some((spec, upper_bearing, lower_bearing)) = ctx.rafter_spec(r, kind) else {
+        let Some((spec, upper_bearing, lower_bearing, also_bearing)) = ctx.rafter_spec(r, kind) else {
             continue;
         };
         let index = specs.len();
         rafter_piece[ri] = Some(index);
         if let Some((li, mating)) = upper_bearing {
+            joint_specs.push(JointSpec { cut: index, bearing: Bearing::Line(li), mating });
+        }
+        if let Some((li, mating)) = also_bearing {
             joint_specs.push(JointSpec { cut: index, bearing: Bearing::Line(li), mating });
         }
         if let Some((li, mating)) = lower_bearing {
@@ -647,7 +650,11 @@ impl Ctx<'_> {
     }
 
     /// A common, king or jack, with the roof lines it bears on.
-    fn rafter_spec(&self, r: &RafterLine, kind: MemberKind) -> Option<(PieceSpec, LineBearing, LineBearing)> {
+    fn rafter_spec(
+        &self,
+        r: &RafterLine,
+        kind: MemberKind,
+    ) -> Option<(PieceSpec, LineBearing, LineBearing, LineBearing)> {
         let p = self.planes.get(r.plane)?;
         let size = self.settings.rafter;
         let seated = r.lower_edge == EdgeKind::Eave;
@@ -691,6 +698,15 @@ impl Ctx<'_> {
             _ => line_face(r.upper_edge, CutEnd::Top),
         };
         let (upper_line, upper_cut) = upper?;
+        // Into a corner of two hips: a double cheek, one against each.
+        let not_ridge = |e: EdgeKind| match e {
+            EdgeKind::Line(li) => self.lines.get(li).is_some_and(|l| l.kind != RoofLineKind::Ridge),
+            _ => false,
+        };
+        let also = r
+            .upper_also
+            .filter(|e| not_ridge(*e) && not_ridge(r.upper_edge))
+            .and_then(|e| line_face(e, CutEnd::Top));
         let mut lower_cuts = Vec::new();
         let mut lower_bearing = None;
         let mut seat = Vec::new();
@@ -730,13 +746,13 @@ impl Ctx<'_> {
             plan_line: [r.lower, r.upper],
             slope: p.slope,
             top_planes: Vec::new(),
-            upper_cuts: vec![upper_cut],
+            upper_cuts: std::iter::once(upper_cut).chain(also.map(|(_, h)| h)).collect(),
             lower_cuts,
             seat,
             has_tail,
             drop_in: 0.0,
         };
-        Some((spec, Some((upper_line, upper_cut)), lower_bearing))
+        Some((spec, Some((upper_line, upper_cut)), lower_bearing, also))
     }
 
     /// Whether planes `a` and `b` are one roof plane (the same, or parts of
@@ -752,6 +768,47 @@ impl Ctx<'_> {
     /// Whether plan point `p` lies on plane `a` or a part coplanar with it.
     fn group_contains(&self, a: usize, p: DVec2) -> bool {
         (0..self.planes.len()).any(|j| self.same_group(a, j) && self.planes[j].contains(p))
+    }
+
+    /// Cuts for a hip top at a peak where hips meet with no ridge: for each
+    /// other hip there, the vertical plane halving the plan angle between
+    /// the two, so the hips share the space round the peak without
+    /// overlapping. `far` is this hip's other end. None where a hip also
+    /// rises on from the node.
+    fn hub_cuts(&self, node: DVec2, far: DVec2, end: CutEnd, frame: &BoardFrame) -> Vec<HalfSpace> {
+        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
+        let Some(mine) = (far - node).try_normalize() else { return Vec::new() };
+        // Where hips merge into one rising on (irregular plans) the node
+        // is left to a fitted block: the ends are cut plumb and flagged.
+        if self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && near(l.from)) {
+            return Vec::new();
+        }
+        self.lines
+            .iter()
+            .enumerate()
+            .filter(|(_, l)| l.kind == RoofLineKind::Hip)
+            .filter_map(|(_, l)| {
+                let other_far = if near(l.to) {
+                    l.from
+                } else if near(l.from) {
+                    l.to
+                } else {
+                    return None;
+                };
+                if other_far.distance(far) < PLAN_TOL_IN * 1e3 {
+                    return None;
+                }
+                let theirs = (other_far - node).try_normalize()?;
+                // Nearer this hip's line: (p - node) . (mine - theirs) >= 0.
+                let h = HalfSpace::through(
+                    node.extend(0.0),
+                    (theirs - mine).extend(0.0),
+                    FaceTag::Cheek,
+                    Some(end),
+                )?;
+                Some(HalfSpace { tag: cut_tag(&h, frame), ..h })
+            })
+            .collect()
     }
 
     /// The plane of a hip or valley on its left and right, looking up it.
@@ -829,6 +886,9 @@ impl Ctx<'_> {
             }
             if foot_cuts.is_empty() {
                 foot_without_ridge = true;
+                foot_cuts.extend(self.hub_cuts(line.from, line.to, CutEnd::Bottom, &probe));
+            }
+            if foot_cuts.is_empty() {
                 foot_cuts.extend(HalfSpace::through(
                     line.from.extend(line.from_z),
                     (line.from - line.to).extend(0.0),
@@ -864,12 +924,19 @@ impl Ctx<'_> {
             }
         }
         if upper_cuts.is_empty() {
-            upper_cuts.extend(HalfSpace::through(
-                line.to.extend(line.to_z),
-                (line.to - line.from).extend(0.0),
-                FaceTag::Plumb,
-                Some(CutEnd::Top),
-            ));
+            // Hips meeting at a peak with no ridge: each keeps the plan
+            // angle nearer its own line than any other's.
+            let hub = self.hub_cuts(line.to, line.from, CutEnd::Top, &frame);
+            if hub.is_empty() {
+                upper_cuts.extend(HalfSpace::through(
+                    line.to.extend(line.to_z),
+                    (line.to - line.from).extend(0.0),
+                    FaceTag::Plumb,
+                    Some(CutEnd::Top),
+                ));
+            }
+            // No joint is claimed at a hub: it needs a fitted block.
+            upper_cuts.extend(hub);
         } else {
             peak_without_ridge = false;
         }

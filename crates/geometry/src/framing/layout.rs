@@ -70,6 +70,9 @@ pub struct RafterLine {
     pub lower_edge: EdgeKind,
     /// What bounds the upper end.
     pub upper_edge: EdgeKind,
+    /// A second roof line at the upper end, when the line runs into a
+    /// corner where two hips (or a hip and a valley) meet.
+    pub upper_also: Option<EdgeKind>,
     /// Set for king commons.
     pub king: Option<King>,
 }
@@ -173,6 +176,7 @@ pub fn rafter_lines(
             upper: node,
             lower_edge: EdgeKind::Eave,
             upper_edge: EdgeKind::Line(ridge),
+            upper_also: None,
             king: Some(king),
         });
         reserved.push(tau(node));
@@ -246,16 +250,28 @@ pub fn rafter_lines(
 
     for t in taus_to_clip {
         let base = origin + frame.along * t;
-        out.extend(clip(base, frame, &edges).into_iter().map(|(lower, lower_edge, upper, upper_edge)| {
-            RafterLine { plane: plane_index, lower, upper, lower_edge, upper_edge, king: None }
-        }));
+        out.extend(clip(base, frame, &edges).into_iter().map(
+            |(lower, lower_edge, upper, upper_edge, upper_also)| RafterLine {
+                plane: plane_index,
+                lower,
+                upper,
+                lower_edge,
+                upper_edge,
+                upper_also,
+                king: None,
+            },
+        ));
     }
     out
 }
 
 /// Clips the line through `base` up the slope to the plane's polygon: the
 /// inside stretches with the edges at their ends.
-fn clip(base: DVec2, frame: &PlaneFrame, edges: &[EdgeKind]) -> Vec<(DVec2, EdgeKind, DVec2, EdgeKind)> {
+fn clip(
+    base: DVec2,
+    frame: &PlaneFrame,
+    edges: &[EdgeKind],
+) -> Vec<(DVec2, EdgeKind, DVec2, EdgeKind, Option<EdgeKind>)> {
     let dir = frame.inward;
     let n = frame.polygon.len();
     let mut hits: Vec<(f64, EdgeKind)> = Vec::new();
@@ -275,27 +291,31 @@ fn clip(base: DVec2, frame: &PlaneFrame, edges: &[EdgeKind]) -> Vec<(DVec2, Edge
     hits.sort_by(|a, b| a.0.total_cmp(&b.0));
     // A line through a corner hits both edges there; keep one, preferring
     // a roof line over the eave or a rake.
-    let mut merged: Vec<(f64, EdgeKind)> = Vec::new();
+    let mut merged: Vec<(f64, EdgeKind, Option<EdgeKind>)> = Vec::new();
     for (r, e) in hits {
         match merged.last_mut() {
             Some(last) if (last.0 - r).abs() < 1e-7 => {
-                if matches!(e, EdgeKind::Line(_)) && !matches!(last.1, EdgeKind::Line(_)) {
-                    last.1 = e;
+                if matches!(e, EdgeKind::Line(_)) {
+                    if matches!(last.1, EdgeKind::Line(_)) {
+                        last.2 = Some(e);
+                    } else {
+                        last.1 = e;
+                    }
                 }
             }
-            _ => merged.push((r, e)),
+            _ => merged.push((r, e, None)),
         }
     }
     let mut out = Vec::new();
     for pair in merged.windows(2) {
-        let (r0, e0) = pair[0];
-        let (r1, e1) = pair[1];
+        let (r0, e0, _) = pair[0];
+        let (r1, e1, also) = pair[1];
         if r1 - r0 < 1e-3 {
             continue;
         }
         let mid = base + dir * ((r0 + r1) / 2.0);
         if frame.contains(mid) {
-            out.push((base + dir * r0, e0, base + dir * r1, e1));
+            out.push((base + dir * r0, e0, base + dir * r1, e1, also));
         }
     }
     out

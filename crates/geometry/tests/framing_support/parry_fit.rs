@@ -79,6 +79,15 @@ pub fn fit(frame: &Frame, cut: usize, bearing: usize) -> (f64, f64, usize) {
 /// The deepest interpenetration between any two pieces of a frame, with
 /// their labels, measured by parry contact between their convex parts.
 pub fn worst_interference(frame: &Frame) -> (f64, String, String) {
+    worst_interference_except(frame, |_, _| false)
+}
+
+/// As [`worst_interference`], leaving out the pairs of pieces `skip`
+/// names (by index).
+pub fn worst_interference_except(
+    frame: &Frame,
+    skip: impl Fn(usize, usize) -> bool,
+) -> (f64, String, String) {
     let id = Pose::identity();
     let hulls: Vec<Vec<(ConvexPolyhedron, glam::DVec3, glam::DVec3)>> = frame
         .pieces
@@ -106,6 +115,9 @@ pub fn worst_interference(frame: &Frame) -> (f64, String, String) {
     let mut worst = (0.0, String::new(), String::new());
     for i in 0..hulls.len() {
         for j in i + 1..hulls.len() {
+            if skip(i, j) {
+                continue;
+            }
             for (a, alo, ahi) in &hulls[i] {
                 for (b, blo, bhi) in &hulls[j] {
                     if alo.cmpgt(*bhi).any() || blo.cmpgt(*ahi).any() {
