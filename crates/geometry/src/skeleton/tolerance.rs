@@ -8,9 +8,12 @@
 /// larger side of its bounding box):
 /// - `point = 1e-7 * size`: two plan points closer than this are one point
 ///   (for a 100 ft building about 0.0001 in, far below anything a saw cuts);
-/// - `time = point * min_rise`: two events whose heights differ by less than
-///   this happen together (a wall line moving at the fastest plan speed
-///   `1 / min_rise` travels `point` in that height);
+/// - `time = 1e-4 * point * min_rise`: two events whose heights differ by
+///   less than this happen together. A wall line at the fastest plan speed
+///   `1 / min_rise` travels a ten-thousandth of `point` in that height, so
+///   even a sharp corner moving thousands of times faster than its walls
+///   stays within `point` of where the batch places it; truly simultaneous
+///   events (a square's apex) agree far more closely than this;
 /// - `angle = 1e-10` rad: two wall lines closer than this to parallel are
 ///   treated as parallel, since their crossing would lie farther away than
 ///   `size / angle`, outside any real building.
@@ -28,6 +31,6 @@ impl Tolerance {
     /// Tolerances for an outline of extent `size` whose lowest pitch is `min_rise`.
     pub fn for_outline(size: f64, min_rise: f64) -> Self {
         let point = 1e-7 * size.max(f64::MIN_POSITIVE);
-        Self { point, time: point * min_rise.clamp(1e-3, 1e3), angle: 1e-10 }
+        Self { point, time: 1e-4 * point * min_rise.clamp(1e-3, 1e3), angle: 1e-10 }
     }
 }
