@@ -371,10 +371,11 @@ fn plane_groups(lines: &[WallLine], tol: &Tolerance) -> Vec<usize> {
 }
 
 /// Drops points lying on the straight line between their neighbours,
-/// keeping the first point.
+/// keeping the first two (the wall's ends, which must stay even when the
+/// next wall runs on nearly in line).
 fn drop_collinear(points: Vec<DVec3>, tol: f64) -> Vec<DVec3> {
     let mut out = points;
-    let mut i = 1;
+    let mut i = 2;
     while out.len() > 3 && i < out.len() {
         let k = out.len();
         let (Some(&a), Some(&b), Some(&c)) = (out.get(i - 1), out.get(i), out.get((i + 1) % k)) else {
