@@ -6,10 +6,13 @@
 //! geometry.
 
 mod board;
+mod builders;
+mod checks;
 mod cuts;
 mod error;
 mod frame;
 mod joints;
+mod labels;
 mod layout;
 mod measure;
 mod member;

@@ -1,0 +1,601 @@
+//! Building each piece's spec: the board, where it sits, and the planes
+//! that cut it (ridges, commons and jacks, hips, valleys).
+
+use glam::{DVec2, DVec3};
+
+use super::board::{BoardFrame, PieceSpec, SeatWall};
+use super::layout::{EdgeKind, King, PlanLine, RafterLine};
+use super::plane_frame::{PLAN_TOL_IN, PlaneFrame};
+use super::{CutEnd, FaceTag, FramingSettings, HalfSpace, HipTop, MemberKind, TailCut};
+use crate::RoofLineKind;
+
+/// Lengths within this of a stock length fit it: layouts in whole spaces
+/// land splices exactly on stock lengths, and round-off must not tip them.
+pub const STOCK_TOL_IN: f64 = 1e-6;
+
+/// What a piece bears on, as known while pieces are still being built.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Bearing {
+    /// A piece already built, by index.
+    Piece(usize),
+    /// The member built on a roof line, by line index (a ridge line may
+    /// have several pieces; the nearest is taken).
+    Line(usize),
+}
+
+/// The vertical plane `thickness / 2` from a line's centre toward `toward`,
+/// keeping `toward`'s side.
+pub fn side_face(
+    a: DVec2,
+    b: DVec2,
+    thickness: f64,
+    toward: DVec2,
+    tag: FaceTag,
+    end: CutEnd,
+) -> Option<HalfSpace> {
+    let dir = (b - a).try_normalize()?;
+    let n = dir.perp();
+    let sign = if n.dot(toward - a) >= 0.0 { 1.0 } else { -1.0 };
+    let point = a + n * (sign * thickness / 2.0);
+    HalfSpace::through(point.extend(0.0), (-n * sign).extend(0.0), tag, Some(end))
+}
+
+/// Plumb when square across the member, cheek otherwise.
+pub fn cut_tag(h: &HalfSpace, frame: &BoardFrame) -> FaceTag {
+    if h.normal.dot(frame.side).abs() < 1e-9 { FaceTag::Plumb } else { FaceTag::Cheek }
+}
+
+/// What every builder needs.
+pub struct Ctx<'a> {
+    /// Every roof plane with its wall's frame.
+    pub planes: &'a [PlaneFrame],
+    /// Every ridge, hip and valley in plan.
+    pub lines: &'a [PlanLine],
+    /// Every rafter line laid out.
+    pub rafters: &'a [RafterLine],
+    /// The roof's heel height.
+    pub heel: f64,
+    /// The settings.
+    pub settings: &'a FramingSettings,
+}
+
+/// A hip or valley: its spec, the pieces it bears on with the mating
+/// planes, and whether its top met no ridge.
+pub type Built = (PieceSpec, Vec<(Bearing, HalfSpace)>, bool);
+
+/// A bearing named by roof line (resolved to a piece later) with the
+/// mating plane.
+pub type LineBearing = Option<(usize, HalfSpace)>;
+
+impl Ctx<'_> {
+    /// The tail cuts of a rafter in plane `p` on board `frame`.
+    pub fn tail_cuts(&self, p: &PlaneFrame, frame: &BoardFrame) -> Vec<HalfSpace> {
+        let o = p.overhang_in;
+        let mut cuts = Vec::new();
+        match self.settings.tail {
+            TailCut::Plumb => cuts.extend(p.wall_side(o, true, FaceTag::Tail, Some(CutEnd::Tail))),
+            TailCut::Square => {
+                let top = frame.origin + frame.along * (-o * (1.0 + p.slope * p.slope).sqrt());
+                cuts.extend(HalfSpace::through(top, -frame.along, FaceTag::Tail, Some(CutEnd::Tail)));
+            }
+            TailCut::PlumbAndLevel { plumb_height_in } => {
+                cuts.extend(p.wall_side(o, true, FaceTag::Tail, Some(CutEnd::Tail)));
+                let z = self.heel - p.slope * o - plumb_height_in;
+                cuts.extend(HalfSpace::through(
+                    DVec3::new(0.0, 0.0, z),
+                    -DVec3::Z,
+                    FaceTag::Soffit,
+                    Some(CutEnd::Tail),
+                ));
+            }
+        }
+        cuts
+    }
+
+    /// The ridge's height at its top: flush with the rafters' tops at its
+    /// side faces (the lower side where pitches differ).
+    pub fn ridge_top(&self, line: &PlanLine) -> f64 {
+        let t = self.settings.ridge.thickness_in;
+        let dir = (line.to - line.from).normalize_or_zero();
+        line.planes
+            .iter()
+            .filter_map(|&pi| self.planes.get(pi))
+            .map(|p| {
+                let n = dir.perp();
+                let sign = if n.dot(p.inward) < 0.0 { 1.0 } else { -1.0 };
+                self.heel + p.height(line.from + n * (sign * t / 2.0))
+            })
+            .fold(f64::INFINITY, f64::min)
+    }
+
+    /// The ridge's pieces, split so none is longer than the longest stock,
+    /// splices on common-rafter lines where they fall right.
+    pub fn ridge_specs(&self, li: usize, line: &PlanLine) -> Vec<PieceSpec> {
+        let Some(dir) = (line.to - line.from).try_normalize() else {
+            return Vec::new();
+        };
+        let len = line.from.distance(line.to);
+        let half_rafter = self.settings.rafter.thickness_in / 2.0;
+        let hip_end = |node: DVec2| {
+            self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3)
+        };
+        // Where an earlier ridge meets this one at an angle, this one butts
+        // against its side; otherwise a hip end runs half a rafter past the
+        // node, flush with the side kings' faces.
+        let butt = |node: DVec2| -> Option<f64> {
+            self.lines.iter().take(li).filter(|l| l.kind == RoofLineKind::Ridge && l.touches(node)).find_map(
+                |l| {
+                    let other = (l.to - l.from).try_normalize()?;
+                    let sin = other.perp_dot(dir).abs();
+                    (sin > 1e-6).then(|| self.settings.ridge.thickness_in / 2.0 / sin)
+                },
+            )
+        };
+        let end_offset = |node: DVec2| match butt(node) {
+            Some(back) => -back,
+            None if hip_end(node) => half_rafter,
+            None => 0.0,
+        };
+        let start = -end_offset(line.from);
+        let end = len + end_offset(line.to);
+        let top = self.ridge_top(line);
+        let commons: Vec<f64> = self
+            .rafters
+            .iter()
+            .filter(|r| r.upper_edge == EdgeKind::Line(li) && r.king.is_none())
+            .map(|r| (r.upper - line.from).dot(dir))
+            .collect();
+        // As few pieces as the stock allows, each splice on the common
+        // nearest an even split that keeps every piece within the stock.
+        let longest = self.settings.longest_stock_in().unwrap_or(f64::INFINITY);
+        let total = end - start;
+        let pieces = if longest.is_finite() && longest > 0.0 {
+            ((total - STOCK_TOL_IN) / longest).ceil().max(1.0) as usize
+        } else {
+            1
+        };
+        let mut cuts_at = vec![start];
+        for k in 1..pieces {
+            let prev = cuts_at.last().copied().unwrap_or(start);
+            let target = start + total * k as f64 / pieces as f64;
+            let fits = |c: f64| {
+                c - prev <= longest + STOCK_TOL_IN && end - c <= (pieces - k) as f64 * longest + STOCK_TOL_IN
+            };
+            let splice = commons
+                .iter()
+                .copied()
+                .filter(|c| *c > prev && fits(*c))
+                .min_by(|a, b| (a - target).abs().total_cmp(&(b - target).abs()));
+            cuts_at.push(splice.unwrap_or(target));
+        }
+        cuts_at.push(end);
+        let Some(frame0) = BoardFrame::new(line.from.extend(top), dir, 0.0) else {
+            return Vec::new();
+        };
+        cuts_at
+            .windows(2)
+            .filter_map(|w| {
+                let (a, b) = (w[0], w[1]);
+                let pa = line.from + dir * a;
+                let pb = line.from + dir * b;
+                let lo =
+                    HalfSpace::through(pa.extend(top), -frame0.along, FaceTag::End, Some(CutEnd::Start))?;
+                let hi = HalfSpace::through(pb.extend(top), frame0.along, FaceTag::End, Some(CutEnd::End))?;
+                Some(PieceSpec {
+                    kind: MemberKind::Ridge,
+                    size: self.settings.ridge,
+                    frame: BoardFrame { origin: pa.extend(top), ..frame0 },
+                    plan_line: [pa, pb],
+                    slope: 0.0,
+                    top_planes: Vec::new(),
+                    upper_cuts: vec![hi],
+                    lower_cuts: vec![lo],
+                    seat: Vec::new(),
+                    has_tail: false,
+                    drop_in: 0.0,
+                })
+            })
+            .collect()
+    }
+
+    /// A common, king or jack, with the roof lines it bears on.
+    pub fn rafter_spec(
+        &self,
+        r: &RafterLine,
+        kind: MemberKind,
+    ) -> Option<(PieceSpec, LineBearing, LineBearing, LineBearing)> {
+        let p = self.planes.get(r.plane)?;
+        let size = self.settings.rafter;
+        let seated = r.lower_edge == EdgeKind::Eave;
+        let origin = r.lower.extend(self.heel + p.height(r.lower));
+        let frame = BoardFrame::new(origin, r.upper - r.lower, p.slope)?;
+        let mid = (r.lower + r.upper) / 2.0;
+        let line_face = |edge: EdgeKind, end: CutEnd| -> Option<(usize, HalfSpace)> {
+            let EdgeKind::Line(li) = edge else {
+                return None;
+            };
+            let line = self.lines.get(li)?;
+            let t = match line.kind {
+                RoofLineKind::Ridge => self.settings.ridge.thickness_in,
+                RoofLineKind::Hip => self.settings.hip.thickness_in,
+                RoofLineKind::Valley => self.settings.valley.thickness_in,
+            };
+            let mut h = side_face(line.from, line.to, t, mid, FaceTag::Cheek, end)?;
+            h.tag = cut_tag(&h, &frame);
+            Some((li, h))
+        };
+        let upper = match r.king {
+            Some(King::End { ridge }) => {
+                let line = self.lines.get(ridge)?;
+                // The ridge runs half a rafter thickness past its hip end,
+                // flush with the side kings' faces.
+                let out = if line.from.distance(r.upper) < line.to.distance(r.upper) {
+                    (line.from - line.to).try_normalize()?
+                } else {
+                    (line.to - line.from).try_normalize()?
+                };
+                let face = r.upper + out * (size.thickness_in / 2.0);
+                let mut h = HalfSpace::through(
+                    face.extend(0.0),
+                    (-out).extend(0.0),
+                    FaceTag::Plumb,
+                    Some(CutEnd::Top),
+                )?;
+                h.tag = cut_tag(&h, &frame);
+                Some((ridge, h))
+            }
+            _ => line_face(r.upper_edge, CutEnd::Top),
+        };
+        let (upper_line, upper_cut) = upper?;
+        // Into a corner of two hips: a double cheek, one against each.
+        let not_ridge = |e: EdgeKind| match e {
+            EdgeKind::Line(li) => self.lines.get(li).is_some_and(|l| l.kind != RoofLineKind::Ridge),
+            _ => false,
+        };
+        let also = r
+            .upper_also
+            .filter(|e| not_ridge(*e) && not_ridge(r.upper_edge))
+            .and_then(|e| line_face(e, CutEnd::Top));
+        let mut lower_cuts = Vec::new();
+        let mut lower_bearing = None;
+        let mut seat = Vec::new();
+        let has_tail = seated && p.overhang_in > 0.0;
+        if seated {
+            seat.push(SeatWall {
+                inside: p.wall_side(0.0, true, FaceTag::Interior, None)?,
+                half_cuts: Vec::new(),
+            });
+            if has_tail {
+                lower_cuts.extend(self.tail_cuts(p, &frame));
+                // Tails fan in over an inside corner: near it they are cut
+                // back to the side of the valley's tail.
+                for l in self.lines.iter().filter(|l| l.kind == RoofLineKind::Valley) {
+                    let at_wall_end = [p.start, p.end].iter().any(|c| c.distance(l.from) < PLAN_TOL_IN * 1e3);
+                    if at_wall_end {
+                        lower_cuts.extend(side_face(
+                            l.from,
+                            l.to,
+                            self.settings.valley.thickness_in,
+                            mid,
+                            FaceTag::Tail,
+                            CutEnd::Tail,
+                        ));
+                    }
+                }
+            }
+        } else {
+            let (li, h) = line_face(r.lower_edge, CutEnd::Bottom)?;
+            lower_cuts.push(h);
+            lower_bearing = Some((li, h));
+        }
+        let spec = PieceSpec {
+            kind,
+            size,
+            frame,
+            plan_line: [r.lower, r.upper],
+            slope: p.slope,
+            top_planes: Vec::new(),
+            upper_cuts: std::iter::once(upper_cut).chain(also.map(|(_, h)| h)).collect(),
+            lower_cuts,
+            seat,
+            has_tail,
+            drop_in: 0.0,
+        };
+        Some((spec, Some((upper_line, upper_cut)), lower_bearing, also))
+    }
+
+    /// Whether planes `a` and `b` are one roof plane (the same, or parts of
+    /// coplanar walls: a roof line may name either wall).
+    pub fn same_group(&self, a: usize, b: usize) -> bool {
+        a == b
+            || match (self.planes.get(a), self.planes.get(b)) {
+                (Some(pa), Some(pb)) => pa.coplanar_walls.contains(&pb.wall),
+                _ => false,
+            }
+    }
+
+    /// Whether plan point `p` lies on plane `a` or a part coplanar with it.
+    pub fn group_contains(&self, a: usize, p: DVec2) -> bool {
+        (0..self.planes.len()).any(|j| self.same_group(a, j) && self.planes[j].contains(p))
+    }
+
+    /// Cuts for a hip top at a peak where hips meet with no ridge: for each
+    /// other hip there, the vertical plane halving the plan angle between
+    /// the two, so the hips share the space round the peak without
+    /// overlapping. `far` is this hip's other end. None where a hip also
+    /// rises on from the node.
+    pub fn hub_cuts(&self, node: DVec2, far: DVec2, end: CutEnd, frame: &BoardFrame) -> Vec<HalfSpace> {
+        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
+        let Some(mine) = (far - node).try_normalize() else { return Vec::new() };
+        // Where hips merge into one rising on (irregular plans) the node
+        // is left to a fitted block: the ends are cut plumb and flagged.
+        if self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && near(l.from)) {
+            return Vec::new();
+        }
+        self.lines
+            .iter()
+            .enumerate()
+            .filter(|(_, l)| l.kind == RoofLineKind::Hip)
+            .filter_map(|(_, l)| {
+                let other_far = if near(l.to) {
+                    l.from
+                } else if near(l.from) {
+                    l.to
+                } else {
+                    return None;
+                };
+                if other_far.distance(far) < PLAN_TOL_IN * 1e3 {
+                    return None;
+                }
+                let theirs = (other_far - node).try_normalize()?;
+                // Nearer this hip's line: (p - node) . (mine - theirs) >= 0.
+                let h = HalfSpace::through(
+                    node.extend(0.0),
+                    (theirs - mine).extend(0.0),
+                    FaceTag::Cheek,
+                    Some(end),
+                )?;
+                Some(HalfSpace { tag: cut_tag(&h, frame), ..h })
+            })
+            .collect()
+    }
+
+    /// The plane of a hip or valley on its left and right, looking up it.
+    pub fn sides(&self, line: &PlanLine) -> Option<(usize, usize)> {
+        let dir = (line.to - line.from).try_normalize()?;
+        let mid = (line.from + line.to) / 2.0;
+        let probe = mid + dir.perp() * (line.from.distance(line.to) * 1e-3).min(1.0);
+        let [a, b] = line.planes;
+        let a_left = self.group_contains(a, probe);
+        Some(if a_left { (a, b) } else { (b, a) })
+    }
+
+    /// A hip: seated over its corner, backed or dropped, its top double
+    /// cheek against the king commons at the ridge end.
+    pub fn hip_spec(&self, line: &PlanLine, rafter_piece: &[Option<usize>]) -> Option<Built> {
+        let (left, right) = self.sides(line)?;
+        let (pl, pr) = (self.planes.get(left)?, self.planes.get(right)?);
+        let size = self.settings.hip;
+        let run = line.from.distance(line.to);
+        let slope = (line.to_z - line.from_z) / run;
+        let probe = BoardFrame::new(line.from.extend(self.heel), line.to - line.from, slope)?;
+        let half = size.thickness_in / 2.0;
+        let corner_drop = |p: &PlaneFrame, sign: f64| {
+            let at = line.from + probe.side.truncate() * (sign * half);
+            (line.from_z - p.height(at)).max(0.0)
+        };
+        let (drop_in, top_planes) = match self.settings.hip_top {
+            HipTop::Dropped => (corner_drop(pl, 1.0).max(corner_drop(pr, -1.0)), Vec::new()),
+            HipTop::Backed => (
+                0.0,
+                [pl, pr]
+                    .iter()
+                    .filter_map(|p| p.below_top(self.heel, FaceTag::Backing, Some(CutEnd::FullLength)))
+                    .collect(),
+            ),
+        };
+        let frame = BoardFrame { origin: line.from.extend(line.from_z + self.heel - drop_in), ..probe };
+        let mid = (line.from + line.to) / 2.0;
+        let mut upper_cuts = Vec::new();
+        let mut bearings = Vec::new();
+        let mut peak_without_ridge = false;
+        // A hip that starts up on the roof (where a valley and a ridge end)
+        // has no seat: it sits against what is framed there first.
+        let seated = line.from_z.abs() < 1e-6;
+        let mut foot_without_ridge = false;
+        let mut foot_cuts = Vec::new();
+        if !seated {
+            for (k, other) in self.lines.iter().enumerate() {
+                // Hips meeting hips with no ridge are flagged for a fitted
+                // block instead (below).
+                let meets = match other.kind {
+                    RoofLineKind::Ridge => other.touches(line.from),
+                    RoofLineKind::Valley => {
+                        other.to.distance(line.from) < PLAN_TOL_IN * 1e3
+                            && other.from.distance(line.from) > PLAN_TOL_IN * 1e3
+                    }
+                    RoofLineKind::Hip => false,
+                };
+                if !meets || std::ptr::eq(other, line) {
+                    continue;
+                }
+                let thickness = match other.kind {
+                    RoofLineKind::Ridge => self.settings.ridge.thickness_in,
+                    RoofLineKind::Hip => self.settings.hip.thickness_in,
+                    RoofLineKind::Valley => self.settings.valley.thickness_in,
+                };
+                let Some(mut h) =
+                    side_face(other.from, other.to, thickness, mid, FaceTag::Cheek, CutEnd::Bottom)
+                else {
+                    continue;
+                };
+                h.tag = cut_tag(&h, &frame);
+                foot_cuts.push(h);
+                bearings.push((Bearing::Line(k), h));
+            }
+            if foot_cuts.is_empty() {
+                foot_without_ridge = true;
+                foot_cuts.extend(self.hub_cuts(line.from, line.to, CutEnd::Bottom, &probe));
+            }
+            if foot_cuts.is_empty() {
+                foot_cuts.extend(HalfSpace::through(
+                    line.from.extend(line.from_z),
+                    (line.from - line.to).extend(0.0),
+                    FaceTag::Plumb,
+                    Some(CutEnd::Bottom),
+                ));
+            }
+        }
+        for &pi in &[left, right] {
+            // The king in this plane at the hip's top, if any.
+            let king = self.rafters.iter().enumerate().find(|(_, r)| {
+                self.same_group(r.plane, pi)
+                    && r.king.is_some()
+                    && r.upper.distance(line.to) < PLAN_TOL_IN * 1e3
+            });
+            match king {
+                Some((ki, r)) => {
+                    let mut h = side_face(
+                        r.lower,
+                        r.upper,
+                        self.settings.rafter.thickness_in,
+                        mid,
+                        FaceTag::Cheek,
+                        CutEnd::Top,
+                    )?;
+                    h.tag = cut_tag(&h, &frame);
+                    upper_cuts.push(h);
+                    if let Some(Some(piece)) = rafter_piece.get(ki) {
+                        bearings.push((Bearing::Piece(*piece), h));
+                    }
+                }
+                None => peak_without_ridge = true,
+            }
+        }
+        if upper_cuts.is_empty() {
+            // Hips meeting at a peak with no ridge: each keeps the plan
+            // angle nearer its own line than any other's.
+            let hub = self.hub_cuts(line.to, line.from, CutEnd::Top, &frame);
+            if hub.is_empty() {
+                upper_cuts.extend(HalfSpace::through(
+                    line.to.extend(line.to_z),
+                    (line.to - line.from).extend(0.0),
+                    FaceTag::Plumb,
+                    Some(CutEnd::Top),
+                ));
+            }
+            // No joint is claimed at a hub: it needs a fitted block.
+            upper_cuts.extend(hub);
+        } else {
+            peak_without_ridge = false;
+        }
+        let has_tail = seated && pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
+        let mut lower_cuts = foot_cuts;
+        if has_tail {
+            lower_cuts.extend(pl.wall_side(pl.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
+            lower_cuts.extend(pr.wall_side(pr.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
+            if let TailCut::PlumbAndLevel { plumb_height_in } = self.settings.tail {
+                let z = [pl, pr]
+                    .iter()
+                    .map(|p| self.heel - p.slope * p.overhang_in - plumb_height_in)
+                    .fold(f64::INFINITY, f64::min);
+                lower_cuts.extend(HalfSpace::through(
+                    DVec3::new(0.0, 0.0, z),
+                    -DVec3::Z,
+                    FaceTag::Soffit,
+                    Some(CutEnd::Tail),
+                ));
+            }
+        }
+        let seat = if seated {
+            vec![
+                SeatWall { inside: pl.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
+                SeatWall { inside: pr.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
+            ]
+        } else {
+            Vec::new()
+        };
+        let spec = PieceSpec {
+            kind: MemberKind::Hip,
+            size,
+            frame,
+            plan_line: [line.from, line.to],
+            slope,
+            top_planes,
+            upper_cuts,
+            lower_cuts,
+            seat,
+            has_tail,
+            drop_in,
+        };
+        Some((spec, bearings, peak_without_ridge || foot_without_ridge))
+    }
+
+    /// A valley: its centre line in both planes, seated over the inside
+    /// corner, its top against the ridge boards it meets.
+    pub fn valley_spec(&self, line: &PlanLine) -> Option<Built> {
+        let (left, right) = self.sides(line)?;
+        let (pl, pr) = (self.planes.get(left)?, self.planes.get(right)?);
+        let size = self.settings.valley;
+        let run = line.from.distance(line.to);
+        let slope = (line.to_z - line.from_z) / run;
+        let frame = BoardFrame::new(line.from.extend(self.heel), line.to - line.from, slope)?;
+        let mid = (line.from + line.to) / 2.0;
+        // The top bears on the side of each ridge board at the node.
+        let mut upper_cuts = Vec::new();
+        let mut ridges = Vec::new();
+        for (ri, r) in self.lines.iter().enumerate() {
+            if r.kind != RoofLineKind::Ridge || !r.touches(line.to) {
+                continue;
+            }
+            let mut h =
+                side_face(r.from, r.to, self.settings.ridge.thickness_in, mid, FaceTag::Cheek, CutEnd::Top)?;
+            h.tag = cut_tag(&h, &frame);
+            upper_cuts.push(h);
+            ridges.push((ri, h));
+        }
+        if upper_cuts.is_empty() {
+            upper_cuts.extend(HalfSpace::through(
+                line.to.extend(line.to_z),
+                (line.to - line.from).extend(0.0),
+                FaceTag::Plumb,
+                Some(CutEnd::Top),
+            ));
+        }
+        let has_tail = pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
+        // Over an inside corner each half ends at its own side's fascia.
+        let half = |p: &PlaneFrame| -> Option<SeatWall> {
+            let mut half_cuts = Vec::new();
+            if has_tail {
+                half_cuts.extend(p.wall_side(p.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
+                if let TailCut::PlumbAndLevel { plumb_height_in } = self.settings.tail {
+                    let z = self.heel - p.slope * p.overhang_in - plumb_height_in;
+                    half_cuts.extend(HalfSpace::through(
+                        DVec3::new(0.0, 0.0, z),
+                        -DVec3::Z,
+                        FaceTag::Soffit,
+                        Some(CutEnd::Tail),
+                    ));
+                }
+            }
+            Some(SeatWall { inside: p.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts })
+        };
+        let seat = vec![half(pl)?, half(pr)?];
+        let spec = PieceSpec {
+            kind: MemberKind::Valley,
+            size,
+            frame,
+            plan_line: [line.from, line.to],
+            slope,
+            top_planes: Vec::new(),
+            upper_cuts,
+            lower_cuts: Vec::new(),
+            seat,
+            has_tail,
+            drop_in: 0.0,
+        };
+        // Ridge bearings are resolved to pieces by the caller.
+        let bearings = ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).collect();
+        Some((spec, bearings, false))
+    }
+}
