@@ -374,19 +374,32 @@ fn plane_groups(lines: &[WallLine], tol: &Tolerance) -> Vec<usize> {
 /// keeping the first two (the wall's ends, which must stay even when the
 /// next wall runs on nearly in line).
 fn drop_collinear(points: Vec<DVec3>, tol: f64) -> Vec<DVec3> {
-    let mut out = points;
-    let mut i = 2;
-    while out.len() > 3 && i < out.len() {
-        let k = out.len();
-        let (Some(&a), Some(&b), Some(&c)) = (out.get(i - 1), out.get(i), out.get((i + 1) % k)) else {
-            break;
-        };
+    let straight = |a: DVec3, b: DVec3, c: DVec3| {
         let (ab, bc) = (b - a, c - b);
-        let straight = ab.cross(bc).length() <= tol * (ab.length() + bc.length()) && ab.dot(bc) >= 0.0;
-        if straight || ab.length() <= tol {
-            out.remove(i);
+        ab.length() <= tol
+            || (ab.cross(bc).length() <= tol * (ab.length() + bc.length()) && ab.dot(bc) >= 0.0)
+    };
+    // One pass with a stack: a point is dropped when it lies straight
+    // between the last point kept and the next one.
+    let mut out: Vec<DVec3> = Vec::with_capacity(points.len());
+    for p in points {
+        while out.len() > 2 {
+            let (Some(&a), Some(&b)) = (out.get(out.len() - 2), out.last()) else { break };
+            if straight(a, b, p) {
+                out.pop();
+            } else {
+                break;
+            }
+        }
+        out.push(p);
+    }
+    // The last point against the first closes the ring.
+    while out.len() > 3 {
+        let (Some(&a), Some(&b), Some(&c)) = (out.get(out.len() - 2), out.last(), out.first()) else { break };
+        if straight(a, b, c) {
+            out.pop();
         } else {
-            i += 1;
+            break;
         }
     }
     out
