@@ -265,3 +265,26 @@ fn the_parry_check_sees_a_jack_moved_off_its_hip() {
         assert_abs_diff_eq!(overlap, want_overlap, epsilon = 1e-6);
     }
 }
+
+#[test]
+fn hip_tail_runs_at_the_hip_factor_to_the_fascia_corner() {
+    for rise in [4.0, 6.0, 9.0, 12.0] {
+        let r = rise / 12.0;
+        let (outline, roof) = rect_hip(720.0, 300.0, r, r, 16.0);
+        let frame = frame_roof(&outline, &roof, &spaced(16.0)).unwrap();
+        let hip = of_kind(&frame, MemberKind::Hip)[0];
+        // trade.md section 6: the tail is the horizontal overhang at the
+        // member's own factor; a regular hip's runs 16 in of common run at
+        // Lh / 12 per inch to the corner where the fascias meet, ending in a
+        // double cheek square to each fascia (45 deg on the face).
+        let lh = (288.0 + rise * rise).sqrt();
+        assert_abs_diff_eq!(hip.tail_length, 16.0 * lh / 12.0, epsilon = 1e-9);
+        let Some(Cut::Tail { faces, .. }) = hip.cuts.iter().find(|c| matches!(c, Cut::Tail { .. })) else {
+            panic!()
+        };
+        assert_eq!(faces.len(), 2);
+        for f in faces {
+            assert_abs_diff_eq!(f.face_bevel_deg, 45.0, epsilon = 1e-9);
+        }
+    }
+}

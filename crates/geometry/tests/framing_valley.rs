@@ -62,3 +62,26 @@ fn l_roof_has_a_valley_and_valley_jacks_that_fit() {
         );
     }
 }
+
+#[test]
+fn valley_sits_at_the_commons_heel_undropped() {
+    let r = 0.5;
+    let (outline, roof) = l_hip(288.0, r, 12.0);
+    let frame = frame_roof(&outline, &roof, &spaced(16.0)).unwrap();
+    let heel_of = |kind| {
+        of_kind(&frame, kind)[0]
+            .cuts
+            .iter()
+            .find_map(|c| match c {
+                Cut::Seat { heel_height_in, drop_in, .. } => Some((*heel_height_in, *drop_in)),
+                _ => None,
+            })
+            .unwrap()
+    };
+    // trade.md sections 4 and 6: a valley's centre line lies in both
+    // planes, so it seats at the commons' heel with no drop.
+    let (common_heel, _) = heel_of(MemberKind::Common);
+    let (valley_heel, valley_drop) = heel_of(MemberKind::Valley);
+    assert_abs_diff_eq!(valley_heel, common_heel, epsilon = 1e-9);
+    assert_abs_diff_eq!(valley_drop, 0.0, epsilon = 1e-12);
+}
