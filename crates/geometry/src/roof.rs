@@ -153,12 +153,26 @@ impl Roof {
     /// Wall indices in the result are global: outer walls `0..n` in the
     /// user's order, then each courtyard's walls continuing the count.
     ///
-    /// Where two walls run on in line, or two parallel wall lines come to
-    /// meet during the solve, with different pitches, the result is not
-    /// fixed by the planes alone; the rule here is that the lower-pitch
-    /// plane (the faster-moving line in plan) wins: the corner between them
-    /// keeps to the lower plane's line, moving square to it, and the
-    /// steeper plane stands a vertical step above it along that line.
+    /// Rules where the planes alone leave a choice:
+    /// - **Parallel walls of different pitch that come into line** during
+    ///   the solve (a step between them has closed): the lower-pitch plane
+    ///   (the faster line in plan) wins. From that height on it is the
+    ///   lower plane over the whole shared stretch, so it takes over the
+    ///   steeper plane's remaining edge at once and the two meet in a level
+    ///   line (reported as a ridge, or as a valley where the roof is the
+    ///   higher of the two planes). Walls given in line with different
+    ///   pitches never reach the solve: outline validation refuses them.
+    /// - **Walls in line at one pitch** share one plane: each wall keeps its
+    ///   own part, divided along the line square to the wall at their shared
+    ///   corner; [`RoofPlane::coplanar_walls`] names the others, and their
+    ///   ridges, hips and valleys are reported once, under the
+    ///   lowest-numbered of them.
+    /// - **A gable at an inside corner** keeps its vertical face running on
+    ///   along its line past the corner until the planes either side meet:
+    ///   the plane beyond the corner starts at height 0 there, the one over
+    ///   the gable does not, so the roof steps at a vertical face.
+    /// - **Part of the plan ringed by gables only** gets no plane:
+    ///   [`RoofError::GablesOnly`].
     ///
     /// ```
     /// use glam::DVec2;
