@@ -423,10 +423,13 @@ fn drop_collinear(points: Vec<DVec3>, tol: f64) -> Vec<DVec3> {
 fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
     let mut owner: HashMap<(usize, usize), usize> = HashMap::new();
     for (w, face) in sk.faces.iter().enumerate() {
-        let k = face.len();
-        for i in 0..k {
-            if let (Some(&a), Some(&b)) = (face.get(i), face.get((i + 1) % k)) {
-                owner.insert((a, b), w);
+        let loops = std::iter::once(face).chain(sk.holes.get(w).into_iter().flatten());
+        for lp in loops {
+            let k = lp.len();
+            for i in 0..k {
+                if let (Some(&a), Some(&b)) = (lp.get(i), lp.get((i + 1) % k)) {
+                    owner.insert((a, b), w);
+                }
             }
         }
     }
@@ -475,7 +478,25 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             };
             sides.push(side);
         }
-        let outline = face.iter().map(|&n| node_pos(n).extend(line.plane_height(node_pos(n)))).collect();
+        let holes = sk.holes.get(w).map(Vec::as_slice).unwrap_or_default();
+        for lp in holes {
+            let k = lp.len();
+            for i in 0..k {
+                let (Some(&a), Some(&b)) = (lp.get(i), lp.get((i + 1) % k)) else { continue };
+                if let Some(other) = owner.get(&(b, a)).and_then(|&o| sk.lines.get(o))
+                    && other.rise.is_some()
+                {
+                    let (cw, co) = (canonical(w), canonical(other.wall));
+                    if co > cw {
+                        segments.entry((cw, co)).or_default().push((a, b));
+                    }
+                }
+            }
+        }
+        let to_3d = |lp: &[usize]| -> Vec<DVec3> {
+            lp.iter().map(|&n| node_pos(n).extend(line.plane_height(node_pos(n)))).collect()
+        };
+        let outline = to_3d(&with_holes(face, holes, &node_pos));
         let eave = eave_outline(w, &sk.lines, &sk.nodes, face, &sides);
         let coplanar_walls: Vec<usize> = members
             .get(&canonical(w))
@@ -521,6 +542,33 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         }
     }
     Roof { planes, lines, gables }
+}
+
+/// The face's outer walk with each inner loop joined in by a cut: from the
+/// outer node nearest the loop, round the loop, and back along the cut.
+/// Such a plane (a low-pitch plane flowing all round a courtyard's island
+/// of steeper planes) stays one outline whose shoelace area is right.
+fn with_holes(face: &[usize], holes: &[Vec<usize>], pos: &dyn Fn(usize) -> DVec2) -> Vec<usize> {
+    let mut out = face.to_vec();
+    for lp in holes {
+        let mut best: Option<(f64, usize, usize)> = None;
+        // Never cut from the wall's own two corners, which lead the outline.
+        for (i, &a) in out.iter().enumerate().skip(2) {
+            for (j, &b) in lp.iter().enumerate() {
+                let d = pos(a).distance_squared(pos(b));
+                if best.is_none_or(|x| d < x.0) {
+                    best = Some((d, i, j));
+                }
+            }
+        }
+        let Some((_, i, j)) = best else { continue };
+        let Some(&at) = out.get(i) else { continue };
+        let k = lp.len();
+        let mut insert: Vec<usize> = (0..=k).filter_map(|m| lp.get((j + m) % k).copied()).collect();
+        insert.push(at);
+        out.splice(i + 1..i + 1, insert);
+    }
+    out
 }
 
 /// Joins segments (node pairs) that continue each other in a straight line.

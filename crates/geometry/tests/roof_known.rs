@@ -917,3 +917,15 @@ fn cross_with_uneven_arms_reports_the_long_ridge() {
         DVec3::new(270.0, 378.0, 90.0)
     ));
 }
+#[test]
+fn steep_courtyard_in_a_low_pitch_block() {
+    // A small courtyard at 9 in 12 inside a block at 2 in 12: the low
+    // planes run faster than the courtyard's steep ones and close right
+    // round them, so the long planes carry the courtyard's island as a
+    // hole; the areas must still add up.
+    let outer = ring(&[(0.0, 0.0), (566.0, 0.0), (566.0, 300.0), (0.0, 300.0)], 2.0 / 12.0);
+    let hole = ring(&[(198.0, 53.0), (254.0, 53.0), (254.0, 93.0), (198.0, 93.0)], 0.75);
+    let (roof, walls) = solve(outer.clone(), vec![hole.clone()]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[hole]));
+    assert_eq!(roof.planes.len(), 8);
+}

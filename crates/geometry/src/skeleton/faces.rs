@@ -4,12 +4,17 @@ use std::collections::HashMap;
 
 use super::wavefront::NodeId;
 
+/// A face's boundary: the outer walk and any inner loops.
+pub(crate) type FaceBoundary = (Vec<NodeId>, Vec<Vec<NodeId>>);
+
 /// Chains `arcs` (face on the left) into one closed walk starting with the
-/// arc `first`. Opposite arcs within the face cancel (they are the two sides
-/// of a square line between two pieces of the same wall line). Returns the
-/// nodes in order (without repeating the first), or `None` if the arcs do
-/// not close into one boundary.
-pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> Option<Vec<NodeId>> {
+/// arc `first`, plus closed loops for what is left: a low-pitch plane can
+/// flow all round a courtyard's island of steeper planes, so its face has
+/// holes. Opposite arcs within the face cancel (they are the two sides of a
+/// square line between two pieces of the same wall line). Returns the nodes
+/// of each walk in order (without repeating the first), or `None` if the
+/// arcs do not close into boundaries.
+pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> Option<FaceBoundary> {
     let mut count: HashMap<(NodeId, NodeId), i64> = HashMap::new();
     for &arc in std::iter::once(&first).chain(arcs) {
         if arc.0 == arc.1 {
@@ -49,11 +54,36 @@ pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> 
         }
     }
     walk.reverse();
-    if walk.len() != total + 1 || walk.first() != walk.last() || walk.first() != Some(&first.0) {
+    if walk.first() != walk.last() || walk.first() != Some(&first.0) {
         return None;
     }
     walk.pop();
-    Some(walk)
+    let mut used = walk.len();
+    let mut holes = Vec::new();
+    while used < total {
+        let mut keys: Vec<NodeId> = out.iter().filter(|(_, v)| !v.is_empty()).map(|(k, _)| *k).collect();
+        keys.sort_unstable();
+        let start = *keys.first()?;
+        let mut stack = vec![start];
+        let mut lp: Vec<NodeId> = Vec::new();
+        while let Some(&top) = stack.last() {
+            match out.get_mut(&top).and_then(Vec::pop) {
+                Some(next) => stack.push(next),
+                None => {
+                    lp.push(top);
+                    stack.pop();
+                }
+            }
+        }
+        lp.reverse();
+        if lp.len() < 2 || lp.first() != lp.last() {
+            return None;
+        }
+        lp.pop();
+        used += lp.len();
+        holes.push(lp);
+    }
+    Some((walk, holes))
 }
 
 #[cfg(test)]
@@ -63,13 +93,19 @@ mod tests {
     #[test]
     fn square_face_chains_in_order() {
         let arcs = [(2, 3), (3, 0), (1, 2)];
-        assert_eq!(chain_face((0, 1), &arcs), Some(vec![0, 1, 2, 3]));
+        assert_eq!(chain_face((0, 1), &arcs), Some((vec![0, 1, 2, 3], vec![])));
     }
 
     #[test]
     fn opposite_arcs_cancel() {
         let arcs = [(1, 2), (2, 5), (5, 2), (2, 0)];
-        assert_eq!(chain_face((0, 1), &arcs), Some(vec![0, 1, 2]));
+        assert_eq!(chain_face((0, 1), &arcs), Some((vec![0, 1, 2], vec![])));
+    }
+
+    #[test]
+    fn a_loop_left_over_is_a_hole() {
+        let arcs = [(1, 2), (2, 0), (5, 7), (7, 6), (6, 5)];
+        assert_eq!(chain_face((0, 1), &arcs), Some((vec![0, 1, 2], vec![vec![5, 7, 6]])));
     }
 
     #[test]

@@ -53,6 +53,9 @@ pub(crate) struct Skeleton {
     /// For each global wall index, its face as nodes counter-clockwise,
     /// starting with the wall's start and end corners.
     pub faces: Vec<Vec<usize>>,
+    /// For each global wall index, the inner loops of its face (nodes with
+    /// the face on the left, so clockwise from above).
+    pub holes: Vec<Vec<Vec<usize>>>,
     /// The wall lines, by global wall index.
     pub lines: Vec<WallLine>,
 }
@@ -173,18 +176,24 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
     }
 
     let mut faces = vec![Vec::new(); n];
-    for (w, face) in faces.iter_mut().enumerate() {
+    let mut holes = vec![Vec::new(); n];
+    for (w, (face, hole)) in faces.iter_mut().zip(holes.iter_mut()).enumerate() {
         let (Some(&s), Some(&e), Some(arcs)) =
             (wf.wall_start_node.get(w), wf.wall_end_node.get(w), wf.arcs.get(w))
         else {
             continue;
         };
         match faces::chain_face((s, e), arcs) {
-            Some(chain) => *face = chain,
-            None => return Err(SkeletonError::FaceOpen { wall: w }),
+            Some((chain, inner)) => {
+                *face = chain;
+                *hole = inner;
+            }
+            None => {
+                return Err(SkeletonError::FaceOpen { wall: w });
+            }
         }
     }
-    Ok(Skeleton { nodes: wf.nodes, faces, lines: wf.lines })
+    Ok(Skeleton { nodes: wf.nodes, faces, holes, lines: wf.lines })
 }
 
 /// Pushes edge events for the pieces at `vertices` and split candidates for
