@@ -10,7 +10,7 @@ use crate::drawing::{
     Area, Fit, bounds, dimension, figure_text, framing_square, length_text, member_view, roof_plan,
     square_hold, tag,
 };
-use crate::pdf_page::{BLACK, GREY, Page, RED, text_width, wrap, write_document};
+use crate::pdf_page::{BLACK, Forms, GREY, Page, RED, text_width, wrap, write_document};
 use crate::{CardDeck, CutFace, MemberCard};
 
 /// Paper size.
@@ -105,13 +105,14 @@ pub fn render_cards(deck: &CardDeck, options: &CardOptions) -> Result<Vec<u8>, C
         .collect::<Result<_, _>>()?;
     let paper = options.paper.size_pt();
     let mut pages = cover_pages(deck, paper);
+    let mut forms = Forms::default();
     let total_cards = deck.members.len();
     for (page_index, chunk) in deck.members.chunks(usize::from(options.per_page)).enumerate() {
         let mut page = Page::new(paper.x, paper.y);
         let slots = card_slots(paper, options.per_page);
         for (slot, (member, area)) in chunk.iter().zip(slots).enumerate() {
             let number = page_index * usize::from(options.per_page) + slot + 1;
-            card(&mut page, deck, member, area, &format!("card {number} of {total_cards}"));
+            card(&mut page, &mut forms, deck, member, area, &format!("card {number} of {total_cards}"));
         }
         footer(&mut page, deck);
         pages.push(page);
@@ -119,7 +120,7 @@ pub fn render_cards(deck: &CardDeck, options: &CardOptions) -> Result<Vec<u8>, C
     for member in template_members {
         pages.extend(template_pages(deck, member, paper));
     }
-    Ok(write_document(pages, &deck.title)?)
+    Ok(write_document(pages, forms, &deck.title)?)
 }
 
 fn card_slots(paper: DVec2, per_page: u8) -> Vec<Area> {
@@ -272,7 +273,14 @@ fn member_paragraphs(member: &MemberCard, style: LengthStyle) -> Vec<Paragraph> 
 }
 
 /// One card in its slot.
-fn card(page: &mut Page, deck: &CardDeck, member: &MemberCard, area: Area, numbering: &str) {
+fn card(
+    page: &mut Page,
+    forms: &mut Forms,
+    deck: &CardDeck,
+    member: &MemberCard,
+    area: Area,
+    numbering: &str,
+) {
     let style = deck.length_style;
     let base = (area.size.x / 540.0 * 8.5).clamp(5.0, 8.5);
     page.line_width(0.8);
@@ -369,6 +377,7 @@ fn card(page: &mut Page, deck: &CardDeck, member: &MemberCard, area: Area, numbe
     );
     roof_plan(
         page,
+        Some(forms),
         deck,
         Area::new(plan_area.corner.x, plan_area.corner.y, plan_area.size.x, plan_area.size.y - base * 1.6)
             .inset(2.0),
@@ -487,7 +496,7 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
     page.line_width(0.5);
     page.stroke_colour(GREY);
     page.rect(plan_area.corner, plan_area.size, None, true);
-    roof_plan(&mut page, deck, plan_area.inset(8.0), None, true);
+    roof_plan(&mut page, None, deck, plan_area.inset(8.0), None, true);
     page.fill_colour(GREY);
     page.text(
         DVec2::new(plan_area.corner.x + 4.0, plan_area.corner.y + 4.0),

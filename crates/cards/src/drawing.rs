@@ -5,7 +5,7 @@
 use glam::DVec2;
 use pitchframe_geometry::{Length, LengthStyle, MarkAlong, RoofLineKind, SquareSetting};
 
-use crate::pdf_page::{BLACK, GREY, Page, RED, text_width};
+use crate::pdf_page::{BLACK, Forms, GREY, Page, RED, text_width};
 use crate::{CardDeck, CutMark, MemberCard, MemberView};
 
 /// A box on the page, points.
@@ -275,9 +275,11 @@ pub(crate) fn figure_text(figure: f64) -> String {
 
 /// The small roof plan: walls, ridges, hips and valleys, every piece faint,
 /// and the highlighted member's pieces bold in red; labels for every piece
-/// when `label_all`.
+/// when `label_all`. With `forms`, the part shared by every card (all but
+/// the highlight) is written once and placed by reference.
 pub(crate) fn roof_plan(
     page: &mut Page,
+    forms: Option<&mut Forms>,
     deck: &CardDeck,
     area: Area,
     highlight: Option<&MemberCard>,
@@ -286,7 +288,36 @@ pub(crate) fn roof_plan(
     let mut points: Vec<DVec2> = deck.outline.iter().flatten().copied().collect();
     points.extend(deck.roof.planes.iter().flat_map(|plane| plane.eave_outline.iter().map(|p| p.truncate())));
     let Some((low, high)) = bounds(&points) else { return };
+    let label_size = (area.size.x / 90.0).clamp(4.0, 6.0);
+    match forms {
+        Some(forms) => {
+            let local = Fit::into_area(low, high, Area::new(0.0, 0.0, area.size.x, area.size.y));
+            let key = format!("plan {:.2} {:.2} {label_all}", area.size.x, area.size.y);
+            let form = forms.get_or_draw(key, area.size, |form| {
+                plan_background(form, deck, local, label_all, label_size);
+            });
+            page.save();
+            page.form(form, area.corner);
+            page.restore();
+        }
+        None => plan_background(page, deck, Fit::into_area(low, high, area), label_all, label_size),
+    }
     let fit = Fit::into_area(low, high, area);
+    if let Some(member) = highlight {
+        page.line_width(1.8);
+        page.stroke_colour(RED);
+        for place in &member.places {
+            page.line(fit.at(place[0]), fit.at(place[1]));
+        }
+        page.fill_colour(RED);
+        for place in &member.places {
+            let middle = fit.at(0.5 * (place[0] + place[1]));
+            page.text_centred(middle + DVec2::new(0.0, 1.0), label_size.max(6.0), true, &member.label);
+        }
+    }
+}
+
+fn plan_background(page: &mut Page, deck: &CardDeck, fit: Fit, label_all: bool, label_size: f64) {
     for plane in &deck.roof.planes {
         let eave: Vec<DVec2> = plane.eave_outline.iter().map(|p| fit.at(p.truncate())).collect();
         page.line_width(0.3);
@@ -309,19 +340,19 @@ pub(crate) fn roof_plan(
         page.line(fit.at(line.from.truncate()), fit.at(line.to.truncate()));
     }
     page.dash(&[]);
-    let label_size = (area.size.x / 90.0).clamp(3.0, 6.0);
+    page.line_width(0.3);
+    page.stroke_colour([0.6, 0.45, 0.25]);
     for member in &deck.members {
-        let chosen = highlight.is_some_and(|h| h.label == member.label);
-        page.line_width(if chosen { 1.8 } else { 0.3 });
-        page.stroke_colour(if chosen { RED } else { [0.6, 0.45, 0.25] });
         for place in &member.places {
             page.line(fit.at(place[0]), fit.at(place[1]));
         }
-        if label_all || chosen {
+    }
+    if label_all {
+        page.fill_colour(BLACK);
+        for member in &deck.members {
             for place in &member.places {
                 let middle = fit.at(0.5 * (place[0] + place[1]));
-                page.fill_colour(if chosen { RED } else { BLACK });
-                page.text_centred(middle + DVec2::new(0.0, 1.0), label_size, chosen, &member.label);
+                page.text_centred(middle + DVec2::new(0.0, 1.0), label_size, false, &member.label);
             }
         }
     }

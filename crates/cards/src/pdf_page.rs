@@ -6,6 +6,7 @@
 //! font file ships with the program; text is encoded as WinAnsi.
 
 use std::fmt::Write as _;
+use std::io::Write as _;
 
 use glam::DVec2;
 use lopdf::{Dictionary, Document, Object, Stream, dictionary};
@@ -73,6 +74,28 @@ pub(crate) fn wrap(text: &str, width: f64, size: f64, bold: bool) -> Vec<String>
     lines
 }
 
+/// Appends `value` to a content stream with at most `places` decimals
+/// (trailing zeros dropped). Hand-rolled because the standard float
+/// formatting dominated the time to write a deck of cards.
+fn push_num(out: &mut String, value: f64, places: u32) {
+    let scale = 10_i64.pow(places);
+    let scaled = if value.is_finite() { (value * scale as f64).round() as i64 } else { 0 };
+    if scaled < 0 {
+        out.push('-');
+    }
+    let magnitude = scaled.unsigned_abs();
+    let (whole, mut fraction) = (magnitude / scale as u64, magnitude % scale as u64);
+    let _ = write!(out, "{whole}");
+    if fraction != 0 {
+        let mut digits = places;
+        while fraction % 10 == 0 {
+            fraction /= 10;
+            digits -= 1;
+        }
+        let _ = write!(out, ".{fraction:0width$}", width = digits as usize);
+    }
+}
+
 /// An RGB colour, each part 0..1.
 pub(crate) type Rgb = [f32; 3];
 
@@ -84,7 +107,7 @@ pub(crate) const GREY: Rgb = [0.55, 0.55, 0.55];
 /// black and white too).
 pub(crate) const RED: Rgb = [0.75, 0.05, 0.05];
 
-/// One page being drawn.
+/// One page being drawn (or one shared drawing, see [`Forms`]).
 pub(crate) struct Page {
     /// Page width, points.
     pub width: f64,
@@ -95,8 +118,7 @@ pub(crate) struct Page {
 
 /// A PDF string literal, still as `char`s: characters the fonts lack become
 /// `?`, and WinAnsi bytes are made when the stream is written.
-fn literal(text: &str) -> String {
-    let mut out = String::with_capacity(text.len() + 2);
+fn push_literal(out: &mut String, text: &str) {
     out.push('(');
     for character in text.chars() {
         let shown = if win_ansi(character).is_some() { character } else { '?' };
@@ -106,7 +128,6 @@ fn literal(text: &str) -> String {
         out.push(shown);
     }
     out.push(')');
-    out
 }
 
 impl Page {
@@ -120,32 +141,47 @@ impl Page {
         self.ops.push('\n');
     }
 
+    /// Writes numbers then an operator; `places` decimals for each number.
+    fn numbers_op(&mut self, numbers: &[f64], places: u32, operator: &str) {
+        for number in numbers {
+            push_num(&mut self.ops, *number, places);
+            self.ops.push(' ');
+        }
+        self.op(operator);
+    }
+
     /// Sets the stroke colour.
     pub fn stroke_colour(&mut self, colour: Rgb) {
-        let _ = writeln!(self.ops, "{:.3} {:.3} {:.3} RG", colour[0], colour[1], colour[2]);
+        self.numbers_op(&colour.map(f64::from), 3, "RG");
     }
 
     /// Sets the fill colour (also the text colour).
     pub fn fill_colour(&mut self, colour: Rgb) {
-        let _ = writeln!(self.ops, "{:.3} {:.3} {:.3} rg", colour[0], colour[1], colour[2]);
+        self.numbers_op(&colour.map(f64::from), 3, "rg");
     }
 
     /// Sets the line width in points.
     pub fn line_width(&mut self, width: f64) {
-        let _ = writeln!(self.ops, "{width:.3} w");
+        self.numbers_op(&[width], 3, "w");
     }
 
     /// Sets a dash pattern (empty for solid lines).
     pub fn dash(&mut self, pattern: &[f64]) {
-        let parts: Vec<String> = pattern.iter().map(|part| format!("{part:.2}")).collect();
-        let _ = writeln!(self.ops, "[{}] 0 d", parts.join(" "));
+        self.ops.push('[');
+        for (index, part) in pattern.iter().enumerate() {
+            if index > 0 {
+                self.ops.push(' ');
+            }
+            push_num(&mut self.ops, *part, 2);
+        }
+        self.op("] 0 d");
     }
 
     fn path(&mut self, points: &[DVec2], close: bool) -> bool {
         let Some(first) = points.first() else { return false };
-        let _ = writeln!(self.ops, "{:.3} {:.3} m", first.x, first.y);
+        self.numbers_op(&[first.x, first.y], 2, "m");
         for point in points.iter().skip(1) {
-            let _ = writeln!(self.ops, "{:.3} {:.3} l", point.x, point.y);
+            self.numbers_op(&[point.x, point.y], 2, "l");
         }
         if close {
             self.op("h");
@@ -188,7 +224,7 @@ impl Page {
         if let Some(colour) = fill {
             self.fill_colour(colour);
         }
-        let _ = writeln!(self.ops, "{:.4} {:.4} {:.4} {:.4} re", corner.x, corner.y, size.x, size.y);
+        self.numbers_op(&[corner.x, corner.y, size.x, size.y], 4, "re");
         self.op(match (fill.is_some(), stroke) {
             (true, true) => "B",
             (true, false) => "f",
@@ -218,14 +254,9 @@ impl Page {
         let steps = (reach / spacing).ceil() as i64;
         for step in -steps..=steps {
             let offset = centre + across * (step as f64 * spacing);
-            let _ = writeln!(
-                self.ops,
-                "{:.3} {:.3} m {:.3} {:.3} l",
-                offset.x - along.x * reach,
-                offset.y - along.y * reach,
-                offset.x + along.x * reach,
-                offset.y + along.y * reach
-            );
+            let (from, to) = (offset - along * reach, offset + along * reach);
+            self.numbers_op(&[from.x, from.y], 2, "m");
+            self.numbers_op(&[to.x, to.y], 2, "l");
         }
         self.op("S Q");
     }
@@ -237,14 +268,12 @@ impl Page {
 
     /// Text rotated `angle_rad` counter-clockwise about its start.
     pub fn text_rotated(&mut self, at: DVec2, size: f64, bold: bool, text: &str, angle_rad: f64) {
-        let font = if bold { "F2" } else { "F1" };
+        let font = if bold { "BT /F2 " } else { "BT /F1 " };
+        self.ops.push_str(font);
+        self.numbers_op(&[size], 2, "Tf");
         let (sin, cos) = angle_rad.sin_cos();
-        let _ = write!(
-            self.ops,
-            "BT /{font} {size:.2} Tf {cos:.5} {sin:.5} {:.5} {cos:.5} {:.3} {:.3} Tm ",
-            -sin, at.x, at.y
-        );
-        self.ops.push_str(&literal(text));
+        self.numbers_op(&[cos, sin, -sin, cos, at.x, at.y], 4, "Tm");
+        push_literal(&mut self.ops, text);
         self.op(" Tj ET");
     }
 
@@ -266,7 +295,14 @@ impl Page {
 
     /// Clips what follows (until `restore`) to a rectangle.
     pub fn clip_rect(&mut self, corner: DVec2, size: DVec2) {
-        let _ = writeln!(self.ops, "{:.3} {:.3} {:.3} {:.3} re W n", corner.x, corner.y, size.x, size.y);
+        self.numbers_op(&[corner.x, corner.y, size.x, size.y], 2, "re W n");
+    }
+
+    /// Draws shared drawing number `form` (from [`Forms`]) with its lower
+    /// left corner at `at`.
+    pub fn form(&mut self, form: usize, at: DVec2) {
+        self.numbers_op(&[1.0, 0.0, 0.0, 1.0, at.x, at.y], 3, "cm");
+        let _ = writeln!(self.ops, "/Fm{form} Do");
     }
 
     fn into_content(self) -> Vec<u8> {
@@ -283,8 +319,53 @@ impl Page {
     }
 }
 
-/// Writes pages into one PDF file.
-pub(crate) fn write_document(pages: Vec<Page>, title: &str) -> Result<Vec<u8>, std::io::Error> {
+/// Drawings repeated on many pages (the roof plan behind every card),
+/// written once into the file as form objects and placed by reference.
+#[derive(Default)]
+pub(crate) struct Forms {
+    forms: Vec<Page>,
+    keys: std::collections::HashMap<String, usize>,
+}
+
+impl Forms {
+    /// The form known by `key`, drawn by `draw` into a box of `size`
+    /// points the first time it is asked for.
+    pub fn get_or_draw(&mut self, key: String, size: DVec2, draw: impl FnOnce(&mut Page)) -> usize {
+        if let Some(&index) = self.keys.get(&key) {
+            return index;
+        }
+        let mut page = Page::new(size.x, size.y);
+        draw(&mut page);
+        self.forms.push(page);
+        let index = self.forms.len() - 1;
+        self.keys.insert(key, index);
+        index
+    }
+}
+
+/// A content stream deflated at a fast level: the best level took most of
+/// the time to write a deck and saved little, since these streams are
+/// mostly short repeated operators.
+fn deflated_stream(dict: Dictionary, content: Vec<u8>) -> Stream {
+    let mut encoder = flate2::write::ZlibEncoder::new(Vec::new(), flate2::Compression::fast());
+    match encoder.write_all(&content).and_then(|()| encoder.finish()) {
+        Ok(compressed) if compressed.len() < content.len() => {
+            let mut dict = dict;
+            dict.set("Filter", "FlateDecode");
+            let mut stream = Stream::new(dict, compressed);
+            stream.allows_compression = false;
+            stream
+        }
+        _ => {
+            let mut stream = Stream::new(dict, content);
+            stream.allows_compression = false;
+            stream
+        }
+    }
+}
+
+/// Writes pages and the forms they place into one PDF file.
+pub(crate) fn write_document(pages: Vec<Page>, forms: Forms, title: &str) -> Result<Vec<u8>, std::io::Error> {
     let mut doc = Document::with_version("1.5");
     let pages_id = doc.new_object_id();
     let font = |name: &str| {
@@ -297,13 +378,25 @@ pub(crate) fn write_document(pages: Vec<Page>, title: &str) -> Result<Vec<u8>, s
     };
     let regular = doc.add_object(font("Helvetica"));
     let bold = doc.add_object(font("Helvetica-Bold"));
-    let resources = doc.add_object(dictionary! {
-        "Font" => dictionary! { "F1" => regular, "F2" => bold },
-    });
+    let fonts = doc.add_object(dictionary! { "F1" => regular, "F2" => bold });
+    let form_resources = doc.add_object(dictionary! { "Font" => fonts });
+    let mut xobjects = Dictionary::new();
+    for (index, form) in forms.forms.into_iter().enumerate() {
+        let (width, height) = (form.width, form.height);
+        let dict = dictionary! {
+            "Type" => "XObject",
+            "Subtype" => "Form",
+            "BBox" => vec![0.into(), 0.into(), Object::Real(width as f32), Object::Real(height as f32)],
+            "Resources" => form_resources,
+        };
+        let id = doc.add_object(deflated_stream(dict, form.into_content()));
+        xobjects.set(format!("Fm{index}"), id);
+    }
+    let resources = doc.add_object(dictionary! { "Font" => fonts, "XObject" => xobjects });
     let mut kids = Vec::with_capacity(pages.len());
     for page in pages {
         let (width, height) = (page.width, page.height);
-        let content = doc.add_object(Stream::new(Dictionary::new(), page.into_content()));
+        let content = doc.add_object(deflated_stream(Dictionary::new(), page.into_content()));
         let page_id = doc.add_object(dictionary! {
             "Type" => "Page",
             "Parent" => pages_id,
@@ -325,8 +418,23 @@ pub(crate) fn write_document(pages: Vec<Page>, title: &str) -> Result<Vec<u8>, s
         "Producer" => Object::string_literal("Pitchframe"),
     });
     doc.trailer.set("Info", info);
-    doc.compress();
     let mut bytes = Vec::new();
     doc.save_to(&mut bytes)?;
     Ok(bytes)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn numbers_are_written_short_and_exact_to_their_places() {
+        let mut out = String::new();
+        for (value, places) in [(12.0, 2), (-0.004, 2), (1.23456, 3), (-2.5, 2), (0.125, 2), (f64::NAN, 2)] {
+            push_num(&mut out, value, places);
+            out.push(' ');
+        }
+        // Rounded half away from zero, as f64::round does.
+        assert_eq!(out, "12 0 1.235 -2.5 0.13 0 ");
+    }
 }
