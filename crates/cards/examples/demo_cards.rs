@@ -39,7 +39,40 @@ fn run(per_page: u8, paper: Paper, out: &str, templates: Vec<String>) -> Result<
     for member in &deck.members {
         println!("{} {} x{} cuts {}", member.label, member.kind, member.count, member.cuts.len());
     }
+    if let Ok(label) = std::env::var("DEBUG_MEMBER") {
+        debug_member(&deck, &label);
+    }
     let pdf = render_cards(&deck, &CardOptions { paper, per_page, templates }).map_err(|e| e.to_string())?;
     std::fs::write(out, pdf).map_err(|e| e.to_string())?;
     Ok(())
+}
+
+#[allow(dead_code)]
+fn debug_member(deck: &pitchframe_cards::CardDeck, label: &str) {
+    let Some(m) = deck.members.iter().find(|m| m.label == label) else { return };
+    for (i, part) in m.side_view.parts.iter().enumerate() {
+        let p: Vec<String> = part.iter().map(|p| format!("({:.1},{:.1})", p.x, p.y)).collect();
+        println!("side part {i}: {}", p.join(" "));
+    }
+    for f in &m.side_view.faces {
+        let p: Vec<String> = f.outline.iter().map(|p| format!("({:.2},{:.2})", p.x, p.y)).collect();
+        println!("side face {:?}: {}", f.face, p.join(" "));
+    }
+    if let Some(top) = &m.top_view {
+        let p: Vec<String> = top.outline.iter().map(|p| format!("({:.2},{:.2})", p.x, p.y)).collect();
+        println!("top outline: {}", p.join(" "));
+        for f in &top.faces {
+            let p: Vec<String> = f.outline.iter().map(|p| format!("({:.2},{:.2})", p.x, p.y)).collect();
+            println!("top face {:?}: {}", f.face, p.join(" "));
+        }
+    }
+    for c in &m.cuts {
+        println!(
+            "cut {:?} {} mark {:?} top {:?}",
+            c.face,
+            c.place,
+            c.mark.map(|m| m.edge_point),
+            c.top_mark.map(|m| m.edge_point)
+        );
+    }
 }

@@ -6,11 +6,9 @@ use pitchframe_geometry::LengthStyle;
 use serde::Serialize;
 use thiserror::Error;
 
-use crate::drawing::{
-    Area, Fit, bounds, dimension, figure_text, framing_square, length_text, member_view, roof_plan,
-    square_hold, tag,
-};
-use crate::pdf_page::{BLACK, Forms, GREY, Page, RED, text_width, wrap, write_document};
+use crate::card_page::{self, MIN_TEXT_PT};
+use crate::drawing::{Area, Fit, bounds, figure_text, length_text, member_view, roof_plan, tag};
+use crate::pdf_page::{BLACK, Forms, GREY, Page, RED, wrap, write_document};
 use crate::{CardDeck, CutFace, MemberCard};
 
 /// Paper size.
@@ -106,21 +104,168 @@ pub fn render_cards(deck: &CardDeck, options: &CardOptions) -> Result<Vec<u8>, C
     let paper = options.paper.size_pt();
     let mut pages = cover_pages(deck, paper);
     let mut forms = Forms::default();
+    let mut sheets = Sheets::new(paper, options.per_page);
     let total_cards = deck.members.len();
-    for (page_index, chunk) in deck.members.chunks(usize::from(options.per_page)).enumerate() {
-        let mut page = Page::new(paper.x, paper.y);
-        let slots = card_slots(paper, options.per_page);
-        for (slot, (member, area)) in chunk.iter().zip(slots).enumerate() {
-            let number = page_index * usize::from(options.per_page) + slot + 1;
-            card(&mut page, &mut forms, deck, member, area, &format!("card {number} of {total_cards}"));
-        }
-        footer(&mut page, deck);
-        pages.push(page);
+    for (index, member) in deck.members.iter().enumerate() {
+        place_card(&mut sheets, &mut forms, deck, member, &format!("card {} of {total_cards}", index + 1));
     }
+    pages.extend(sheets.finish(deck));
     for member in template_members {
         pages.extend(template_pages(deck, member, paper));
     }
     Ok(write_document(pages, forms, &deck.title)?)
+}
+
+/// How much of a page a card is given.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Span {
+    /// One slot.
+    One,
+    /// Two slots one above the other (four a page only).
+    Column,
+    /// The whole page.
+    Page,
+}
+
+/// The card pages being filled, slot by slot.
+struct Sheets {
+    paper: DVec2,
+    slots: Vec<Area>,
+    done: Vec<Page>,
+    page: Page,
+    used: Vec<bool>,
+}
+
+impl Sheets {
+    fn new(paper: DVec2, per_page: u8) -> Self {
+        let slots = card_slots(paper, per_page);
+        let used = vec![false; slots.len()];
+        Self { paper, slots, done: Vec::new(), page: Page::new(paper.x, paper.y), used }
+    }
+
+    /// The spans worth trying, smallest first.
+    fn spans(&self) -> &'static [Span] {
+        match self.slots.len() {
+            1 => &[Span::Page],
+            2 => &[Span::One, Span::Page],
+            _ => &[Span::One, Span::Column, Span::Page],
+        }
+    }
+
+    fn full_page(&self) -> Area {
+        Area::new(MARGIN, MARGIN + 10.0, self.paper.x - 2.0 * MARGIN, self.paper.y - 2.0 * MARGIN - 10.0)
+    }
+
+    /// The area a span would take (the first one of its shape).
+    fn shape(&self, span: Span) -> Area {
+        match (span, self.slots.as_slice()) {
+            (Span::One, [first, ..]) => *first,
+            (Span::Column, [top, _, bottom, ..]) => {
+                Area::new(bottom.corner.x, bottom.corner.y, top.size.x, top.top() - bottom.corner.y)
+            }
+            _ => self.full_page(),
+        }
+    }
+
+    /// The first free area of the span's shape on this page, and the slots
+    /// it covers.
+    fn free(&self, span: Span) -> Option<(Vec<usize>, Area)> {
+        match span {
+            Span::One => {
+                let slot = self.used.iter().position(|used| !used)?;
+                Some((vec![slot], *self.slots.get(slot)?))
+            }
+            Span::Column => (0..2).find_map(|column| {
+                let (top, bottom) = (column, column + 2);
+                let both_free = !*self.used.get(top)? && !*self.used.get(bottom)?;
+                let (a, b) = (self.slots.get(top)?, self.slots.get(bottom)?);
+                both_free.then(|| {
+                    (vec![top, bottom], Area::new(b.corner.x, b.corner.y, a.size.x, a.top() - b.corner.y))
+                })
+            }),
+            Span::Page => {
+                self.used.iter().all(|used| !used).then(|| ((0..self.used.len()).collect(), self.full_page()))
+            }
+        }
+    }
+
+    /// Takes the first free area of the span's shape, starting a new page
+    /// when this one has none.
+    fn take(&mut self, span: Span) -> Area {
+        loop {
+            if let Some((taken, area)) = self.free(span) {
+                for slot in taken {
+                    if let Some(used) = self.used.get_mut(slot) {
+                        *used = true;
+                    }
+                }
+                return area;
+            }
+            self.next_page();
+        }
+    }
+
+    fn next_page(&mut self) {
+        let page = std::mem::replace(&mut self.page, Page::new(self.paper.x, self.paper.y));
+        self.done.push(page);
+        self.used.iter_mut().for_each(|used| *used = false);
+    }
+
+    fn finish(mut self, deck: &CardDeck) -> Vec<Page> {
+        if self.used.iter().any(|used| *used) {
+            self.next_page();
+        }
+        for page in &mut self.done {
+            footer(page, deck);
+        }
+        self.done
+    }
+}
+
+/// Starts a card (or its continuation) in a fresh area: the frame and the
+/// header; returns the area inside the frame and the height below the
+/// header.
+fn start_card_part(
+    sheets: &mut Sheets,
+    span: Span,
+    member: &MemberCard,
+    deck: &CardDeck,
+    numbering: &str,
+    continued: bool,
+) -> (Area, f64) {
+    let area = sheets.take(span);
+    let page = &mut sheets.page;
+    page.line_width(0.8);
+    page.stroke_colour(BLACK);
+    page.rect(area.corner, area.size, None, true);
+    let inner = area.inset(card_page::PAD);
+    let header = card_page::draw_header(page, member, deck.length_style, inner, numbering, continued);
+    (inner, inner.top() - header - card_page::BLOCK_GAP)
+}
+
+/// Lays one card into the smallest span it fits at full type size,
+/// continuing onto further pages when a page is not enough.
+fn place_card(sheets: &mut Sheets, forms: &mut Forms, deck: &CardDeck, member: &MemberCard, numbering: &str) {
+    let full = sheets.full_page();
+    let chosen = sheets.spans().iter().find_map(|&span| {
+        let area = sheets.shape(span);
+        let layout = card_page::layout(member, deck, area.size.x - 2.0 * card_page::PAD);
+        (layout.height() <= area.size.y).then_some((span, layout))
+    });
+    let (span, layout) = chosen
+        .unwrap_or_else(|| (Span::Page, card_page::layout(member, deck, full.size.x - 2.0 * card_page::PAD)));
+    let (mut inner, mut y) = start_card_part(sheets, span, member, deck, numbering, false);
+    let mut in_this_part = 0;
+    for (index, height) in card_page::block_heights(&layout).into_iter().enumerate() {
+        if y - height < inner.corner.y - 0.5 && in_this_part > 0 {
+            (inner, y) = start_card_part(sheets, Span::Page, member, deck, numbering, true);
+            in_this_part = 0;
+        }
+        let area = Area::new(inner.corner.x, y - height, inner.size.x, height);
+        card_page::draw_block(&mut sheets.page, forms, deck, member, &layout, index, area);
+        y -= height + card_page::BLOCK_GAP;
+        in_this_part += 1;
+    }
 }
 
 fn card_slots(paper: DVec2, per_page: u8) -> Vec<Area> {
@@ -148,335 +293,23 @@ fn footer(page: &mut Page, deck: &CardDeck) {
     page.fill_colour(GREY);
     page.text(
         DVec2::new(MARGIN, MARGIN - 8.0),
-        6.5,
+        MIN_TEXT_PT,
         false,
         &format!("{} - Pitchframe gives geometry; local codes and licensed professionals govern sizing and connections.", deck.title),
     );
 }
 
-/// A paragraph of the text column: its text, size relative to the base,
+/// A paragraph of the cover sheet: its text, size relative to the base,
 /// weight and colour.
 struct Paragraph {
     text: String,
     relative: f64,
     bold: bool,
     colour: [f32; 3],
-    indent: f64,
 }
 
 fn paragraph(text: impl Into<String>, relative: f64, bold: bool) -> Paragraph {
-    Paragraph { text: text.into(), relative, bold, colour: BLACK, indent: 0.0 }
-}
-
-/// Lays paragraphs into `area` at the largest base size up to `base` that
-/// fits, and returns the size used.
-fn text_column(page: &mut Page, paragraphs: &[Paragraph], area: Area, base: f64) -> f64 {
-    let mut size = base;
-    let layout = |size: f64| -> (f64, Vec<(f64, Vec<String>)>) {
-        let mut height = 0.0;
-        let mut laid = Vec::new();
-        for paragraph in paragraphs {
-            let text_size = size * paragraph.relative;
-            let lines =
-                wrap(&paragraph.text, area.size.x - paragraph.indent * size, text_size, paragraph.bold);
-            height += lines.len() as f64 * text_size * 1.2 + size * 0.25;
-            laid.push((text_size, lines));
-        }
-        (height, laid)
-    };
-    let (mut height, mut laid) = layout(size);
-    while height > area.size.y && size > 3.0 {
-        size *= 0.93;
-        (height, laid) = layout(size);
-    }
-    let mut y = area.top();
-    for (paragraph, (text_size, lines)) in paragraphs.iter().zip(laid) {
-        for line in lines {
-            y -= text_size * 1.2;
-            if y < area.corner.y - 1.0 {
-                return size;
-            }
-            page.fill_colour(paragraph.colour);
-            page.text(
-                DVec2::new(area.corner.x + paragraph.indent * size, y + text_size * 0.2),
-                text_size,
-                paragraph.bold,
-                &line,
-            );
-        }
-        y -= size * 0.25;
-    }
-    size
-}
-
-fn member_paragraphs(member: &MemberCard, style: LengthStyle) -> Vec<Paragraph> {
-    let lengths = &member.lengths;
-    let mut out = vec![paragraph("LENGTHS (along the top edge)", 1.0, true)];
-    let named = [
-        ("long point", lengths.long_point_in),
-        ("short point", lengths.short_point_in),
-        ("seat to top cut", lengths.seat_to_top_cut_in),
-        ("tail", lengths.tail_in),
-        ("overall stock", Some(lengths.overall_in)),
-    ];
-    for (name, value) in named {
-        if let Some(inches) = value {
-            let mut p =
-                paragraph(format!("{name}: {}", length_text(inches, style)), 1.15, name == "overall stock");
-            p.indent = 1.0;
-            out.push(p);
-        }
-    }
-    out.push(paragraph("CUTS (from the lower end)", 1.0, true));
-    for cut in &member.cuts {
-        let mut head =
-            paragraph(format!("[{}] {} - {}", cut.face.tag(), cut.face.name(), cut.place), 1.0, true);
-        head.indent = 0.5;
-        out.push(head);
-        if let Some(square) = &cut.square {
-            let mut p = paragraph(
-                format!(
-                    "Square {} & {}: {}",
-                    figure_text(square.against),
-                    figure_text(square.figure),
-                    square.setup
-                ),
-                0.92,
-                false,
-            );
-            p.indent = 1.5;
-            out.push(p);
-        }
-        for setting in &cut.settings {
-            let mut p = paragraph(format!("\u{2022} {}", setting.setup), 0.92, false);
-            p.indent = 1.5;
-            out.push(p);
-        }
-        for note in &cut.notes {
-            let mut p = paragraph(note.clone(), 0.92, false);
-            p.indent = 1.5;
-            out.push(p);
-        }
-    }
-    if !member.warnings.is_empty() {
-        let mut head = paragraph("WARNINGS", 1.0, true);
-        head.colour = RED;
-        out.push(head);
-        for warning in &member.warnings {
-            let mut p = paragraph(format!("WARNING: {warning}"), 1.0, true);
-            p.colour = RED;
-            p.indent = 0.5;
-            out.push(p);
-        }
-    }
-    out
-}
-
-/// One card in its slot.
-fn card(
-    page: &mut Page,
-    forms: &mut Forms,
-    deck: &CardDeck,
-    member: &MemberCard,
-    area: Area,
-    numbering: &str,
-) {
-    let style = deck.length_style;
-    let base = (area.size.x / 540.0 * 8.5).clamp(5.0, 8.5);
-    page.line_width(0.8);
-    page.stroke_colour(BLACK);
-    page.rect(area.corner, area.size, None, true);
-    let inner = area.inset(6.0);
-
-    // Header: label large, then what it is, how many and its size.
-    let header_h = base * 2.6;
-    let label_size = base * 2.2;
-    page.fill_colour(BLACK);
-    let header_y = inner.top() - label_size;
-    page.text(DVec2::new(inner.corner.x, header_y), label_size, true, &member.label);
-    let label_w = text_width(&member.label, label_size, true);
-    let summary = format!(
-        "{} - cut {} - {} - pitch {:.2} deg",
-        member.kind,
-        member.count,
-        member.size,
-        member.pitch_rad.to_degrees()
-    );
-    page.text(DVec2::new(inner.corner.x + label_w + base, header_y), base * 1.2, true, &summary);
-    page.fill_colour(GREY);
-    let numbering_w = text_width(numbering, base * 0.9, false);
-    page.text(
-        DVec2::new(inner.corner.x + inner.size.x - numbering_w, inner.top() - base),
-        base * 0.9,
-        false,
-        numbering,
-    );
-
-    // Side elevation across the full width, with its dimensions.
-    let side_h = inner.size.y * 0.24;
-    let side_area = Area::new(inner.corner.x, inner.top() - header_h - side_h, inner.size.x, side_h);
-    side_elevation(page, member, side_area, base, style);
-
-    // The square held for each cut, in small close-ups.
-    let holds: Vec<_> = member
-        .cuts
-        .iter()
-        .filter_map(|cut| Some((cut, square_hold(cut.mark.as_ref()?, cut.square.as_ref()?)?)))
-        .collect();
-    let inset_h = if holds.is_empty() { 0.0 } else { inner.size.y * 0.17 };
-    let inset_top = side_area.corner.y - base * 0.6;
-    if !holds.is_empty() {
-        let count = holds.len() as f64;
-        let inset_w = (inner.size.x - (count - 1.0) * 4.0) / count;
-        for (index, (cut, hold)) in holds.iter().enumerate() {
-            let box_area = Area::new(
-                inner.corner.x + index as f64 * (inset_w + 4.0),
-                inset_top - inset_h,
-                inset_w,
-                inset_h,
-            );
-            square_inset(page, member, cut.face, hold, box_area, base);
-        }
-    }
-
-    // Below: the words on the left, the top view and the roof plan on the right.
-    let lower_top = inset_top - inset_h - base * 0.6;
-    let lower_h = lower_top - inner.corner.y;
-    let text_w = inner.size.x * 0.6;
-    let text_area = Area::new(inner.corner.x, inner.corner.y, text_w - 6.0, lower_h);
-    text_column(page, &member_paragraphs(member, style), text_area, base);
-    let right = Area::new(inner.corner.x + text_w, inner.corner.y, inner.size.x - text_w, lower_h);
-    let mut plan_area = right;
-    if let Some(top) = &member.top_view {
-        let top_h = right.size.y * 0.35;
-        let top_area = Area::new(right.corner.x, right.top() - top_h, right.size.x, top_h);
-        page.fill_colour(BLACK);
-        page.text(DVec2::new(top_area.corner.x, top_area.top() - base), base, true, "Top view (cheek cuts)");
-        if let Some((low, high)) = bounds(&top.outline) {
-            let fit = Fit::into_area(
-                low,
-                high,
-                Area::new(
-                    top_area.corner.x,
-                    top_area.corner.y,
-                    top_area.size.x,
-                    top_area.size.y - base * 1.6,
-                )
-                .inset(3.0),
-            );
-            member_view(page, top, fit, base * 0.8);
-        }
-        plan_area = Area::new(right.corner.x, right.corner.y, right.size.x, right.size.y - top_h - base);
-    }
-    page.fill_colour(BLACK);
-    page.text(
-        DVec2::new(plan_area.corner.x, plan_area.top() - base),
-        base,
-        true,
-        &format!("Where {} goes (red)", member.label),
-    );
-    roof_plan(
-        page,
-        Some(forms),
-        deck,
-        Area::new(plan_area.corner.x, plan_area.corner.y, plan_area.size.x, plan_area.size.y - base * 1.6)
-            .inset(2.0),
-        Some(member),
-        false,
-    );
-}
-
-fn side_elevation(page: &mut Page, member: &MemberCard, area: Area, base: f64, style: LengthStyle) {
-    let view = &member.side_view;
-    let Some((low, high)) = bounds(&view.outline) else { return };
-    page.fill_colour(BLACK);
-    page.text(DVec2::new(area.corner.x, area.top() - base), base, true, "Side view (lower end left)");
-    // Room above for the seat-to-top-cut dimension, below for the overall.
-    let drawing = Area::new(
-        area.corner.x + base,
-        area.corner.y + base * 2.8,
-        area.size.x - 2.0 * base,
-        area.size.y - base * 6.0,
-    );
-    let fit = Fit::into_area(low, high, drawing);
-    member_view(page, view, fit, base * 0.85);
-    let bottom = fit.at(DVec2::new(low.x, low.y)).y;
-    dimension(
-        page,
-        DVec2::new(fit.at(low).x, bottom),
-        DVec2::new(fit.at(high).x, bottom),
-        -base * 1.6,
-        &format!("overall stock {}", length_text(member.lengths.overall_in, style)),
-        base,
-    );
-    let mark_of = |face: CutFace| member.cuts.iter().find(|cut| cut.face == face).and_then(|cut| cut.mark);
-    let top_y = fit.at(high).y;
-    if let (Some(heel), Some(top_cut), Some(seat_to_top)) =
-        (mark_of(CutFace::Heel), mark_of(CutFace::TopPlumb), member.lengths.seat_to_top_cut_in)
-    {
-        dimension(
-            page,
-            DVec2::new(fit.at(heel.edge_point).x, top_y),
-            DVec2::new(fit.at(top_cut.edge_point).x, top_y),
-            base * 1.4,
-            &format!("seat to top cut {}", length_text(seat_to_top, style)),
-            base,
-        );
-        if let (Some(tail_mark), Some(tail)) = (mark_of(CutFace::TailPlumb), member.lengths.tail_in) {
-            let text = format!("tail {}", length_text(tail, style));
-            let (from, to) = (fit.at(tail_mark.edge_point).x, fit.at(heel.edge_point).x);
-            if to - from < text_width(&text, base, false) + base {
-                // Too short to hold its words: draw the line bare and write
-                // the words just past the heel, clear of the heading.
-                dimension(page, DVec2::new(from, top_y), DVec2::new(to, top_y), base * 1.4, "", base);
-                page.text(DVec2::new(to + base * 0.5, top_y + base * 1.6), base, false, &text);
-            } else {
-                dimension(page, DVec2::new(from, top_y), DVec2::new(to, top_y), base * 1.4, &text, base);
-            }
-        }
-    }
-}
-
-fn square_inset(
-    page: &mut Page,
-    member: &MemberCard,
-    face: CutFace,
-    hold: &crate::drawing::SquareHold,
-    area: Area,
-    base: f64,
-) {
-    page.line_width(0.4);
-    page.stroke_colour(GREY);
-    page.rect(area.corner, area.size, None, true);
-    let caption = format!(
-        "[{}] {}: {} & {}",
-        face.tag(),
-        face.name(),
-        figure_text(hold.mark_figure),
-        figure_text(hold.other_figure)
-    );
-    page.fill_colour(BLACK);
-    let caption_size = (base * 0.9).min(area.size.x / text_width(&caption, 1.0, true).max(1.0));
-    page.text(DVec2::new(area.corner.x + 2.0, area.top() - caption_size - 1.0), caption_size, true, &caption);
-    page.fill_colour(GREY);
-    let hint = format!("mark along the {} arm (red)", figure_text(hold.mark_figure));
-    page.text(DVec2::new(area.corner.x + 2.0, area.corner.y + 2.0), caption_size * 0.85, false, &hint);
-    // Show the board around the square: the square and the edge points.
-    let square_reach = [hold.heel, hold.mark_point, hold.other_point];
-    let Some((low, high)) = bounds(&square_reach) else { return };
-    let pad = DVec2::splat(2.5);
-    let drawing = Area::new(
-        area.corner.x + 2.0,
-        area.corner.y + caption_size * 1.4,
-        area.size.x - 4.0,
-        area.size.y - caption_size * 3.0,
-    );
-    let fit = Fit::into_area(low - pad, high + pad, drawing);
-    page.save();
-    page.clip_rect(drawing.corner, drawing.size);
-    member_view(page, &member.side_view, fit, base * 0.7);
-    framing_square(page, hold, fit, base * 0.85);
-    page.restore();
+    Paragraph { text: text.into(), relative, bold, colour: BLACK }
 }
 
 /// The cover sheet and, when it runs over, its following pages.
@@ -500,7 +333,7 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
     page.fill_colour(GREY);
     page.text(
         DVec2::new(plan_area.corner.x + 4.0, plan_area.corner.y + 4.0),
-        6.5,
+        MIN_TEXT_PT,
         false,
         "Plan: wall lines bold, eaves grey, ridges solid, hips dashed, valleys dotted; every piece with its label.",
     );

@@ -117,16 +117,36 @@ pub(crate) fn member_view(page: &mut Page, view: &MemberView, fit: Fit, tag_size
             .iter()
             .flat_map(|part| part.iter().zip(part.iter().cycle().skip(1)).map(|(a, b)| (*a, *b)))
             .collect();
-        let near = |a: DVec2, b: DVec2| a.distance(b) < 0.05;
+        // An edge is inside the solid when another part lies along it on
+        // the other side; parts lying on the same side (the two halves of
+        // a backed hip seen from the side) leave it an outline edge.
+        let centroids: Vec<DVec2> =
+            parts.iter().map(|part| part.iter().copied().sum::<DVec2>() / part.len().max(1) as f64).collect();
+        let owner: Vec<usize> = parts
+            .iter()
+            .enumerate()
+            .flat_map(|(index, part)| std::iter::repeat_n(index, part.len()))
+            .collect();
         for (index, &(a, b)) in edges.iter().enumerate() {
-            let shared = edges.iter().enumerate().any(|(other, &(c, d))| {
-                other != index && ((near(a, d) && near(b, c)) || (near(a, c) && near(b, d)))
+            let Some(direction) = (b - a).try_normalize() else { continue };
+            let (Some(&mine), middle) = (owner.get(index), 0.5 * (a + b)) else { continue };
+            let side_of = |point: DVec2| direction.perp_dot(point - a);
+            let my_side = centroids.get(mine).map_or(0.0, |c| side_of(*c));
+            let inside = edges.iter().zip(&owner).any(|(&(c, d), &theirs)| {
+                if theirs == mine {
+                    return false;
+                }
+                let Some(along) = (d - c).try_normalize() else { return false };
+                let t = (middle - c).dot(along).clamp(0.0, c.distance(d));
+                let on_it = (c + along * t).distance(middle) < 0.3 && along.perp_dot(direction).abs() < 0.03;
+                on_it && centroids.get(theirs).is_some_and(|centre| side_of(*centre) * my_side < 0.0)
             });
-            if !shared {
+            if !inside {
                 page.line(a, b);
             }
         }
     }
+    let mut tags: Vec<(DVec2, DVec2)> = Vec::new();
     for face in &view.faces {
         let points = fit.all(&face.outline);
         let colour = face.face.colour();
@@ -149,8 +169,38 @@ pub(crate) fn member_view(page: &mut Page, view: &MemberView, fit: Fit, tag_size
             page.polyline(&points);
             page.dash(&[]);
         }
-        tag(page, centre, tag_size, face.face.tag());
+        place_tag(page, &mut tags, centre, tag_size, face.face.tag());
     }
+}
+
+/// A tag at `at`, or nudged clear of the tags already placed (with a
+/// leader back to its face) where faces sit close, as on short spans.
+fn place_tag(page: &mut Page, placed: &mut Vec<(DVec2, DVec2)>, at: DVec2, size: f64, text: &str) {
+    let half = DVec2::new((text_width(text, size, true) + size * 0.5) / 2.0 + 1.0, size * 0.65);
+    let clear = |centre: DVec2, placed: &[(DVec2, DVec2)]| {
+        placed.iter().all(|(low, high)| {
+            centre.x + half.x <= low.x
+                || centre.x - half.x >= high.x
+                || centre.y + half.y <= low.y
+                || centre.y - half.y >= high.y
+        })
+    };
+    let step = 2.0 * half.y + 1.0;
+    let offsets = [0.0, 1.0, -1.0, 2.0, -2.0, 3.0, -3.0].map(|k| DVec2::new(0.0, k * step));
+    let sideways = [1.0, -1.0, 2.0, -2.0].map(|k| DVec2::new(k * (2.0 * half.x + 1.0), 0.0));
+    let chosen = offsets
+        .into_iter()
+        .chain(sideways)
+        .map(|offset| at + offset)
+        .find(|centre| clear(*centre, placed))
+        .unwrap_or(at);
+    if chosen.distance(at) > 0.5 {
+        page.line_width(0.4);
+        page.stroke_colour(BLACK);
+        page.line(at, chosen);
+    }
+    placed.push((chosen - half, chosen + half));
+    tag(page, chosen, size, text);
 }
 
 /// A dimension line between two page points, offset square to them by
@@ -245,14 +295,32 @@ pub(crate) fn framing_square(page: &mut Page, hold: &SquareHold, fit: Fit, text_
     page.stroke_colour(GREY);
     page.polygon(&fit.all(&shape), Some([0.82, 0.84, 0.88]), true);
     page.stroke_colour(RED);
-    page.line_width(0.8);
+    page.line_width(1.2);
     page.line(fit.at(hold.mark_point), fit.at(h));
+    for point in [hold.mark_point, hold.other_point] {
+        page.polygon(&circle(fit.at(point), 1.8), Some(RED), false);
+    }
+    let _ = text_size;
+}
+
+/// The two figures of a held square, written beside the points where they
+/// meet the edge, on the side away from the square's heel.
+pub(crate) fn square_figures(page: &mut Page, hold: &SquareHold, fit: Fit, text_size: f64) {
+    let heel = fit.at(hold.heel);
     for (point, figure) in [(hold.mark_point, hold.mark_figure), (hold.other_point, hold.other_figure)] {
         let at = fit.at(point);
-        page.fill_colour(RED);
-        page.polygon(&circle(at, 1.6), Some(RED), false);
+        let away = (at - heel).try_normalize().unwrap_or(DVec2::Y);
+        let words = figure_text(figure);
+        let width = text_width(&words, text_size, true);
+        let centre = at + away * (text_size * 0.9 + 0.25 * width);
+        page.rect(
+            centre - DVec2::new(width / 2.0 + 1.0, text_size * 0.45),
+            DVec2::new(width + 2.0, text_size * 1.05),
+            Some([1.0, 1.0, 1.0]),
+            false,
+        );
         page.fill_colour(BLACK);
-        page.text_centred(at + DVec2::new(0.0, text_size * 0.6), text_size, true, &figure_text(figure));
+        page.text_centred(centre - DVec2::new(0.0, text_size * 0.35), text_size, true, &words);
     }
 }
 
@@ -288,7 +356,7 @@ pub(crate) fn roof_plan(
     let mut points: Vec<DVec2> = deck.outline.iter().flatten().copied().collect();
     points.extend(deck.roof.planes.iter().flat_map(|plane| plane.eave_outline.iter().map(|p| p.truncate())));
     let Some((low, high)) = bounds(&points) else { return };
-    let label_size = (area.size.x / 90.0).clamp(4.0, 6.0);
+    let label_size = crate::MIN_TEXT_PT;
     match forms {
         Some(forms) => {
             let local = Fit::into_area(low, high, Area::new(0.0, 0.0, area.size.x, area.size.y));
@@ -309,10 +377,20 @@ pub(crate) fn roof_plan(
         for place in &member.places {
             page.line(fit.at(place[0]), fit.at(place[1]));
         }
-        page.fill_colour(RED);
-        for place in &member.places {
+        // One label, on a white ground, at the middle piece: a label on
+        // every piece would pile up where pieces run close.
+        if let Some(place) = member.places.get(member.places.len() / 2) {
             let middle = fit.at(0.5 * (place[0] + place[1]));
-            page.text_centred(middle + DVec2::new(0.0, 1.0), label_size.max(6.0), true, &member.label);
+            let size = label_size.max(7.0);
+            let width = text_width(&member.label, size, true) + 3.0;
+            page.rect(
+                middle - DVec2::new(width / 2.0, size * 0.3),
+                DVec2::new(width, size * 1.1),
+                Some([1.0, 1.0, 1.0]),
+                false,
+            );
+            page.fill_colour(RED);
+            page.text_centred(middle, size, true, &member.label);
         }
     }
 }
@@ -348,11 +426,19 @@ fn plan_background(page: &mut Page, deck: &CardDeck, fit: Fit, label_all: bool, 
         }
     }
     if label_all {
+        // Each label runs along its piece, reading left to right or bottom
+        // to top, so labels of close parallel pieces stay apart.
         page.fill_colour(BLACK);
         for member in &deck.members {
             for place in &member.places {
-                let middle = fit.at(0.5 * (place[0] + place[1]));
-                page.text_centred(middle + DVec2::new(0.0, 1.0), label_size, false, &member.label);
+                let (from, to) = (fit.at(place[0]), fit.at(place[1]));
+                let mut along = (to - from).try_normalize().unwrap_or(DVec2::X);
+                if along.x < -1e-9 || (along.x.abs() <= 1e-9 && along.y < 0.0) {
+                    along = -along;
+                }
+                let width = text_width(&member.label, label_size, false);
+                let start = 0.5 * (from + to) - along * (width / 2.0) - along.perp() * (label_size * 0.35);
+                page.text_rotated(start, label_size, false, &member.label, along.y.atan2(along.x));
             }
         }
     }

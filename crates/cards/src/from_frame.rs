@@ -11,8 +11,8 @@ use pitchframe_geometry::{
 };
 
 use crate::{
-    CardCut, CardDeck, CutFace, CutMark, LumberOrder, MemberCard, MemberLengths, MemberView, ModelFace,
-    ModelPiece, ModelScene, OrderPiece, ViewFace,
+    CardCut, CardDeck, CutAngles, CutFace, CutMark, LumberOrder, MemberCard, MemberLengths, MemberView,
+    ModelFace, ModelPiece, ModelScene, OrderPiece, ViewFace,
 };
 
 /// The trade's words for a member kind.
@@ -185,13 +185,25 @@ fn views(piece: &PlacedPiece, depth_in: f64, with_top: bool) -> (MemberView, Opt
                     outline: face.vertices.iter().map(|v| side_point(*v)).collect(),
                 });
             }
-            if face.normal.dot(up) >= -1e-6
-                && matches!(kind, CutFace::Cheek | CutFace::Backing | CutFace::TopPlumb)
-            {
+            if kind == CutFace::Backing && face.normal.dot(up) >= -1e-6 {
                 top_view.faces.push(ViewFace {
                     face: kind,
                     outline: face.vertices.iter().map(|v| top_point(*v)).collect(),
                 });
+            } else if matches!(kind, CutFace::Cheek | CutFace::TopPlumb | CutFace::TailPlumb) {
+                // A plumb cut on a sloped member hides under the top when
+                // seen square to it; what the top view shows, and what is
+                // marked there, is the line the cut leaves on the top:
+                // the face's corners in the upper half of the depth.
+                let on_top: Vec<DVec2> = face
+                    .vertices
+                    .iter()
+                    .filter(|v| (**v - origin).dot(up) > -0.5 * depth_in)
+                    .map(|v| top_point(*v))
+                    .collect();
+                if on_top.len() >= 2 {
+                    top_view.faces.push(ViewFace { face: kind, outline: on_top });
+                }
             }
         }
     }
@@ -200,13 +212,96 @@ fn views(piece: &PlacedPiece, depth_in: f64, with_top: bool) -> (MemberView, Opt
     (side_view, with_top.then_some(top_view))
 }
 
-/// Where a plumb cut's line meets the top edge in the side view, and its
+/// The two points of a face outline farthest apart: its ends when the
+/// face is seen edge-on.
+fn face_ends(outline: &[DVec2]) -> Option<(DVec2, DVec2)> {
+    let mut best: Option<(f64, DVec2, DVec2)> = None;
+    for (index, a) in outline.iter().enumerate() {
+        for b in outline.iter().skip(index + 1) {
+            let distance = a.distance_squared(*b);
+            if best.is_none_or(|(far, _, _)| distance > far) {
+                best = Some((distance, *a, *b));
+            }
+        }
+    }
+    best.filter(|(far, _, _)| *far > 1e-12).map(|(_, a, b)| (a, b))
+}
+
+/// Where the line a cut leaves on the side face meets the edge the square
+/// is held on (the top edge at `edge_y` = depth, the bottom at 0), and its
 /// direction into the board.
-fn plumb_mark(view: &MemberView, face: CutFace) -> Option<CutMark> {
+fn edge_mark(view: &MemberView, face: CutFace, edge_y: f64) -> Option<CutMark> {
     let outline = &view.faces.iter().find(|f| f.face == face)?.outline;
-    let top = outline.iter().copied().max_by(|a, b| a.y.total_cmp(&b.y))?;
-    let bottom = outline.iter().copied().min_by(|a, b| a.y.total_cmp(&b.y))?;
-    Some(CutMark { edge_point: top, into_board: (bottom - top).try_normalize()?, edge_along: DVec2::X })
+    let (a, b) = face_ends(outline)?;
+    let (on_edge, other) = if (a.y - edge_y).abs() <= (b.y - edge_y).abs() { (a, b) } else { (b, a) };
+    Some(CutMark {
+        edge_point: on_edge,
+        into_board: (other - on_edge).try_normalize()?,
+        edge_along: DVec2::X,
+    })
+}
+
+/// Where a cheek cut's line is marked on the top view: on the arris it
+/// meets, running across the top, with the square's other figure landing
+/// on the stock (the face of `square`'s cut nearest `top_line_deg` at the
+/// right end, not yet used by another cut).
+fn cheek_top_mark(
+    top: &MemberView,
+    upper: bool,
+    top_line_deg: f64,
+    square: &SquareSetting,
+    left: Option<bool>,
+    used: &mut Vec<usize>,
+) -> Option<CutMark> {
+    let (low, high) = crate::drawing::bounds(&top.outline)?;
+    let middle_x = 0.5 * (low.x + high.x);
+    let on_arris = |p: DVec2| (p.y - low.y).abs() < 0.05 || (p.y - high.y).abs() < 0.05;
+    let (index, (a, b)) = top
+        .faces
+        .iter()
+        .enumerate()
+        .filter(|(index, face)| face.face == CutFace::Cheek && !used.contains(index))
+        .filter_map(|(index, face)| Some((index, face_ends(&face.outline)?)))
+        .filter(|(_, (a, b))| (0.5 * (a.x + b.x) > middle_x) == upper)
+        .min_by(|(_, x), (_, y)| {
+            // The side frame's left is +y in the top view.
+            let off = |(a, b): &(DVec2, DVec2)| {
+                let d = *b - *a;
+                let wrong_hand = left.is_some_and(|left| (a.y + b.y > 0.0) != left);
+                (d.x.abs().atan2(d.y.abs()).to_degrees() - top_line_deg).abs()
+                    + if wrong_hand { 90.0 } else { 0.0 }
+            };
+            off(x).total_cmp(&off(y))
+        })?;
+    used.push(index);
+    // Of the ends on an arris, the one whose square lands its other figure
+    // on the stock rather than past the member's end.
+    [(a, b), (b, a)]
+        .into_iter()
+        .filter(|(edge, _)| on_arris(*edge))
+        .filter_map(|(edge, other)| {
+            let mark = CutMark {
+                edge_point: edge,
+                into_board: (other - edge).try_normalize()?,
+                edge_along: DVec2::X,
+            };
+            let hold = crate::drawing::square_hold(&mark, square)?;
+            let past = (low.x - hold.other_point.x).max(hold.other_point.x - high.x).max(0.0);
+            Some((past, mark))
+        })
+        .min_by(|x, y| x.0.total_cmp(&y.0))
+        .map(|(_, mark)| mark)
+}
+
+fn cut_angles(face: &FaceAngles) -> CutAngles {
+    CutAngles {
+        side_line_deg: face.side_angle_deg,
+        top_line_deg: face.top_edge_angle_deg,
+        circular_on_face_bevel_deg: face.face_bevel_deg,
+        circular_on_edge_bevel_deg: face.edge_bevel_deg,
+        miter_flat_deg: [face.miter_flat.miter_deg, face.miter_flat.bevel_deg],
+        miter_on_edge_deg: [face.miter_on_edge.miter_deg, face.miter_on_edge.bevel_deg],
+    }
 }
 
 fn plumb_square(square: [f64; 2], member: &str) -> SquareSetting {
@@ -265,8 +360,15 @@ fn angle_settings(face: &FaceAngles) -> Vec<AngleSetting> {
     out
 }
 
-fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<CardCut> {
+fn card_cuts(
+    member: &Member,
+    side: &MemberView,
+    top: Option<&MemberView>,
+    style: LengthStyle,
+) -> Vec<CardCut> {
     let words = kind_words(member.kind);
+    let depth_in = member.size.depth_in;
+    let mut used = Vec::new();
     let length = |inches: f64| Length::from_inches(inches).format(style);
     let mut cuts = Vec::new();
     for cut in &member.cuts {
@@ -279,17 +381,17 @@ fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<Card
                     place,
                     square: Some(plumb_square(*square, words)),
                     settings: angle_settings(face),
-                    mark: plumb_mark(side, kind),
-                    notes: vec![format!("shortened {} from the theoretical end, along the top edge", length(*deduction_in))],
+                    angles: Some(cut_angles(face)),
+                    mark: edge_mark(side, kind, depth_in),
+                    top_mark: None,
+                    notes: vec![format!(
+                        "shortened {} from the theoretical end, along the top edge",
+                        length(*deduction_in)
+                    )],
                 });
             }
-            Cut::Cheek { square, face, long_point, deduction_in, .. } => cuts.push(CardCut {
-                face: CutFace::Cheek,
-                place: format!(
-                    "{place}, long point on the {}",
-                    if *long_point == Hand::Left { "left" } else { "right" }
-                ),
-                square: Some(SquareSetting {
+            Cut::Cheek { end, square, face, long_point, deduction_in, .. } => {
+                let square = SquareSetting {
                     figure: square[1],
                     against: square[0],
                     mark_along: MarkAlong::Against,
@@ -297,27 +399,60 @@ fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<Card
                         "on the top edge hold {} and {:.3} on the same edge; mark along the {} arm for the cheek line",
                         square[0], square[1], square[0]
                     ),
-                }),
-                settings: angle_settings(face),
-                mark: None,
-                notes: vec![format!("shortened {} from the theoretical end", length(*deduction_in))],
-            }),
-            Cut::DoubleCheek { left, right, deduction_in, .. } => {
+                };
+                let top_mark = top.and_then(|top| {
+                    cheek_top_mark(
+                        top,
+                        *end != CutEnd::Tail && *end != CutEnd::Bottom,
+                        face.top_edge_angle_deg,
+                        &square,
+                        None,
+                        &mut used,
+                    )
+                });
+                cuts.push(CardCut {
+                    face: CutFace::Cheek,
+                    place: format!(
+                        "{place}, long point on the {}",
+                        if *long_point == Hand::Left { "left" } else { "right" }
+                    ),
+                    square: Some(square),
+                    settings: angle_settings(face),
+                    angles: Some(cut_angles(face)),
+                    mark: None,
+                    top_mark,
+                    notes: vec![format!("shortened {} from the theoretical end", length(*deduction_in))],
+                });
+            }
+            Cut::DoubleCheek { end, left, right, deduction_in, .. } => {
                 for (hand, face) in [("left", left), ("right", right)] {
+                    let square = face.top_edge_square.map(|square| SquareSetting {
+                        figure: square[1],
+                        against: square[0],
+                        mark_along: MarkAlong::Against,
+                        setup: format!(
+                            "on the top edge hold {} and {:.3}; mark along the {} arm",
+                            square[0], square[1], square[0]
+                        ),
+                    });
+                    let top_mark = top.zip(square.as_ref()).and_then(|(top, square)| {
+                        cheek_top_mark(
+                            top,
+                            *end != CutEnd::Tail && *end != CutEnd::Bottom,
+                            face.top_edge_angle_deg,
+                            square,
+                            Some(hand == "left"),
+                            &mut used,
+                        )
+                    });
                     cuts.push(CardCut {
                         face: CutFace::Cheek,
                         place: format!("{place}, {hand} cheek of a double cheek"),
-                        square: face.top_edge_square.map(|square| SquareSetting {
-                            figure: square[1],
-                            against: square[0],
-                            mark_along: MarkAlong::Against,
-                            setup: format!(
-                                "on the top edge hold {} and {:.3}; mark along the {} arm",
-                                square[0], square[1], square[0]
-                            ),
-                        }),
+                        square,
                         settings: angle_settings(face),
+                        angles: Some(cut_angles(face)),
                         mark: None,
+                        top_mark,
                         notes: vec![format!("shortened {} from the theoretical end", length(*deduction_in))],
                     });
                 }
@@ -328,7 +463,9 @@ fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<Card
                     place: "birdsmouth, plumb on the wall line".into(),
                     square: Some(plumb_square(*square, words)),
                     settings: vec![],
-                    mark: plumb_mark(side, CutFace::Heel),
+                    angles: None,
+                    mark: edge_mark(side, CutFace::Heel, 0.0),
+                    top_mark: None,
                     notes: vec![format!("height above plate {}", length(*heel_height_in))],
                 });
                 let mut notes = vec![
@@ -341,9 +478,14 @@ fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<Card
                 cuts.push(CardCut {
                     face: CutFace::Seat,
                     place: "birdsmouth, level on the plate".into(),
-                    square: Some(SquareSetting { mark_along: MarkAlong::Against, ..plumb_square(*square, words) }),
+                    square: Some(SquareSetting {
+                        mark_along: MarkAlong::Against,
+                        ..plumb_square(*square, words)
+                    }),
                     settings: vec![],
-                    mark: None,
+                    angles: None,
+                    mark: edge_mark(side, CutFace::Seat, 0.0),
+                    top_mark: None,
                     notes,
                 });
             }
@@ -355,15 +497,22 @@ fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<Card
                 },
                 square: Some(plumb_square(*square, words)),
                 settings: faces.first().map(angle_settings).unwrap_or_default(),
-                mark: plumb_mark(side, CutFace::TailPlumb),
+                angles: faces.first().map(cut_angles),
+                mark: edge_mark(side, CutFace::TailPlumb, depth_in),
+                top_mark: None,
                 notes: vec![],
             }),
             Cut::Soffit { square, length_in, .. } => cuts.push(CardCut {
                 face: CutFace::TailLevel,
                 place: "tail, level soffit cut".into(),
-                square: Some(SquareSetting { mark_along: MarkAlong::Against, ..plumb_square(*square, words) }),
+                square: Some(SquareSetting {
+                    mark_along: MarkAlong::Against,
+                    ..plumb_square(*square, words)
+                }),
                 settings: vec![],
-                mark: None,
+                angles: None,
+                mark: edge_mark(side, CutFace::TailLevel, 0.0),
+                top_mark: None,
                 notes: vec![format!("{} long on the side face", length(*length_in))],
             }),
             Cut::Backing { left_deg, right_deg, .. } => cuts.push(CardCut {
@@ -371,10 +520,22 @@ fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<Card
                 place: "full length, top edge".into(),
                 square: None,
                 settings: vec![
-                    AngleSetting { degrees: *left_deg, setup: format!("left side of the top: bevel {left_deg:.1} deg from level across the top") },
-                    AngleSetting { degrees: *right_deg, setup: format!("right side of the top: bevel {right_deg:.1} deg from level across the top") },
+                    AngleSetting {
+                        degrees: *left_deg,
+                        setup: format!(
+                            "left side of the top: bevel {left_deg:.1} deg from level across the top"
+                        ),
+                    },
+                    AngleSetting {
+                        degrees: *right_deg,
+                        setup: format!(
+                            "right side of the top: bevel {right_deg:.1} deg from level across the top"
+                        ),
+                    },
                 ],
+                angles: None,
                 mark: None,
+                top_mark: None,
                 notes: vec![],
             }),
             Cut::SquareEnd { .. } => cuts.push(CardCut {
@@ -382,7 +543,9 @@ fn card_cuts(member: &Member, side: &MemberView, style: LengthStyle) -> Vec<Card
                 place,
                 square: None,
                 settings: vec![],
+                angles: None,
                 mark: None,
+                top_mark: None,
                 notes: vec!["square across".into()],
             }),
         }
@@ -420,7 +583,7 @@ pub fn member_card(member: &Member, pieces: &[PlacedPiece], style: LengthStyle) 
             tail_in: (member.tail_length > 0.0).then_some(member.tail_length),
             overall_in: member.overall_length,
         },
-        cuts: card_cuts(member, &side_view, style),
+        cuts: card_cuts(member, &side_view, top_view.as_ref(), style),
         warnings: member.warnings.iter().map(|warning| warning_words(warning, style)).collect(),
         side_view,
         top_view,

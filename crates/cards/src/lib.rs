@@ -20,6 +20,7 @@ pub use lumber_order::{
     PackingMethod, SizeOrder, SplicePiece, StockCount, StockSeries, order_lumber,
 };
 mod card_deck;
+mod card_page;
 mod cards_pdf;
 mod cut_list;
 mod drawing;
@@ -30,6 +31,7 @@ mod pdf_page;
 mod polygon_triangles;
 
 pub use card_deck::{CardDeck, PlaneSummary, RoofSummary};
+pub use card_page::{CARD_CAUTION, MIN_TEXT_PT};
 pub use cards_pdf::{
     CAUTIONS, CardOptions, CardsError, POINTS_PER_IN, POINTS_PER_MM, Paper, render_cards, scale_bar_pt,
 };
@@ -39,4 +41,6 @@ pub use from_frame::{
     warning_words,
 };
 pub use gltf_export::{GltfError, ModelFace, ModelPiece, ModelScene, frame_glb};
-pub use member_card::{CardCut, CutFace, CutMark, MemberCard, MemberLengths, MemberView, ViewFace};
+pub use member_card::{
+    CardCut, CutAngles, CutFace, CutMark, MemberCard, MemberLengths, MemberView, ViewFace,
+};

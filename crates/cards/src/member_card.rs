@@ -136,6 +136,27 @@ pub struct CutMark {
     pub edge_along: DVec2,
 }
 
+/// A compound cut's angles grouped by tool, so a card can print them in a
+/// few short lines; each still names its setup when printed.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct CutAngles {
+    /// The line on the side face, degrees from square to the edge.
+    pub side_line_deg: f64,
+    /// The line across the top edge, degrees from square (a line angle,
+    /// not a saw bevel); zero where the cut is square across.
+    pub top_line_deg: f64,
+    /// Circular saw on the side face, cutting along the side-face line:
+    /// blade bevel, degrees.
+    pub circular_on_face_bevel_deg: f64,
+    /// Circular saw riding the top edge along the top-edge line: blade
+    /// bevel, degrees.
+    pub circular_on_edge_bevel_deg: f64,
+    /// Miter saw with the board flat: miter and bevel, degrees.
+    pub miter_flat_deg: [f64; 2],
+    /// Miter saw with the board on edge: miter and bevel, degrees.
+    pub miter_on_edge_deg: [f64; 2],
+}
+
 /// One cut on a member, with every figure and setting to make it.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct CardCut {
@@ -147,9 +168,14 @@ pub struct CardCut {
     pub square: Option<SquareSetting>,
     /// Saw settings, each with its setup named.
     pub settings: Vec<AngleSetting>,
+    /// The same angles grouped by tool, where the cut has them.
+    pub angles: Option<CutAngles>,
     /// Where the line is marked on the side view, when the square is held
     /// on the side face for it.
     pub mark: Option<CutMark>,
+    /// Where the line is marked on the top view, when the square is held
+    /// on the top edge for it (cheek cuts).
+    pub top_mark: Option<CutMark>,
     /// A measured figure for the cut, with what it measures
     /// ("notch depth 1-9/16\" square to the edge").
     pub notes: Vec<String>,

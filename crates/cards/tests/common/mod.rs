@@ -175,7 +175,9 @@ fn rafter(
             } else {
                 plumb_settings(theta, 0.0).into_iter().take(1).collect()
             },
+            angles: None,
             mark,
+            top_mark: None,
             notes: if face == CutFace::Seat {
                 vec![format!("notch depth {:.3} in square to the edge", 3.5 * theta.sin())]
             } else {
@@ -304,7 +306,9 @@ pub fn sample_deck() -> CardDeck {
         place: "upper end, double cheek against the ridge".into(),
         square: Some(table.hip_side_cut.clone()),
         settings: plumb_settings(hip_theta, std::f64::consts::FRAC_PI_4),
+        angles: None,
         mark: None,
+        top_mark: None,
         notes: vec![],
     });
     hip.warnings.push("seat notch is 0.41 of the depth, deeper than the 1/3 limit set".into());
