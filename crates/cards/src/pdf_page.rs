@@ -6,7 +6,6 @@
 //! font file ships with the program; text is encoded as WinAnsi.
 
 use std::fmt::Write as _;
-use std::io::Write as _;
 
 use glam::DVec2;
 use lopdf::{Dictionary, Document, Object, Stream, dictionary};
@@ -343,25 +342,13 @@ impl Forms {
     }
 }
 
-/// A content stream deflated at a fast level: the best level took most of
-/// the time to write a deck and saved little, since these streams are
-/// mostly short repeated operators.
+/// A content stream, deflated.
 fn deflated_stream(dict: Dictionary, content: Vec<u8>) -> Stream {
-    let mut encoder = flate2::write::ZlibEncoder::new(Vec::new(), flate2::Compression::fast());
-    match encoder.write_all(&content).and_then(|()| encoder.finish()) {
-        Ok(compressed) if compressed.len() < content.len() => {
-            let mut dict = dict;
-            dict.set("Filter", "FlateDecode");
-            let mut stream = Stream::new(dict, compressed);
-            stream.allows_compression = false;
-            stream
-        }
-        _ => {
-            let mut stream = Stream::new(dict, content);
-            stream.allows_compression = false;
-            stream
-        }
-    }
+    let mut stream = Stream::new(dict, content);
+    // A stream that will not deflate is written as it is.
+    let _ = stream.compress();
+    stream.allows_compression = false;
+    stream
 }
 
 /// Writes pages and the forms they place into one PDF file.
