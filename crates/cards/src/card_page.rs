@@ -313,11 +313,33 @@ fn cells_per_row(width: f64) -> usize {
     (((width + GAP) / (CLOSE_UP_MIN_W + GAP)).floor() as usize).max(1)
 }
 
+/// Type size of the line naming the member beside its label.
+const SUMMARY_PT: f64 = 9.0;
+
+/// The line naming the member, wrapped to the room beside the label
+/// (the numbering's corner kept clear).
+fn summary_lines(member: &MemberCard, width: f64, continued: bool) -> Vec<String> {
+    let label_w = text_width(&member.label, LABEL_PT, true) + 10.0;
+    let summary = if continued {
+        format!("{} (continued)", member.kind)
+    } else {
+        format!(
+            "{} - cut {} - {} - pitch {:.2} deg - lengths along the top edge",
+            member.kind,
+            member.count,
+            member.size,
+            member.pitch_rad.to_degrees()
+        )
+    };
+    let room = width - label_w - text_width("card 00 of 00", MIN_TEXT_PT, false) - 6.0;
+    wrap(&summary, room.max(60.0), SUMMARY_PT, true)
+}
+
 /// Where the label and the length cells go in the header, and its height.
 fn header_cells(member: &MemberCard, style: LengthStyle, width: f64) -> (Vec<(DVec2, String, String)>, f64) {
     let label_w = text_width(&member.label, LABEL_PT, true) + 10.0;
     let row_h = MIN_TEXT_PT * LEADING + VALUE_PT * 1.1 + 2.0;
-    let top_line = 9.0 * LEADING + 2.0;
+    let top_line = summary_lines(member, width, false).len() as f64 * SUMMARY_PT * LEADING + 2.0;
     let mut x = label_w;
     let mut y = top_line;
     let mut placed = Vec::new();
@@ -391,20 +413,13 @@ pub(crate) fn draw_header(
     );
     let label_w = text_width(&member.label, LABEL_PT, true) + 10.0;
     page.fill_colour(BLACK);
-    let summary = if continued {
-        format!("{} (continued)", member.kind)
-    } else {
-        format!(
-            "{} - cut {} - {} - pitch {:.2} deg - lengths along the top edge",
-            member.kind,
-            member.count,
-            member.size,
-            member.pitch_rad.to_degrees()
-        )
-    };
-    page.text(DVec2::new(inner.corner.x + label_w, top - 9.0), 9.0, true, &summary);
+    let summary = summary_lines(member, inner.size.x, continued);
+    for (index, line) in summary.iter().enumerate() {
+        let y = top - SUMMARY_PT - index as f64 * SUMMARY_PT * LEADING;
+        page.text(DVec2::new(inner.corner.x + label_w, y), SUMMARY_PT, true, line);
+    }
     if continued {
-        return LABEL_PT + 4.0;
+        return (summary.len() as f64 * SUMMARY_PT * LEADING).max(LABEL_PT) + 4.0;
     }
     let (cells, height) = header_cells(member, style, inner.size.x);
     for (at, caption, value) in cells {

@@ -554,7 +554,7 @@ fn template_pages(deck: &CardDeck, member: &MemberCard, paper: DVec2) -> Vec<Pag
             let Some((low, high)) = bounds(&view.outline) else { continue };
             let mut page = Page::new(paper.x, paper.y);
             let window =
-                Area::new(MARGIN, MARGIN + 60.0, paper.x - 2.0 * MARGIN, paper.y - 2.0 * MARGIN - 100.0);
+                Area::new(MARGIN, MARGIN + 60.0, paper.x - 2.0 * MARGIN, paper.y - 2.0 * MARGIN - 112.0);
             let window_in = window.size / POINTS_PER_IN;
             // The end sits against the window's outer side at 1:1.
             let origin_x = if upper { high.x + 0.5 - window_in.x } else { low.x - 0.5 };
@@ -580,12 +580,14 @@ fn template_pages(deck: &CardDeck, member: &MemberCard, paper: DVec2) -> Vec<Pag
                 false,
                 "Cut out along the bold outline and hold it on the member to mark the cut. Tags name each cut face.",
             );
-            let mut y = paper.y - MARGIN - 40.0;
+            // The tags' key in one row above the window, clear of the drawing.
+            let y = paper.y - MARGIN - 44.0;
+            let mut x = MARGIN + 6.0;
             for face in CutFace::ALL.iter().filter(|face| view.faces.iter().any(|f| f.face == **face)) {
-                tag(&mut page, DVec2::new(MARGIN + 8.0, y + 2.5), 7.0, face.tag());
+                tag(&mut page, DVec2::new(x, y + 2.5), 8.0, face.tag());
                 page.fill_colour(BLACK);
-                page.text(DVec2::new(MARGIN + 18.0, y), 7.0, false, face.name());
-                y -= 10.0;
+                page.text(DVec2::new(x + 10.0, y), 8.0, false, face.name());
+                x += 24.0 + crate::pdf_page::text_width(face.name(), 8.0, false);
             }
             scale_bar(&mut page, deck.length_style, DVec2::new(MARGIN, MARGIN + 16.0));
             footer(&mut page, deck);
