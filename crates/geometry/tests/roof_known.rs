@@ -929,3 +929,32 @@ fn steep_courtyard_in_a_low_pitch_block() {
     check_invariants(&roof, &walls, outline_area(&outer, &[hole]));
     assert_eq!(roof.planes.len(), 8);
 }
+
+#[test]
+fn l_with_a_step_between_parallel_walls_of_different_pitch_closes() {
+    // The step between the two long parallel walls closes part-way up;
+    // from there the lower-pitch wall's plane (7 in 12) is the lower and
+    // takes over from the steeper one (15 in 12). No published value: the
+    // invariants must hold and the two meet in a level line at the height
+    // where their lines came into line, 79.78 in (derivation: the step of
+    // 72.94 in closes when 12/7 t - 12/15 t = 72.94).
+    let corners = [
+        (218.8325680485475, 456.64761761382636, 1.25),
+        (218.8325680485475, 228.32380880691318, 1.0),
+        (291.77675739806335, 228.32380880691318, 7.0 / 12.0),
+        (291.77675739806335, 0.0, 1.25),
+        (0.0, 0.0, 1.4597134066979394),
+    ];
+    let outer: Vec<Wall> = corners.iter().map(|&(x, y, r)| pitched(x, y, r)).collect();
+    let (roof, walls) = solve(outer.clone(), vec![]);
+    check_invariants(&roof, &walls, outline_area(&outer, &[]));
+    let step = 291.77675739806335 - 218.8325680485475;
+    let t = step / (12.0 / 7.0 - 0.8);
+    assert!(
+        roof.lines
+            .iter()
+            .any(|l| l.walls == [0, 2] && (l.from.z - t).abs() < 1e-6 && (l.to.z - t).abs() < 1e-6),
+        "{:?}",
+        roof.lines
+    );
+}
