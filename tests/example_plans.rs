@@ -56,3 +56,35 @@ fn the_metric_bungalow_ridge_follows_from_its_pitches() {
     let expected_len = 12000.0 - 2.0 * expected_mm / 35f64.to_radians().tan();
     assert!((length_mm - expected_len).abs() < 0.01, "{length_mm} vs {expected_len}");
 }
+
+#[test]
+fn every_example_frames_with_finite_numbers_and_tight_joints() {
+    use pitchframe_geometry::frame_roof;
+    for (name, plan) in all_plans() {
+        let outline = plan.outline().unwrap();
+        let roof = Roof::solve(&outline).unwrap();
+        let frame = frame_roof(&outline, &roof, &plan.framing_settings().unwrap())
+            .unwrap_or_else(|e| panic!("{name}: {e}"));
+        assert!(!frame.members.is_empty(), "{name}");
+        for m in &frame.members {
+            for (what, v) in [
+                ("theoretical", m.theoretical_length),
+                ("long point", m.long_point_length),
+                ("short point", m.short_point_length),
+                ("overall", m.overall_length),
+                ("seat to top cut", m.seat_to_top_cut),
+                ("tail", m.tail_length),
+            ] {
+                assert!(v.is_finite() && v >= 0.0, "{name} {}: {what} length {v}", m.label);
+            }
+        }
+        for p in &frame.pieces {
+            assert!(p.axis.iter().all(|a| a.is_finite()), "{name} {}: axis {:?}", p.label, p.axis);
+        }
+        // A correct frame's mating faces meet within 1/64 in (the joint
+        // check's own standard; common practice for a tight cut).
+        for j in &frame.joints {
+            assert!(j.max_gap < 1.0 / 64.0 && j.max_overlap < 1.0 / 64.0, "{name} {:?}", j);
+        }
+    }
+}

@@ -99,3 +99,87 @@ fn solve_refuses_a_file_that_is_not_a_plan() {
     assert!(message.contains("corners"), "{message}");
     std::fs::remove_dir_all(&dir).ok();
 }
+
+fn temp_dir(name: &str) -> std::path::PathBuf {
+    let dir = std::env::temp_dir().join(format!("pitchframe-cli-{name}-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    dir
+}
+
+#[test]
+fn list_prints_every_member_label_and_the_caution() {
+    let out = pitchframe(&["list", "demo"]);
+    assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+    let text = String::from_utf8_lossy(&out.stdout);
+    let roof = stdout_json(&pitchframe(&["solve", "demo", "--json"]));
+    for member in roof["members"].as_array().unwrap() {
+        let label = member["label"].as_str().unwrap();
+        assert!(text.lines().any(|l| l.starts_with(&format!("{label} "))), "{label} missing:\n{text}");
+    }
+    assert!(text.contains("local codes"), "{text}");
+}
+
+#[test]
+fn list_writes_a_csv_with_a_row_per_member() {
+    let dir = temp_dir("csv");
+    let csv = dir.join("cuts.csv");
+    let out = pitchframe(&["list", "demo", "--csv", csv.to_str().unwrap()]);
+    assert!(out.status.success());
+    let text = std::fs::read_to_string(&csv).unwrap();
+    let roof = stdout_json(&pitchframe(&["solve", "demo", "--json"]));
+    let members = roof["members"].as_array().unwrap().len();
+    assert_eq!(text.lines().count(), members + 1, "{text}");
+    assert!(text.lines().next().unwrap().starts_with("label"));
+    std::fs::remove_dir_all(&dir).ok();
+}
+
+#[test]
+fn order_places_every_piece_and_reports_the_bound() {
+    let out = pitchframe(&["order", "demo"]);
+    assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(text.contains("no order can buy less than"), "{text}");
+    assert!(text.contains("Total:"), "{text}");
+    // Every piece of the frame is on exactly one board (or a splice line).
+    let roof = stdout_json(&pitchframe(&["solve", "demo", "--json"]));
+    let pieces: u64 = roof["members"].as_array().unwrap().iter().map(|m| m["count"].as_u64().unwrap()).sum();
+    let on_boards: usize = text
+        .lines()
+        .filter(|l| l.trim_start().starts_with("board "))
+        .map(|l| l.split(':').nth(1).unwrap().split(';').next().unwrap().split(", ").count())
+        .sum();
+    let spliced: u64 = text
+        .lines()
+        .filter(|l| l.contains("needs a splice"))
+        .map(|l| l.split(" x ").next().unwrap().trim().parse::<u64>().unwrap())
+        .sum();
+    assert_eq!(on_boards as u64 + spliced, pieces, "{text}");
+}
+
+#[test]
+fn cards_write_a_pdf_and_export_writes_a_glb() {
+    let dir = temp_dir("files");
+    let pdf = dir.join("cards.pdf");
+    let out = pitchframe(&["cards", "demo", "-o", pdf.to_str().unwrap(), "--paper", "a4", "--per-page", "2"]);
+    assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+    assert!(std::fs::read(&pdf).unwrap().starts_with(b"%PDF-"));
+    let glb = dir.join("frame.glb");
+    let out = pitchframe(&["export", "demo", "-o", glb.to_str().unwrap()]);
+    assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+    // glTF 2.0 binary files open with the magic "glTF" and version 2
+    // (Khronos glTF 2.0 specification, section "Binary glTF Layout").
+    let bytes = std::fs::read(&glb).unwrap();
+    assert_eq!(&bytes[..4], b"glTF");
+    assert_eq!(u32::from_le_bytes([bytes[4], bytes[5], bytes[6], bytes[7]]), 2);
+    std::fs::remove_dir_all(&dir).ok();
+}
+
+#[test]
+fn cards_refuse_an_unknown_template_label() {
+    let dir = temp_dir("templates");
+    let pdf = dir.join("cards.pdf");
+    let message =
+        one_line_error(&pitchframe(&["cards", "demo", "-o", pdf.to_str().unwrap(), "--templates", "ZZ9"]));
+    assert!(message.contains("ZZ9"), "{message}");
+    std::fs::remove_dir_all(&dir).ok();
+}

@@ -48,6 +48,8 @@ fn demo_model_has_a_node_per_piece() {
     let d = demo();
     let scene = model_scene(&d.outline, &d.roof, &d.frame, true, true);
     let bad = d.frame.pieces.iter().find(|p| !(p.axis[0].is_finite() && p.axis[1].is_finite()));
+    // Every demo piece is placed (the valley's tail once gave an infinite axis).
+    assert!(bad.is_none(), "unplaced piece {:?}", bad.map(|p| &p.label));
     match (frame_glb(&scene), bad) {
         // A piece the framing could not place is refused by name, never
         // written as a broken model.

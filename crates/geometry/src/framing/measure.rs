@@ -89,9 +89,13 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
         .filter(|h| h.normal.dot(fr.along) > 1e-12)
         .filter_map(|h| centre_line_hit(spec, h))
         .fold(f64::INFINITY, f64::min);
+    // A valley over an inside corner carries its tail cuts on each seat
+    // half rather than as lower cuts; both end the member below.
+    let seat_half_cuts = spec.seat.iter().flat_map(|s| s.half_cuts.iter());
     let s_low_cuts = spec
         .lower_cuts
         .iter()
+        .chain(seat_half_cuts)
         .filter(|h| h.normal.dot(fr.along) < -1e-12)
         .filter_map(|h| centre_line_hit(spec, h))
         .fold(f64::NEG_INFINITY, f64::max);
