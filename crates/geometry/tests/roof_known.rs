@@ -958,3 +958,20 @@ fn l_with_a_step_between_parallel_walls_of_different_pitch_closes() {
         roof.lines
     );
 }
+#[test]
+fn random_outlines_with_every_awkward_detail_solve() {
+    // Walls in line, walls just over the tolerance long, nearly parallel
+    // neighbours, a pitch per wall, gables and a courtyard, from the
+    // project's outline generator: every one must solve and tile its
+    // outline.
+    use pitchframe_geometry::{OutlineFeatures, OutlineShape, random_outline_with};
+    for shape in [OutlineShape::Orthogonal, OutlineShape::Star] {
+        for seed in 0..60u64 {
+            let o = random_outline_with(shape, seed, OutlineFeatures::ALL);
+            let roof = Roof::solve(&o).unwrap_or_else(|e| panic!("{shape:?} seed {seed}: {e}"));
+            let ends: Vec<_> = (0..o.wall_count()).map(|i| o.wall(i).unwrap()).collect();
+            let area = outline_area(o.outer(), o.courtyards());
+            check_invariants(&roof, &ends, area);
+        }
+    }
+}
