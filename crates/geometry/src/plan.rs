@@ -502,7 +502,7 @@ struct RawRoof {
 #[derive(Deserialize)]
 #[serde(deny_unknown_fields)]
 struct RawWall {
-    at: [RawLength; 2],
+    at: Vec<RawLength>,
     pitch: Option<String>,
     gable: Option<bool>,
     overhang: Option<RawLength>,
@@ -654,8 +654,18 @@ fn convert_walls(raw: Vec<RawWall>, units: LengthUnit, what: &str) -> Result<Vec
         .enumerate()
         .map(|(i, w)| {
             let place = format!("{what} {}", i + 1);
-            let x = parse_length(&w.at[0], units, &format!("{place}, corner x"))?;
-            let y = parse_length(&w.at[1], units, &format!("{place}, corner y"))?;
+            let [x, y] = w.at.as_slice() else {
+                return Err(PlanError::OutOfRange {
+                    place: format!("{place}, at"),
+                    reason: format!(
+                        "a corner is two numbers [x, y], but {} {} given",
+                        w.at.len(),
+                        if w.at.len() == 1 { "was" } else { "were" }
+                    ),
+                });
+            };
+            let x = parse_length(x, units, &format!("{place}, corner x"))?;
+            let y = parse_length(y, units, &format!("{place}, corner y"))?;
             let pitch = match w.pitch {
                 Some(text) => Some(parse_pitch(&text, &format!("{place} pitch"))?),
                 None => None,
