@@ -1,3 +1,4 @@
+#![allow(clippy::unwrap_used)] // test helpers: a panic here is a failed test
 //! The example plans in `examples/` and the built-in demo: each reads,
 //! validates and solves, and survives a save and reload unchanged.
 

@@ -1,3 +1,4 @@
+#![allow(clippy::unwrap_used)] // test helpers: a panic here is a failed test
 //! The command line: output shapes, exit codes and messages.
 
 use std::process::{Command, Output};

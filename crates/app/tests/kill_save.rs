@@ -1,3 +1,4 @@
+#![allow(clippy::unwrap_used)] // test helpers: a panic here is a failed test
 //! Saves and autosaves survive being killed at any moment: the plan on disk
 //! is always the whole old plan or the whole new one, never a mix.
 //!
