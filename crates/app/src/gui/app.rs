@@ -1,173 +1,616 @@
-//! The app: the document, what is derived from it, and the commands that
-//! change either.
+//! The app's state: the document, its history, what is derived from it,
+//! and the window's own settings. Commands recorded during a frame are
+//! applied here, in one place, after it. Nothing here touches GL, so the
+//! whole window (less the 3D drawing) runs under test.
 
+use std::path::{Path, PathBuf};
 use std::sync::{Arc, Mutex};
+use std::time::Duration;
 
-use std::path::Path;
-
-use anyhow::Context as _;
-use pitchframe_geometry::{Outline, Plan, demo_plan};
+use pitchframe_geometry::Plan;
 
 use super::ViewPreset;
 use super::camera::OrbitCamera;
-use super::command::Command;
+use super::command::{Command, Layout, shortcut_commands};
+use super::derived::Derived;
+use super::dialogs::{Answer, Dialog, Pending, PathPurpose, dialog_ui};
+use super::document::Document;
+use super::edit::{PlanEdit, wall_count};
+use super::file_dialog::{choose_plan_to_open, choose_plan_to_save, native_dialog_available, with_toml_extension};
+use super::files::ConfigDir;
+use super::history::History;
+use super::menu::{MenuState, menu_bar_ui};
 use super::pick::pick;
-use super::picture::PictureJob;
-use super::scene::Scene;
+use super::plan_view::{PlanViewInput, PlanViewState, plan_view_ui};
 use super::side_panel::side_panel_ui;
-use super::toolbar::{shortcuts, toolbar_ui};
+use super::toolbar::{ToolbarState, toolbar_ui};
+use super::units::DisplayUnits;
 use super::viewport::{Renderer, ViewStyle, viewport_ui};
+use super::wall_list::{WallListState, wall_list_ui};
 
-/// Floor to the top of the top plate, in inches: the plan gives heights
-/// from the wall line, so the walls are drawn at a usual 8 ft.
-const WALL_HEIGHT_IN: f64 = 96.0;
-/// Wall thickness drawn, in inches: a 2x6 stud wall with sheathing.
-const WALL_THICKNESS_IN: f64 = 6.0;
+/// Seconds between autosaves while there are unsaved changes.
+pub const AUTOSAVE_EVERY_S: f64 = 30.0;
 
-/// What the user edits; everything drawn is derived from it.
+/// Text size of the window's ordinary words, in points: larger than
+/// egui's default so the window reads at arm's length.
+const BODY_SIZE: f32 = 16.0;
+
+/// Which list the left panel shows.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum SideTab {
+    /// The roof and the wall list.
+    #[default]
+    Walls,
+    /// The picked member's numbers, the rafter tables and the colours.
+    Numbers,
+}
+
+/// A message shown across the window until dismissed.
 #[derive(Debug, Clone, PartialEq)]
-pub struct Document {
-    /// What the side panel calls the plan (its file name, or the demo).
-    pub title: String,
-    /// The plan as read.
-    pub plan: Plan,
-    /// The plan's outline, checked once when the plan was opened.
-    pub outline: Outline,
-    /// Floor to the top of the top plate, in inches.
-    pub wall_height_in: f64,
-    /// Wall thickness, in inches.
-    pub wall_thickness_in: f64,
+pub enum Notice {
+    /// Something failed: the user must know.
+    Error(String),
+    /// Something worth saying (a file was saved).
+    Info(String),
 }
 
-impl Document {
-    /// The built-in demo house.
-    pub fn demo() -> anyhow::Result<Self> {
-        Self::from_plan("Demo house".to_owned(), demo_plan().context("the built-in demo plan")?)
-    }
-
-    /// Reads the plan file at `path`.
-    pub fn open(path: &Path) -> anyhow::Result<Self> {
-        let text =
-            std::fs::read_to_string(path).with_context(|| format!("cannot read {}", path.display()))?;
-        let plan = Plan::from_toml(&text).with_context(|| format!("cannot open {}", path.display()))?;
-        let title = path
-            .file_name()
-            .map_or_else(|| path.display().to_string(), |name| name.to_string_lossy().into_owned());
-        Self::from_plan(title, plan).with_context(|| format!("cannot open {}", path.display()))
-    }
-
-    fn from_plan(title: String, plan: Plan) -> anyhow::Result<Self> {
-        let outline = plan.outline()?;
-        Ok(Self {
-            title,
-            plan,
-            outline,
-            wall_height_in: WALL_HEIGHT_IN,
-            wall_thickness_in: WALL_THICKNESS_IN,
-        })
-    }
-}
-
-/// What the user has picked in the 3D view.
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub struct Selection {
-    /// Index into the scene's framing pieces.
-    pub piece: usize,
-}
-
-/// The running window.
-pub struct PitchframeApp {
-    document: Document,
-    scene: Arc<Scene>,
-    camera: OrbitCamera,
-    renderer: Arc<Mutex<Renderer>>,
-    picture: Option<PictureJob>,
-    selection: Option<Selection>,
-    style: ViewStyle,
+/// Everything the window holds but the GL renderer.
+pub struct AppState {
+    /// The plan being edited and its file.
+    pub document: Document,
+    /// Earlier and later plans.
+    pub history: History,
+    /// What is worked out from the plan.
+    pub derived: Derived,
+    /// The 3D view's camera.
+    pub camera: OrbitCamera,
+    /// How the 3D view draws.
+    pub style: ViewStyle,
+    /// The label of the member picked in the 3D view.
+    pub picked: Option<String>,
+    /// The selected wall (global index).
+    pub selected_wall: Option<usize>,
+    /// The selected corner (the wall starting there).
+    pub selected_corner: Option<usize>,
+    /// How the middle of the window is shared.
+    pub layout: Layout,
+    /// How lengths are shown.
+    pub units: DisplayUnits,
+    /// Light or dark colours.
+    pub theme: egui::Theme,
+    /// What the left panel shows.
+    pub side_tab: SideTab,
+    /// The plan view's snapping and drag.
+    pub plan_view: PlanViewState,
+    /// Text typed into the wall list.
+    pub wall_list: WallListState,
+    /// Dialogs waiting, the first in front.
+    pub dialogs: Vec<Dialog>,
+    /// The message across the window.
+    pub notice: Option<Notice>,
+    /// The folder of the window's own files; `None` keeps nothing (as for
+    /// `--picture`).
+    pub config: Option<ConfigDir>,
     commands: Vec<Command>,
+    /// Set once the user has agreed to close.
+    close_now: bool,
+    close_allowed: bool,
+    next_autosave_s: Option<f64>,
+    autosaved: Option<Plan>,
+    style_set: bool,
 }
 
-impl PitchframeApp {
-    /// Sets up the app on the window's GL context.
-    pub fn new(
-        gl: Arc<three_d::context::Context>,
-        document: Document,
-        view: ViewPreset,
-        picture: Option<PictureJob>,
-        pick_label: Option<&str>,
-    ) -> anyhow::Result<Self> {
-        let renderer = Renderer::new(gl).context("three-d could not use the window's GL context")?;
-        let scene = Arc::new(scene_for(&document));
-        let selection = pick_label
-            .and_then(|label| scene.pieces.iter().position(|piece| piece.label == label))
-            .map(|piece| Selection { piece });
-        let camera = OrbitCamera::framing(scene.min, scene.max, view);
-        Ok(Self {
+impl AppState {
+    /// The window's state on `document`, its own files in `config`. A
+    /// leftover autosave is offered back; the safety cautions show at the
+    /// first start.
+    pub fn new(document: Document, config: Option<ConfigDir>, view: ViewPreset) -> Self {
+        let derived = Derived::new(&document.plan);
+        let camera = OrbitCamera::framing(derived.scene.min, derived.scene.max, view);
+        let mut dialogs = Vec::new();
+        if let Some(config) = &config {
+            if let Some(leftover) = config.leftover_autosave() {
+                match Plan::from_toml(&leftover.text) {
+                    Ok(plan) => dialogs.push(Dialog::Restore { plan, source: leftover.source }),
+                    Err(_) => config.clear_autosave(),
+                }
+            }
+            if !config.safety_shown() {
+                dialogs.push(Dialog::Safety);
+                // Shown once: a failure to note it only means it shows again.
+                let _ = config.mark_safety_shown();
+            }
+        }
+        Self {
+            units: DisplayUnits::for_plan_unit(document.plan.units),
             document,
-            scene,
+            history: History::default(),
+            derived,
             camera,
-            renderer: Arc::new(Mutex::new(renderer)),
-            picture,
-            selection,
             style: ViewStyle::default(),
-            // Opening on a pick (as tests do) shows it close up.
-            commands: selection.map(|_| Command::FocusPicked).into_iter().collect(),
-        })
+            picked: None,
+            selected_wall: None,
+            selected_corner: None,
+            layout: Layout::default(),
+            theme: egui::Theme::Light,
+            side_tab: SideTab::default(),
+            plan_view: PlanViewState::default(),
+            wall_list: WallListState::default(),
+            dialogs,
+            notice: None,
+            config,
+            commands: Vec::new(),
+            close_now: false,
+            close_allowed: false,
+            next_autosave_s: None,
+            autosaved: None,
+            style_set: false,
+        }
     }
 
-    fn apply_commands(&mut self) {
-        for command in std::mem::take(&mut self.commands) {
-            match command {
-                Command::SetView(view) => self.camera.set_view(view),
-                Command::SetClientView(on) => self.style.client_view = on,
-                Command::FocusPicked => {
-                    let picked = self.selection.and_then(|selection| self.scene.pieces.get(selection.piece));
-                    if let Some((min, max)) = picked.and_then(|piece| piece.triangles.bounds()) {
-                        self.camera.focus(min, max);
+    /// Queues a command as if the user had asked for it.
+    pub fn push(&mut self, command: Command) {
+        self.commands.push(command);
+    }
+
+    /// The index of the picked member's first piece in the scene.
+    pub fn picked_piece(&self) -> Option<usize> {
+        let label = self.picked.as_deref()?;
+        self.derived.scene.pieces.iter().position(|piece| piece.label == label)
+    }
+
+    /// The whole window for one frame; the 3D view is drawn when a
+    /// renderer is given, else a plain note stands in its place.
+    pub fn ui(&mut self, ui: &mut egui::Ui, renderer: Option<&Arc<Mutex<Renderer>>>) {
+        let ctx = ui.ctx().clone();
+        if !self.style_set {
+            self.style_set = true;
+            set_style(&ctx, self.theme);
+        }
+        self.commands.extend(shortcut_commands(&ctx));
+        self.watch_close(&ctx);
+
+        let menu_state = MenuState {
+            can_undo: self.history.can_undo(),
+            can_redo: self.history.can_redo(),
+            corner_selected: self.selected_corner.is_some(),
+            picked: self.picked.is_some(),
+            client_view: self.style.client_view,
+            layout: self.layout,
+            units: self.units,
+            theme: self.theme,
+            recent: self.config.as_ref().map(ConfigDir::recent).unwrap_or_default(),
+        };
+        egui::Panel::top("menu").show(ui, |ui| menu_bar_ui(ui, &menu_state, &mut self.commands));
+        egui::Panel::top("toolbar").show(ui, |ui| {
+            let state = ToolbarState {
+                picked: self.picked.is_some(),
+                client_view: self.style.client_view,
+                can_undo: self.history.can_undo(),
+                can_redo: self.history.can_redo(),
+                layout: self.layout,
+            };
+            toolbar_ui(ui, state, &mut self.commands);
+        });
+        if let Some(notice) = self.notice.clone() {
+            egui::Panel::top("notice").show(ui, |ui| notice_ui(ui, &notice, &mut self.notice));
+        }
+        egui::Panel::bottom("status").show(ui, |ui| {
+            let unsaved = if self.document.unsaved() { "  (unsaved changes)" } else { "" };
+            ui.label(format!("{}{unsaved}", self.document.title()));
+        });
+        egui::Panel::left("lists").default_size(400.0).show(ui, |ui| self.side_ui(ui));
+        egui::CentralPanel::default().show(ui, |ui| self.middle_ui(ui, renderer));
+
+        if let Some(dialog) = self.dialogs.first_mut() {
+            if let Some(answer) = dialog_ui(&ctx, dialog) {
+                self.commands.push(Command::Answer(answer));
+            }
+        }
+        self.apply_commands(&ctx);
+        self.autosave_when_due(&ctx);
+        if self.close_now {
+            ctx.send_viewport_cmd(egui::ViewportCommand::Close);
+        }
+    }
+
+    fn side_ui(&mut self, ui: &mut egui::Ui) {
+        ui.horizontal(|ui| {
+            for (tab, label) in [(SideTab::Walls, "Walls"), (SideTab::Numbers, "Numbers")] {
+                let text = egui::RichText::new(label).size(18.0);
+                if ui.selectable_label(self.side_tab == tab, text).clicked() {
+                    self.side_tab = tab;
+                }
+            }
+        });
+        ui.separator();
+        match self.side_tab {
+            SideTab::Walls => wall_list_ui(
+                ui,
+                &self.document.plan,
+                &self.derived,
+                self.units,
+                self.selected_wall,
+                &mut self.wall_list,
+                &mut self.commands,
+            ),
+            SideTab::Numbers => {
+                let picked = self.picked_piece().and_then(|index| self.derived.scene.pieces.get(index));
+                side_panel_ui(ui, &self.document, &self.derived, self.units, picked);
+            }
+        }
+    }
+
+    fn middle_ui(&mut self, ui: &mut egui::Ui, renderer: Option<&Arc<Mutex<Renderer>>>) {
+        let rect = ui.available_rect_before_wrap();
+        let (plan_rect, view_rect) = match self.layout {
+            Layout::Both => {
+                let (left, right) = rect.split_left_right_at_fraction(0.5);
+                (Some(left.shrink2(egui::vec2(2.0, 0.0))), Some(right))
+            }
+            Layout::Plan => (Some(rect), None),
+            Layout::ThreeD => (None, Some(rect)),
+        };
+        if let Some(plan_rect) = plan_rect {
+            let mut plan_ui = ui.new_child(egui::UiBuilder::new().max_rect(plan_rect).id_salt("plan view"));
+            let input = PlanViewInput {
+                plan: &self.document.plan,
+                derived: &self.derived,
+                units: self.units,
+                selected_wall: self.selected_wall,
+                selected_corner: self.selected_corner,
+            };
+            plan_view_ui(&mut plan_ui, &input, &mut self.plan_view, &mut self.commands);
+        }
+        if let Some(view_rect) = view_rect {
+            let mut view_ui = ui.new_child(egui::UiBuilder::new().max_rect(view_rect).id_salt("3d view"));
+            match renderer {
+                Some(renderer) => {
+                    let picked = self.picked_piece();
+                    let scene = Arc::clone(&self.derived.scene);
+                    let input = viewport_ui(&mut view_ui, renderer, &scene, &mut self.camera, self.style, picked);
+                    // The client view hides the frame, so there is nothing to pick.
+                    if let Some(at) = input.clicked_at.filter(|_| !self.style.client_view) {
+                        self.commands.push(Command::PickAt { at, view_size: input.view_size });
                     }
                 }
-                Command::PickAt { at, view_size } => {
-                    let ray = self.camera.ray(at, view_size);
-                    self.selection = pick(&self.scene, &ray).map(|hit| Selection { piece: hit.piece });
+                None => {
+                    view_ui.label("The 3D view draws here.");
+                }
+            }
+        }
+        ui.allocate_rect(rect, egui::Sense::hover());
+    }
+
+    /// Applies every command recorded this frame, in order.
+    fn apply_commands(&mut self, ctx: &egui::Context) {
+        for command in std::mem::take(&mut self.commands) {
+            self.apply(ctx, command);
+        }
+    }
+
+    fn apply(&mut self, ctx: &egui::Context, command: Command) {
+        match command {
+            Command::New => self.unless_unsaved(Pending::New),
+            Command::Open => self.unless_unsaved(Pending::Open),
+            Command::OpenPath(path) => self.unless_unsaved(Pending::OpenPath(path)),
+            Command::Save => self.save(None),
+            Command::SaveAs => self.save_as(None),
+            Command::Quit => ctx.send_viewport_cmd(egui::ViewportCommand::Close),
+            Command::Undo => {
+                if let Some(plan) = self.history.undo(&self.document.plan) {
+                    self.replace_plan(plan);
+                }
+            }
+            Command::Redo => {
+                if let Some(plan) = self.history.redo(&self.document.plan) {
+                    self.replace_plan(plan);
+                }
+            }
+            Command::Edit { edit, group } => self.edit(&edit, group),
+            Command::DeleteSelectedCorner => match self.selected_corner {
+                Some(wall) => {
+                    self.edit(&PlanEdit::DeleteCorner { wall }, None);
+                    self.selected_corner = None;
+                }
+                None => self.notice = Some(Notice::Info("Click a corner in the plan first.".to_owned())),
+            },
+            Command::SelectWall(wall) => {
+                self.selected_wall = wall;
+                if wall.is_some() {
+                    self.side_tab = SideTab::Walls;
+                }
+            }
+            Command::SelectCorner(corner) => self.selected_corner = corner,
+            Command::SetView(view) => self.camera.set_view(view),
+            Command::FocusPicked => {
+                let piece = self.picked_piece().and_then(|index| self.derived.scene.pieces.get(index));
+                if let Some((min, max)) = piece.and_then(|piece| piece.triangles.bounds()) {
+                    self.camera.focus(min, max);
+                }
+            }
+            Command::SetClientView(on) => self.style.client_view = on,
+            Command::ToggleClientView => self.style.client_view = !self.style.client_view,
+            Command::PickAt { at, view_size } => {
+                let ray = self.camera.ray(at, view_size);
+                let scene = &self.derived.scene;
+                self.picked = pick(scene, &ray).and_then(|hit| scene.pieces.get(hit.piece)).map(|p| p.label.clone());
+                if self.picked.is_some() {
+                    self.side_tab = SideTab::Numbers;
+                }
+            }
+            Command::SetLayout(layout) => self.layout = layout,
+            Command::SetUnits(units) => {
+                self.units = units;
+                self.wall_list.clear();
+            }
+            Command::SetTheme(theme) => {
+                self.theme = theme;
+                ctx.set_theme(theme);
+            }
+            Command::ShowSafety => self.dialogs.push(Dialog::Safety),
+            Command::ShowKeys => self.dialogs.push(Dialog::Keys),
+            Command::ShowAbout => self.dialogs.push(Dialog::About),
+            Command::Answer(answer) => self.answer(answer),
+        }
+    }
+
+    /// Acts on the answer to the dialog in front, and closes it.
+    fn answer(&mut self, answer: Answer) {
+        if self.dialogs.is_empty() {
+            return;
+        }
+        let dialog = self.dialogs.remove(0);
+        match (dialog, answer) {
+            (Dialog::Unsaved(pending), Answer::Save) => self.save(Some(pending)),
+            (Dialog::Unsaved(pending), Answer::Discard) => self.proceed(pending),
+            (Dialog::Restore { plan, source }, Answer::Restore) => {
+                let document = Document::recovered(plan, source);
+                self.load(document);
+            }
+            (Dialog::Restore { .. }, Answer::Discard) => {
+                if let Some(config) = &self.config {
+                    config.clear_autosave();
+                }
+            }
+            (Dialog::TypePath { purpose, text, then }, Answer::PathTyped) => {
+                let path = PathBuf::from(text.trim());
+                match purpose {
+                    PathPurpose::Open => {
+                        self.open_path(&path);
+                    }
+                    PathPurpose::SaveAs => {
+                        if self.save_to_path(&with_toml_extension(path)) {
+                            if let Some(pending) = then {
+                                self.proceed(pending);
+                            }
+                        }
+                    }
+                }
+            }
+            _ => {}
+        }
+    }
+
+    /// Does `pending` now, or first asks about unsaved changes.
+    fn unless_unsaved(&mut self, pending: Pending) {
+        if self.document.unsaved() {
+            self.dialogs.insert(0, Dialog::Unsaved(pending));
+        } else {
+            self.proceed(pending);
+        }
+    }
+
+    /// Does `pending`, unsaved changes or not.
+    fn proceed(&mut self, pending: Pending) {
+        match pending {
+            Pending::New => match Document::new_plan() {
+                Ok(document) => self.load(document),
+                Err(err) => self.notice = Some(Notice::Error(format!("{err:#}"))),
+            },
+            Pending::Open => {
+                if native_dialog_available() {
+                    if let Some(path) = choose_plan_to_open(self.document.path.as_deref()) {
+                        self.open_path(&path);
+                    }
+                } else {
+                    self.dialogs.insert(0, Dialog::TypePath { purpose: PathPurpose::Open, text: String::new(), then: None });
+                }
+            }
+            Pending::OpenPath(path) => {
+                self.open_path(&path);
+            }
+            Pending::Quit => {
+                self.close_allowed = true;
+                self.close_now = true;
+                if let Some(config) = &self.config {
+                    config.clear_autosave();
                 }
             }
         }
     }
-}
 
-/// Everything drawn, derived from the document.
-pub fn scene_for(document: &Document) -> Scene {
-    Scene::build(&document.outline, document.wall_height_in, document.wall_thickness_in)
-}
-
-impl eframe::App for PitchframeApp {
-    fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
-        let ctx = ui.ctx().clone();
-        shortcuts(&ctx, self.style.client_view, &mut self.commands);
-        egui::Panel::top("toolbar").show(ui, |ui| {
-            toolbar_ui(ui, self.selection.is_some(), self.style.client_view, &mut self.commands);
-        });
-        egui::Panel::left("numbers").default_size(280.0).show(ui, |ui| {
-            let selected = self.selection.and_then(|selection| self.scene.pieces.get(selection.piece));
-            side_panel_ui(ui, &self.document, &self.scene, selected);
-        });
-        egui::CentralPanel::no_frame().show(ui, |ui| {
-            let input = viewport_ui(
-                ui,
-                &self.renderer,
-                &self.scene,
-                &mut self.camera,
-                self.style,
-                self.selection.map(|selection| selection.piece),
-            );
-            // The client view hides the frame, so there is nothing to pick.
-            if let Some(at) = input.clicked_at.filter(|_| !self.style.client_view) {
-                self.commands.push(Command::PickAt { at, view_size: input.view_size });
+    /// Saves to the plan's file, or asks for one; then does `then`.
+    fn save(&mut self, then: Option<Pending>) {
+        match self.document.path.clone() {
+            Some(path) => {
+                if self.save_to_path(&path) {
+                    if let Some(pending) = then {
+                        self.proceed(pending);
+                    }
+                }
             }
-        });
-        self.apply_commands();
-        if let Some(picture) = &mut self.picture {
-            picture.on_frame(&ctx);
+            None => self.save_as(then),
         }
     }
+
+    /// Asks for a file and saves there; then does `then`.
+    fn save_as(&mut self, then: Option<Pending>) {
+        if !native_dialog_available() {
+            let text = self.document.path.as_ref().map(|p| p.display().to_string()).unwrap_or_default();
+            self.dialogs.insert(0, Dialog::TypePath { purpose: PathPurpose::SaveAs, text, then });
+            return;
+        }
+        let name = format!("{}.toml", self.document.title().trim_end_matches(".toml"));
+        if let Some(path) = choose_plan_to_save(self.document.path.as_deref(), &name) {
+            if self.save_to_path(&path) {
+                if let Some(pending) = then {
+                    self.proceed(pending);
+                }
+            }
+        }
+    }
+
+    /// Saves the plan to `path`; says in the window whether it worked.
+    pub fn save_to_path(&mut self, path: &Path) -> bool {
+        match self.document.save_to(path) {
+            Ok(()) => {
+                if let Some(config) = &self.config {
+                    config.clear_autosave();
+                    let _ = config.add_recent(path);
+                }
+                self.autosaved = None;
+                self.notice = Some(Notice::Info(format!("Saved {}", path.display())));
+                true
+            }
+            Err(err) => {
+                self.notice = Some(Notice::Error(format!("The plan was not saved: {err:#}")));
+                false
+            }
+        }
+    }
+
+    /// Opens the plan at `path` in place of the current one; says in the
+    /// window if it cannot be read.
+    pub fn open_path(&mut self, path: &Path) -> bool {
+        match Document::open(path) {
+            Ok(document) => {
+                if let Some(config) = &self.config {
+                    let _ = config.add_recent(path);
+                }
+                self.load(document);
+                self.notice = None;
+                true
+            }
+            Err(err) => {
+                self.notice = Some(Notice::Error(format!("{err:#}")));
+                false
+            }
+        }
+    }
+
+    /// Puts `document` in place of the current one, with a fresh history.
+    fn load(&mut self, document: Document) {
+        self.units = DisplayUnits::for_plan_unit(document.plan.units);
+        self.document = document;
+        self.history.clear();
+        self.derived = Derived::new(&self.document.plan);
+        self.camera = OrbitCamera::framing(self.derived.scene.min, self.derived.scene.max, ViewPreset::Corner);
+        self.picked = None;
+        self.selected_wall = None;
+        self.selected_corner = None;
+        self.wall_list.clear();
+        self.autosaved = None;
+    }
+
+    /// Makes `edit`, recording the plan before it for undo.
+    fn edit(&mut self, edit: &PlanEdit, group: Option<u64>) {
+        match edit.apply(&self.document.plan) {
+            Ok(plan) if plan == self.document.plan => {}
+            Ok(plan) => {
+                self.history.record(&self.document.plan, group);
+                self.set_plan(plan);
+            }
+            Err(err) => self.notice = Some(Notice::Error(err.to_string())),
+        }
+    }
+
+    /// A plan from undo or redo: typed text no longer matches it.
+    fn replace_plan(&mut self, plan: Plan) {
+        self.wall_list.clear();
+        self.set_plan(plan);
+    }
+
+    fn set_plan(&mut self, plan: Plan) {
+        self.document.plan = plan;
+        self.derived.update(&self.document.plan);
+        let walls = wall_count(&self.document.plan);
+        self.selected_wall = self.selected_wall.filter(|&wall| wall < walls);
+        self.selected_corner = self.selected_corner.filter(|&wall| wall < walls);
+    }
+
+    /// Asks first when the window is closed with unsaved changes.
+    fn watch_close(&mut self, ctx: &egui::Context) {
+        if !ctx.input(|input| input.viewport().close_requested()) {
+            return;
+        }
+        if self.document.unsaved() && !self.close_allowed {
+            ctx.send_viewport_cmd(egui::ViewportCommand::CancelClose);
+            if !self.dialogs.iter().any(|dialog| matches!(dialog, Dialog::Unsaved(_))) {
+                self.dialogs.insert(0, Dialog::Unsaved(Pending::Quit));
+            }
+        } else if let Some(config) = self.config.as_ref().filter(|_| !self.document.unsaved()) {
+            // Closing with everything saved: no autosave is needed.
+            config.clear_autosave();
+        }
+    }
+
+    /// Writes the autosave every half minute while there are unsaved changes.
+    fn autosave_when_due(&mut self, ctx: &egui::Context) {
+        if self.config.is_none() || !self.document.unsaved() {
+            self.next_autosave_s = None;
+            return;
+        }
+        let now = ctx.input(|input| input.time);
+        let due = *self.next_autosave_s.get_or_insert(now + AUTOSAVE_EVERY_S);
+        if now >= due {
+            self.autosave_now();
+            self.next_autosave_s = Some(now + AUTOSAVE_EVERY_S);
+        }
+        let wait = (self.next_autosave_s.unwrap_or(now) - now).max(0.1);
+        ctx.request_repaint_after(Duration::from_secs_f64(wait));
+    }
+
+    /// Writes the autosave now, unless this plan is already in it.
+    pub fn autosave_now(&mut self) {
+        let Some(config) = &self.config else { return };
+        if self.autosaved.as_ref() == Some(&self.document.plan) {
+            return;
+        }
+        match config.write_autosave(&self.document.plan.to_toml(), self.document.path.as_deref()) {
+            Ok(()) => self.autosaved = Some(self.document.plan.clone()),
+            Err(err) => self.notice = Some(Notice::Error(format!("The autosave failed: {err:#}"))),
+        }
+    }
+}
+
+/// The message across the top of the window, with a button to dismiss it.
+fn notice_ui(ui: &mut egui::Ui, notice: &Notice, slot: &mut Option<Notice>) {
+    ui.horizontal(|ui| {
+        let (text, colour) = match notice {
+            Notice::Error(text) => (text.as_str(), egui::Color32::from_rgb(220, 30, 30)),
+            Notice::Info(text) => (text.as_str(), ui.visuals().strong_text_color()),
+        };
+        if ui.button("Dismiss").clicked() {
+            *slot = None;
+        }
+        ui.label(egui::RichText::new(text).color(colour).strong().size(18.0));
+    });
+}
+
+/// Larger text and buttons than egui's defaults, for reading at arm's
+/// length and hitting with a thumb.
+fn set_style(ctx: &egui::Context, theme: egui::Theme) {
+    ctx.set_theme(theme);
+    ctx.all_styles_mut(|style| {
+        use egui::{FontId, TextStyle};
+        style.text_styles.insert(TextStyle::Body, FontId::proportional(BODY_SIZE));
+        style.text_styles.insert(TextStyle::Button, FontId::proportional(BODY_SIZE));
+        style.text_styles.insert(TextStyle::Monospace, FontId::monospace(BODY_SIZE - 1.0));
+        style.text_styles.insert(TextStyle::Heading, FontId::proportional(22.0));
+        style.text_styles.insert(TextStyle::Small, FontId::proportional(13.0));
+        style.spacing.interact_size.y = 26.0;
+        style.spacing.button_padding = egui::vec2(8.0, 4.0);
+        style.spacing.item_spacing = egui::vec2(8.0, 6.0);
+    });
 }

@@ -1,33 +1,60 @@
-//! The desktop window: a 3D view of the house and its roof frame, with the
-//! numbers a framer reads beside it.
+//! The desktop window: the plan a framer edits, the 3D view of the house
+//! and its roof frame, and the numbers a framer reads beside them.
 //!
-//! Layout of this module: `app` owns the document and applies commands,
-//! `camera` is the orbit camera (plain f64 maths, no GL), `scene` turns the
-//! geometry crate's output into triangle lists, `viewport` draws those with
-//! three-d inside an egui paint callback, `side_panel` shows the numbers and
-//! `picture` saves a screenshot for `--picture`.
+//! Layout of this module: `document` is the plan being edited, `history`
+//! its undo stack, `edit` the changes a user can make to it and `derived`
+//! everything worked out from it (through the geometry crate; the window
+//! computes no geometry of its own). `app` holds all of that with the
+//! window's settings and applies the commands (`command`) that the menus
+//! (`menu`), the toolbar, the keys, the plan view (`plan_view`, with
+//! `snap`), the wall list (`wall_list`) and the dialogs (`dialogs`) record.
+//! `files` keeps saves, recent files and the autosave; `file_dialog` asks
+//! the desktop for file names. `camera` is the orbit camera (plain f64
+//! maths, no GL), `scene` turns the geometry into triangle lists,
+//! `viewport` draws those with three-d inside an egui paint callback,
+//! `side_panel` shows the numbers, `window` is the eframe app holding the
+//! GL renderer, and `picture` saves a screenshot for `--picture`.
 
 mod app;
 mod camera;
 mod command;
+mod derived;
+mod dialogs;
+mod document;
+mod edit;
+mod file_dialog;
+mod files;
+mod history;
+mod menu;
 mod palette;
 mod pick;
 mod picture;
+mod plan_view;
+mod safety;
 mod scene;
 mod side_panel;
+mod snap;
 mod toolbar;
 mod triangles;
 mod triangulate;
+mod units;
 mod viewport;
+mod wall_list;
 mod walls;
+mod window;
+#[cfg(test)]
+mod window_tests;
 
 use std::path::PathBuf;
 use std::sync::{Arc, Mutex};
 
 use anyhow::{Context as _, anyhow};
 
-use app::PitchframeApp;
+use app::AppState;
+use document::Document;
+use files::ConfigDir;
 use picture::PictureJob;
+use window::PitchframeApp;
 
 /// What the window is asked to do when it starts.
 #[derive(Debug, Clone, Default)]
@@ -96,9 +123,12 @@ pub fn run(options: GuiOptions) -> anyhow::Result<()> {
     // A plan that cannot be read is the user's to fix: say so before any
     // window opens.
     let document = match &options.plan_path {
-        Some(path) => app::Document::open(path)?,
-        None => app::Document::demo()?,
+        Some(path) => Document::open(path)?,
+        None => Document::demo()?,
     };
+    // A picture keeps no files of the window's own: no recent files, no
+    // autosave, no first-start dialog in front of the view.
+    let config = if options.picture.is_some() { None } else { ConfigDir::from_env() };
     let picture = options.picture.clone().map(PictureJob::new);
     let picture_outcome = picture.as_ref().map(PictureJob::outcome);
 
@@ -127,7 +157,8 @@ pub fn run(options: GuiOptions) -> anyhow::Result<()> {
                 record(&gl_failure_in_creator, reason.clone());
                 return Err(reason.into());
             };
-            match PitchframeApp::new(gl, document, view, picture, pick_label.as_deref()) {
+            let state = AppState::new(document, config, view);
+            match PitchframeApp::new(gl, state, picture, pick_label.as_deref()) {
                 Ok(app) => Ok(Box::new(app)),
                 Err(err) => {
                     record(&gl_failure_in_creator, format!("{err:#}"));

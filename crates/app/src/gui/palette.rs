@@ -116,3 +116,12 @@ pub fn member_name(kind: MemberKind) -> &'static str {
         MemberKind::CrippleJack => "Cripple jack",
     }
 }
+
+/// The fill behind wall numbers in the plan view: a deep slate that white
+/// text reads on in both light and dark colours.
+pub const WALL_BADGE: egui::Color32 = egui::Color32::from_rgb(60, 80, 110);
+
+/// The glow behind a selected wall or corner in the plan view.
+pub fn selection(dark: bool) -> egui::Color32 {
+    if dark { egui::Color32::from_rgb(40, 120, 200) } else { egui::Color32::from_rgb(120, 190, 255) }
+}

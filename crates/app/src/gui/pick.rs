@@ -127,6 +127,7 @@ mod tests {
         };
         Scene {
             parts: Vec::new(),
+            roof: None,
             roof_error: None,
             frame: None,
             frame_error: None,
@@ -169,7 +170,7 @@ mod tests {
         use super::super::ViewPreset;
         use super::super::camera::OrbitCamera;
         let outline = pitchframe_geometry::demo_plan().unwrap().outline().unwrap();
-        let scene = Scene::build(&outline, 96.0, 6.0);
+        let scene = Scene::build(&outline, Some(&Default::default()), 96.0, 6.0);
         assert!(scene.pieces.len() > 50, "the demo frame has {} pieces", scene.pieces.len());
         let camera = OrbitCamera::framing(scene.min, scene.max, ViewPreset::Top);
         let size = DVec2::new(1000.0, 800.0);

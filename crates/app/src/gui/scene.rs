@@ -4,7 +4,9 @@
 
 use glam::DVec3;
 use pitchframe_geometry::framing::{FaceTag, PlacedPiece};
-use pitchframe_geometry::{Frame, FramingSettings, MemberKind, Outline, Roof, RoofLineKind, frame_roof};
+use pitchframe_geometry::{
+    Frame, FramingSettings, MemberKind, Outline, Roof, RoofError, RoofLineKind, frame_roof,
+};
 
 pub use super::triangles::Triangles;
 use super::walls::wall_triangles;
@@ -63,8 +65,10 @@ pub struct ScenePart {
 pub struct Scene {
     /// Drawable groups.
     pub parts: Vec<ScenePart>,
-    /// Why the roof could not be drawn, in the user's words.
-    pub roof_error: Option<String>,
+    /// The solved roof, when it could be solved.
+    pub roof: Option<Roof>,
+    /// Why the roof could not be solved.
+    pub roof_error: Option<RoofError>,
     /// The framed roof, when it could be framed.
     pub frame: Option<Frame>,
     /// Why the roof could not be framed, in the user's words.
@@ -79,29 +83,55 @@ pub struct Scene {
 
 impl Scene {
     /// Builds the scene for an outline with walls of the given height and
-    /// thickness.
-    pub fn build(outline: &Outline, wall_height_in: f64, wall_thickness_in: f64) -> Self {
+    /// thickness, framed with `settings` (no frame when `None`: the plan's
+    /// framing settings could not be read).
+    pub fn build(
+        outline: &Outline,
+        settings: Option<&FramingSettings>,
+        wall_height_in: f64,
+        wall_thickness_in: f64,
+    ) -> Self {
         let walls = wall_triangles(outline, wall_height_in, wall_thickness_in);
         let mut parts = vec![ScenePart { kind: PartKind::Walls, triangles: walls }];
         // Roof heights are measured from the wall line at the top of the
         // plate, which stands at the wall height.
         let lift = DVec3::Z * wall_height_in;
         let (mut roof_error, mut frame, mut frame_error) = (None, None, None);
-        match Roof::solve(outline) {
+        let roof = match Roof::solve(outline) {
             Ok(roof) => {
                 parts.extend(roof_parts(&roof, lift));
-                match frame_roof(outline, &roof, &FramingSettings::default()) {
-                    Ok(framed) => frame = Some(framed),
-                    Err(err) => frame_error = Some(err.to_string()),
+                if let Some(settings) = settings {
+                    match frame_roof(outline, &roof, settings) {
+                        Ok(framed) => frame = Some(framed),
+                        Err(err) => frame_error = Some(err.to_string()),
+                    }
                 }
+                Some(roof)
             }
-            Err(err) => roof_error = Some(err.to_string()),
-        }
+            Err(err) => {
+                roof_error = Some(err);
+                None
+            }
+        };
         let pieces: Vec<ScenePiece> =
             frame.iter().flat_map(|frame| &frame.pieces).map(|piece| scene_piece(piece, lift)).collect();
         parts.extend(member_parts(&pieces));
         let (min, max) = bounds(&parts);
-        Self { parts, roof_error, frame, frame_error, pieces, min, max }
+        Self { parts, roof, roof_error, frame, frame_error, pieces, min, max }
+    }
+
+    /// A scene with nothing in it, for a plan whose outline never checked.
+    pub fn empty() -> Self {
+        Self {
+            parts: Vec::new(),
+            roof: None,
+            roof_error: None,
+            frame: None,
+            frame_error: None,
+            pieces: Vec::new(),
+            min: DVec3::ZERO,
+            max: DVec3::splat(1.0),
+        }
     }
 }
 
@@ -193,7 +223,7 @@ mod tests {
     /// Walls 8 ft high and 6 in thick round the built-in demo's outline.
     fn demo_scene() -> Scene {
         let outline = pitchframe_geometry::demo_plan().unwrap().outline().unwrap();
-        Scene::build(&outline, 96.0, 6.0)
+        Scene::build(&outline, Some(&FramingSettings::default()), 96.0, 6.0)
     }
 
     #[test]

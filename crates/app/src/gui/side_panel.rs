@@ -3,36 +3,42 @@
 
 use egui::{Color32, RichText};
 use pitchframe_geometry::framing::{Cut, CutEnd, FramingWarning, SawKind};
-use pitchframe_geometry::{FramingInput, Length, LengthStyle, Member, Pitch, Plan, RafterTable};
+use pitchframe_geometry::{Length, Member, Pitch, Plan, RafterTable};
 
-use super::app::Document;
+use super::derived::{Derived, WALL_HEIGHT_IN, WALL_THICKNESS_IN};
+use super::document::Document;
 use super::palette;
 use super::scene::{Scene, ScenePiece};
+use super::units::DisplayUnits;
 
 /// Size of the figures a framer reads off the panel, in points: large
 /// enough to read at arm's length from a laptop on a sawhorse.
 const FIGURE_SIZE: f32 = 22.0;
 
 /// Shows the house, the picked member, the rafter table and the legend.
-pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, picked: Option<&ScenePiece>) {
+pub fn side_panel_ui(
+    ui: &mut egui::Ui,
+    document: &Document,
+    derived: &Derived,
+    units: DisplayUnits,
+    picked: Option<&ScenePiece>,
+) {
+    let scene = &derived.scene;
     egui::ScrollArea::vertical().show(ui, |ui| {
-        ui.heading(&document.title);
+        ui.heading(document.title());
         ui.label(format!(
-            "Walls {} high, {} thick",
-            length_text(document.wall_height_in),
-            length_text(document.wall_thickness_in)
+            "Walls drawn {} high, {} thick",
+            units.format(Length::from_inches(WALL_HEIGHT_IN)),
+            units.format_small(Length::from_inches(WALL_THICKNESS_IN))
         ));
-        for error in [&scene.roof_error, &scene.frame_error].into_iter().flatten() {
-            ui.colored_label(ui.visuals().warn_fg_color, error);
+        if let Some(problem) = &derived.problem {
+            ui.colored_label(ui.visuals().warn_fg_color, format!("{} (the frame shown is the last one that solved)", problem.message));
         }
-        if document.plan.framing != FramingInput::default() {
-            // Say so rather than let a framer cut from numbers laid out
-            // on settings other than the ones in their plan.
-            ui.colored_label(
-                ui.visuals().warn_fg_color,
-                "The plan's [framing] table is not applied yet: the frame shown uses 24 in centres, \
-                 2x8 rafters, 2x10 hips, valleys and ridges, a 3-1/2 in seat and plumb tails.",
-            );
+        if let Some(error) = &derived.settings_error {
+            ui.colored_label(ui.visuals().warn_fg_color, format!("No frame: {error}"));
+        }
+        if let Some(error) = &scene.frame_error {
+            ui.colored_label(ui.visuals().warn_fg_color, error);
         }
         if let Some(frame) = scene.frame.as_ref().filter(|frame| !frame.warnings.is_empty()) {
             ui.colored_label(
@@ -50,10 +56,10 @@ pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, pick
                     .frame
                     .as_ref()
                     .and_then(|frame| frame.members.iter().find(|m| m.label == piece.label));
-                picked_ui(ui, &document.plan, piece, member);
+                picked_ui(ui, units, piece, member);
                 let warnings = scene.frame.iter().flat_map(|frame| &frame.warnings);
                 for warning in warnings.filter(|warning| warning.label() == piece.label) {
-                    ui.colored_label(ui.visuals().warn_fg_color, warning_text(warning));
+                    ui.colored_label(ui.visuals().warn_fg_color, warning_text(units, warning));
                 }
             }
             None => {
@@ -68,7 +74,7 @@ pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, pick
                 format!("Rafter table, {} in 12 ({:.2}°)", trimmed(table.rise_in_12), table.pitch_deg);
             egui::CollapsingHeader::new(RichText::new(title).heading())
                 .default_open(index == 0)
-                .show(ui, |ui| rafter_table_ui(ui, &table));
+                .show(ui, |ui| rafter_table_ui(ui, units, &table));
         }
         ui.separator();
         legend_ui(ui, scene);
@@ -76,7 +82,7 @@ pub fn side_panel_ui(ui: &mut egui::Ui, document: &Document, scene: &Scene, pick
 }
 
 /// The picked member's numbers in large type.
-fn picked_ui(ui: &mut egui::Ui, plan: &Plan, piece: &ScenePiece, member: Option<&Member>) {
+fn picked_ui(ui: &mut egui::Ui, units: DisplayUnits, piece: &ScenePiece, member: Option<&Member>) {
     ui.label(
         RichText::new(format!("{}  {}", piece.label, palette::member_name(piece.kind)))
             .size(FIGURE_SIZE)
@@ -93,8 +99,8 @@ fn picked_ui(ui: &mut egui::Ui, plan: &Plan, piece: &ScenePiece, member: Option<
         .unwrap_or_default();
     ui.label(format!(
         "{pieces}{hands}, each from {} x {} stock",
-        inches_text(member.size.thickness_in),
-        inches_text(member.size.depth_in)
+        inches_text(units, member.size.thickness_in),
+        inches_text(units, member.size.depth_in)
     ));
     let lengths = [
         ("Long point length", member.long_point_length),
@@ -105,17 +111,17 @@ fn picked_ui(ui: &mut egui::Ui, plan: &Plan, piece: &ScenePiece, member: Option<
     ];
     for (name, inches) in lengths.into_iter().filter(|&(_, inches)| inches > 0.0) {
         ui.label(name);
-        ui.label(RichText::new(plan.display_length(Length::from_inches(inches))).size(FIGURE_SIZE).strong());
+        ui.label(RichText::new(units.format(Length::from_inches(inches))).size(FIGURE_SIZE).strong());
     }
     ui.add_space(4.0);
     ui.label(RichText::new("Cuts").strong());
     for cut in &member.cuts {
-        ui.label(cut_text(cut));
+        ui.label(cut_text(units, cut));
     }
 }
 
 /// One line saying where a cut is and how it is set up.
-fn cut_text(cut: &Cut) -> String {
+fn cut_text(units: DisplayUnits, cut: &Cut) -> String {
     let at = end_name(cut.end());
     match cut {
         Cut::Plumb { square, .. } => {
@@ -132,14 +138,14 @@ fn cut_text(cut: &Cut) -> String {
         ),
         Cut::Seat { seat_width_in, heel_height_in, notch_depth_in, .. } => format!(
             "Birdsmouth: seat {}, heel {}, notch {} deep",
-            inches_text(*seat_width_in),
-            inches_text(*heel_height_in),
-            inches_text(*notch_depth_in)
+            inches_text(units, *seat_width_in),
+            inches_text(units, *heel_height_in),
+            inches_text(units, *notch_depth_in)
         ),
         Cut::Tail { square, .. } => {
             format!("Tail cut: square {} and {}", figure(square[0]), figure(square[1]))
         }
-        Cut::Soffit { length_in, .. } => format!("Soffit cut, level, {} long", inches_text(*length_in)),
+        Cut::Soffit { length_in, .. } => format!("Soffit cut, level, {} long", inches_text(units, *length_in)),
         Cut::Backing { left_deg, right_deg, .. } => {
             format!("Backing: {left_deg:.1}° left, {right_deg:.1}° right")
         }
@@ -148,12 +154,12 @@ fn cut_text(cut: &Cut) -> String {
 }
 
 /// A framing warning in words.
-fn warning_text(warning: &FramingWarning) -> String {
+fn warning_text(units: DisplayUnits, warning: &FramingWarning) -> String {
     match warning {
         FramingWarning::NotchTooDeep { notch_depth_in, limit_in, .. } => format!(
             "Birdsmouth notch {} deep is past the limit of {}",
-            inches_text(*notch_depth_in),
-            inches_text(*limit_in)
+            inches_text(units, *notch_depth_in),
+            inches_text(units, *limit_in)
         ),
         FramingWarning::BevelBeyondSaw { end, saw, bevel_deg, max_deg, .. } => {
             let saw = match saw {
@@ -167,15 +173,15 @@ fn warning_text(warning: &FramingWarning) -> String {
             )
         }
         FramingWarning::HipTooShallow { hip, short_by_in, .. } => {
-            format!("{hip} is too shallow for this jack's cheek cut by {}", inches_text(*short_by_in))
+            format!("{hip} is too shallow for this jack's cheek cut by {}", inches_text(units, *short_by_in))
         }
         FramingWarning::RidgeTooShallow { ridge, short_by_in, .. } => {
-            format!("{ridge} is too shallow for this rafter's plumb cut by {}", inches_text(*short_by_in))
+            format!("{ridge} is too shallow for this rafter's plumb cut by {}", inches_text(units, *short_by_in))
         }
         FramingWarning::StockLengthExceeded { length_in, longest_stock_in, .. } => format!(
             "{} long, past the longest stock of {}",
-            length_text(*length_in),
-            length_text(*longest_stock_in)
+            length_text(units, *length_in),
+            length_text(units, *longest_stock_in)
         ),
         FramingWarning::HipsMeetWithoutRidge { .. } => {
             "Hips meet with no ridge: the tops are cut plumb at the peak and need a fitted block".to_owned()
@@ -197,7 +203,7 @@ fn end_name(end: CutEnd) -> &'static str {
 }
 
 /// The six lines of the rafter table, each with its setup on hover.
-fn rafter_table_ui(ui: &mut egui::Ui, table: &RafterTable) {
+fn rafter_table_ui(ui: &mut egui::Ui, units: DisplayUnits, table: &RafterTable) {
     let lines: [(&str, String, &str); 6] = [
         (
             "Common, length per foot of run",
@@ -211,12 +217,12 @@ fn rafter_table_ui(ui: &mut egui::Ui, table: &RafterTable) {
         ),
         (
             "Jacks at 16 in centres differ by",
-            inches_text(table.jack_diff_16),
+            inches_text(units, table.jack_diff_16),
             "each jack is this much shorter",
         ),
         (
             "Jacks at 24 in centres differ by",
-            inches_text(table.jack_diff_24),
+            inches_text(units, table.jack_diff_24),
             "each jack is this much shorter",
         ),
         ("Side cut of jacks: 12 and", figure(table.jack_side_cut.figure), &table.jack_side_cut.setup),
@@ -262,14 +268,15 @@ fn swatch(ui: &mut egui::Ui, [r, g, b]: [u8; 3], name: &str) {
     });
 }
 
-/// A length as a framer reads it: feet, inches and sixteenths.
-fn length_text(inches: f64) -> String {
-    Length::from_inches(inches).format(LengthStyle::FeetInches)
+/// A building length in the units shown.
+fn length_text(units: DisplayUnits, inches: f64) -> String {
+    units.format(Length::from_inches(inches))
 }
 
-/// A length in inches and sixteenths, as rafter tables print jack differences.
-fn inches_text(inches: f64) -> String {
-    Length::from_inches(inches).format(LengthStyle::Inches)
+/// A small length (inches and sixteenths, or millimetres), as rafter
+/// tables print jack differences.
+fn inches_text(units: DisplayUnits, inches: f64) -> String {
+    units.format_small(Length::from_inches(inches))
 }
 
 /// A framing-square figure, to two places as squares are read.
@@ -288,7 +295,6 @@ mod tests {
     use egui_kittest::Harness;
     use egui_kittest::kittest::Queryable as _;
 
-    use super::super::app::scene_for;
     use super::*;
 
     #[test]
@@ -296,8 +302,9 @@ mod tests {
         let document = Document::demo().unwrap();
         // The demo's roof pitch (its west end is steeper, at 9 in 12).
         assert_eq!(document.plan.default_pitch.rise_in_12(), 6.0);
-        let scene = scene_for(&document);
-        let harness = Harness::new_ui(|ui| side_panel_ui(ui, &document, &scene, None));
+        let derived = Derived::new(&document.plan);
+        let harness =
+            Harness::new_ui(|ui| side_panel_ui(ui, &document, &derived, DisplayUnits::FeetInches, None));
         // Common practice (the rafter table stamped on a framing square,
         // 6 in 12 column): 13.42, 18.00, 17-7/8, 26-13/16, 10-3/4, 11-5/16;
         // the side cuts show to two places, 10.73 and 11.31.
@@ -311,9 +318,11 @@ mod tests {
     #[test]
     fn a_picked_member_shows_its_label_lengths_and_cuts() {
         let document = Document::demo().unwrap();
-        let scene = scene_for(&document);
-        let piece = scene.pieces.iter().find(|piece| piece.label == "HJ1").unwrap();
-        let harness = Harness::new_ui(|ui| side_panel_ui(ui, &document, &scene, Some(piece)));
+        let derived = Derived::new(&document.plan);
+        let piece = derived.scene.pieces.iter().find(|piece| piece.label == "HJ1").unwrap();
+        let harness = Harness::new_ui(|ui| {
+            side_panel_ui(ui, &document, &derived, DisplayUnits::FeetInches, Some(piece));
+        });
         let _ = harness.get_by_label("HJ1  Hip jack");
         let _ = harness.get_by_label("Long point length");
         let _ = harness.get_by_label("Cuts");

@@ -1,66 +1,66 @@
-//! The toolbar and the keyboard shortcuts: both only record commands.
+//! The toolbar: large buttons for the commands used most. It only records
+//! commands; their keys come from the one command table.
 
 use super::ViewPreset;
-use super::command::Command;
+use super::command::{Command, Layout, key_text};
 
-/// Keys that turn the camera to each preset.
-const VIEW_KEYS: [(egui::Key, ViewPreset); 6] = [
-    (egui::Key::C, ViewPreset::Corner),
-    (egui::Key::T, ViewPreset::Top),
-    (egui::Key::F, ViewPreset::Front),
-    (egui::Key::B, ViewPreset::Back),
-    (egui::Key::L, ViewPreset::Left),
-    (egui::Key::R, ViewPreset::Right),
-];
+/// What the toolbar needs to know to show its buttons' states.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct ToolbarState {
+    /// Whether a member is picked in the 3D view.
+    pub picked: bool,
+    /// Whether the client view is on.
+    pub client_view: bool,
+    /// Whether there is a change to undo.
+    pub can_undo: bool,
+    /// Whether there is an undone change to redo.
+    pub can_redo: bool,
+    /// How the middle of the window is shared.
+    pub layout: Layout,
+}
 
-/// The row of view buttons above the 3D view.
-pub fn toolbar_ui(ui: &mut egui::Ui, picked: bool, client_view: bool, commands: &mut Vec<Command>) {
-    ui.horizontal(|ui| {
-        ui.label("View:");
-        for view in ViewPreset::ALL {
-            let key = VIEW_KEYS.iter().find(|(_, v)| *v == view).map(|(key, _)| key.name());
-            let button = ui.button(view.label());
-            let button = match key {
-                Some(key) => button.on_hover_text(format!("Key: {key}")),
-                None => button,
-            };
-            if button.clicked() {
-                commands.push(Command::SetView(view));
+/// The row of buttons under the menu bar.
+pub fn toolbar_ui(ui: &mut egui::Ui, state: ToolbarState, commands: &mut Vec<Command>) {
+    let ctx = ui.ctx().clone();
+    let hover = |command: &Command, what: &str| match key_text(&ctx, command) {
+        Some(key) => format!("{what} (key: {key})"),
+        None => what.to_owned(),
+    };
+    ui.horizontal_wrapped(|ui| {
+        for (label, command, enabled) in
+            [("Undo", Command::Undo, state.can_undo), ("Redo", Command::Redo, state.can_redo)]
+        {
+            let button = ui.add_enabled(enabled, egui::Button::new(label));
+            if button.on_hover_text(hover(&command, label)).clicked() {
+                commands.push(command);
             }
         }
-        let focus = ui.add_enabled(picked, egui::Button::new("Zoom to picked"));
-        if focus.on_hover_text("Key: Z").clicked() {
-            commands.push(Command::FocusPicked);
+        ui.separator();
+        for (label, layout) in [("Plan and 3D", Layout::Both), ("Plan", Layout::Plan), ("3D", Layout::ThreeD)] {
+            let command = Command::SetLayout(layout);
+            let tip = hover(&command, "Show");
+            if ui.selectable_label(state.layout == layout, label).on_hover_text(tip).clicked() {
+                commands.push(command);
+            }
         }
         ui.separator();
-        let mut client_view = client_view;
-        if ui
-            .toggle_value(&mut client_view, "Client view")
-            .on_hover_text("Walls and a solid roof, no frame or labels (key: V)")
-            .changed()
-        {
+        ui.label("View:");
+        for view in ViewPreset::ALL {
+            let command = Command::SetView(view);
+            if ui.button(view.label()).on_hover_text(hover(&command, "Turn the 3D view")).clicked() {
+                commands.push(command);
+            }
+        }
+        let focus = ui.add_enabled(state.picked, egui::Button::new("Zoom to picked"));
+        if focus.on_hover_text(hover(&Command::FocusPicked, "Zoom to the picked member")).clicked() {
+            commands.push(Command::FocusPicked);
+        }
+        let mut client_view = state.client_view;
+        let tip = hover(&Command::ToggleClientView, "Walls and a solid roof, no frame or labels");
+        if ui.toggle_value(&mut client_view, "Client view").on_hover_text(tip).changed() {
             commands.push(Command::SetClientView(client_view));
         }
     });
-}
-
-/// The keys: presets, zoom to picked, client view.
-pub fn shortcuts(ctx: &egui::Context, client_view: bool, commands: &mut Vec<Command>) {
-    // Typing in a text field must not turn the camera.
-    if ctx.egui_wants_keyboard_input() {
-        return;
-    }
-    if ctx.input(|input| input.key_pressed(egui::Key::Z)) {
-        commands.push(Command::FocusPicked);
-    }
-    if ctx.input(|input| input.key_pressed(egui::Key::V)) {
-        commands.push(Command::SetClientView(!client_view));
-    }
-    for (key, view) in VIEW_KEYS {
-        if ctx.input(|input| input.key_pressed(key)) {
-            commands.push(Command::SetView(view));
-        }
-    }
 }
 
 #[cfg(test)]
@@ -70,31 +70,38 @@ mod tests {
 
     use super::*;
 
-    fn run_toolbar(picked: bool, client_view: bool, click: &str) -> Vec<Command> {
+    fn run_toolbar(state: ToolbarState, click: &str) -> Vec<Command> {
         let mut commands = Vec::new();
         {
-            let mut harness = Harness::new_ui(|ui| toolbar_ui(ui, picked, client_view, &mut commands));
+            let mut harness = Harness::new_ui(|ui| toolbar_ui(ui, state, &mut commands));
             harness.get_by_label(click).click();
             harness.run();
         }
         commands
     }
 
+    const IDLE: ToolbarState =
+        ToolbarState { picked: false, client_view: false, can_undo: false, can_redo: false, layout: Layout::Both };
+
     #[test]
     fn view_buttons_ask_for_their_view() {
-        assert!(run_toolbar(false, false, "Top").contains(&Command::SetView(ViewPreset::Top)));
-        assert!(run_toolbar(false, false, "Left").contains(&Command::SetView(ViewPreset::Left)));
+        assert!(run_toolbar(IDLE, "Top").contains(&Command::SetView(ViewPreset::Top)));
+        assert!(run_toolbar(IDLE, "Left").contains(&Command::SetView(ViewPreset::Left)));
     }
 
     #[test]
     fn client_view_toggle_flips_the_view() {
-        assert!(run_toolbar(false, false, "Client view").contains(&Command::SetClientView(true)));
-        assert!(run_toolbar(false, true, "Client view").contains(&Command::SetClientView(false)));
+        assert!(run_toolbar(IDLE, "Client view").contains(&Command::SetClientView(true)));
+        let on = ToolbarState { client_view: true, ..IDLE };
+        assert!(run_toolbar(on, "Client view").contains(&Command::SetClientView(false)));
     }
 
     #[test]
-    fn zoom_to_picked_needs_a_pick() {
-        assert!(run_toolbar(true, false, "Zoom to picked").contains(&Command::FocusPicked));
-        assert!(!run_toolbar(false, false, "Zoom to picked").contains(&Command::FocusPicked));
+    fn zoom_to_picked_needs_a_pick_and_undo_a_change() {
+        let picked = ToolbarState { picked: true, can_undo: true, ..IDLE };
+        assert!(run_toolbar(picked, "Zoom to picked").contains(&Command::FocusPicked));
+        assert!(!run_toolbar(IDLE, "Zoom to picked").contains(&Command::FocusPicked));
+        assert!(run_toolbar(picked, "Undo").contains(&Command::Undo));
+        assert!(!run_toolbar(IDLE, "Undo").contains(&Command::Undo));
     }
 }

@@ -1,0 +1,52 @@
+//! The eframe app: the state, the GL renderer made once for the window,
+//! and the `--picture` job.
+
+use std::sync::{Arc, Mutex};
+
+use anyhow::Context as _;
+
+use super::app::{AppState, SideTab};
+use super::command::{Command, Layout};
+use super::picture::PictureJob;
+use super::viewport::Renderer;
+
+/// The running window.
+pub struct PitchframeApp {
+    state: AppState,
+    renderer: Arc<Mutex<Renderer>>,
+    picture: Option<PictureJob>,
+}
+
+impl PitchframeApp {
+    /// Sets up the app on the window's GL context. `pick_label` picks a
+    /// member as if it had been clicked.
+    pub fn new(
+        gl: Arc<three_d::context::Context>,
+        mut state: AppState,
+        picture: Option<PictureJob>,
+        pick_label: Option<&str>,
+    ) -> anyhow::Result<Self> {
+        let renderer = Renderer::new(gl).context("three-d could not use the window's GL context")?;
+        if picture.is_some() {
+            // A picture is of the 3D view.
+            state.layout = Layout::ThreeD;
+        }
+        if let Some(label) = pick_label {
+            state.picked = Some(label.to_owned());
+            state.side_tab = SideTab::Numbers;
+            // Opening on a pick (as tests do) shows it close up.
+            state.push(Command::FocusPicked);
+        }
+        Ok(Self { state, renderer: Arc::new(Mutex::new(renderer)), picture })
+    }
+}
+
+impl eframe::App for PitchframeApp {
+    fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
+        let ctx = ui.ctx().clone();
+        self.state.ui(ui, Some(&self.renderer));
+        if let Some(picture) = &mut self.picture {
+            picture.on_frame(&ctx);
+        }
+    }
+}

@@ -1,0 +1,1 @@
+//! Whole-window tests: the app state driven through its widgets.
