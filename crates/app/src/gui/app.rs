@@ -13,10 +13,12 @@ use super::ViewPreset;
 use super::camera::OrbitCamera;
 use super::command::{Command, Layout, shortcut_commands};
 use super::derived::Derived;
-use super::dialogs::{Answer, Dialog, Pending, PathPurpose, dialog_ui};
+use super::dialogs::{Answer, Dialog, PathPurpose, Pending, dialog_ui};
 use super::document::Document;
 use super::edit::{PlanEdit, wall_count};
-use super::file_dialog::{choose_plan_to_open, choose_plan_to_save, native_dialog_available, with_toml_extension};
+use super::file_dialog::{
+    choose_plan_to_open, choose_plan_to_save, native_dialog_available, with_toml_extension,
+};
 use super::files::ConfigDir;
 use super::history::History;
 use super::menu::{MenuState, menu_bar_ui};
@@ -111,7 +113,9 @@ impl AppState {
         if let Some(config) = &config {
             if let Some(leftover) = config.leftover_autosave() {
                 match Plan::from_toml(&leftover.text) {
-                    Ok(plan) => dialogs.push(Dialog::Restore { plan, source: leftover.source }),
+                    Ok(plan) => {
+                        dialogs.push(Dialog::Restore { plan: Box::new(plan), source: leftover.source })
+                    }
                     Err(_) => config.clear_autosave(),
                 }
             }
@@ -199,13 +203,13 @@ impl AppState {
             let unsaved = if self.document.unsaved() { "  (unsaved changes)" } else { "" };
             ui.label(format!("{}{unsaved}", self.document.title()));
         });
-        egui::Panel::left("lists").default_size(400.0).show(ui, |ui| self.side_ui(ui));
+        egui::Panel::left("lists").default_size(440.0).show(ui, |ui| self.side_ui(ui));
         egui::CentralPanel::default().show(ui, |ui| self.middle_ui(ui, renderer));
 
-        if let Some(dialog) = self.dialogs.first_mut() {
-            if let Some(answer) = dialog_ui(&ctx, dialog) {
-                self.commands.push(Command::Answer(answer));
-            }
+        if let Some(dialog) = self.dialogs.first_mut()
+            && let Some(answer) = dialog_ui(&ctx, dialog)
+        {
+            self.commands.push(Command::Answer(answer));
         }
         self.apply_commands(&ctx);
         self.autosave_when_due(&ctx);
@@ -253,6 +257,7 @@ impl AppState {
         };
         if let Some(plan_rect) = plan_rect {
             let mut plan_ui = ui.new_child(egui::UiBuilder::new().max_rect(plan_rect).id_salt("plan view"));
+            plan_ui.set_clip_rect(plan_rect);
             let input = PlanViewInput {
                 plan: &self.document.plan,
                 derived: &self.derived,
@@ -264,11 +269,14 @@ impl AppState {
         }
         if let Some(view_rect) = view_rect {
             let mut view_ui = ui.new_child(egui::UiBuilder::new().max_rect(view_rect).id_salt("3d view"));
+            // The 3D view clears what its clip rect covers: keep it to its half.
+            view_ui.set_clip_rect(view_rect);
             match renderer {
                 Some(renderer) => {
                     let picked = self.picked_piece();
                     let scene = Arc::clone(&self.derived.scene);
-                    let input = viewport_ui(&mut view_ui, renderer, &scene, &mut self.camera, self.style, picked);
+                    let input =
+                        viewport_ui(&mut view_ui, renderer, &scene, &mut self.camera, self.style, picked);
                     // The client view hides the frame, so there is nothing to pick.
                     if let Some(at) = input.clicked_at.filter(|_| !self.style.client_view) {
                         self.commands.push(Command::PickAt { at, view_size: input.view_size });
@@ -334,7 +342,8 @@ impl AppState {
             Command::PickAt { at, view_size } => {
                 let ray = self.camera.ray(at, view_size);
                 let scene = &self.derived.scene;
-                self.picked = pick(scene, &ray).and_then(|hit| scene.pieces.get(hit.piece)).map(|p| p.label.clone());
+                self.picked =
+                    pick(scene, &ray).and_then(|hit| scene.pieces.get(hit.piece)).map(|p| p.label.clone());
                 if self.picked.is_some() {
                     self.side_tab = SideTab::Numbers;
                 }
@@ -365,7 +374,7 @@ impl AppState {
             (Dialog::Unsaved(pending), Answer::Save) => self.save(Some(pending)),
             (Dialog::Unsaved(pending), Answer::Discard) => self.proceed(pending),
             (Dialog::Restore { plan, source }, Answer::Restore) => {
-                let document = Document::recovered(plan, source);
+                let document = Document::recovered(*plan, source);
                 self.load(document);
             }
             (Dialog::Restore { .. }, Answer::Discard) => {
@@ -380,10 +389,10 @@ impl AppState {
                         self.open_path(&path);
                     }
                     PathPurpose::SaveAs => {
-                        if self.save_to_path(&with_toml_extension(path)) {
-                            if let Some(pending) = then {
-                                self.proceed(pending);
-                            }
+                        if self.save_to_path(&with_toml_extension(path))
+                            && let Some(pending) = then
+                        {
+                            self.proceed(pending);
                         }
                     }
                 }
@@ -414,7 +423,10 @@ impl AppState {
                         self.open_path(&path);
                     }
                 } else {
-                    self.dialogs.insert(0, Dialog::TypePath { purpose: PathPurpose::Open, text: String::new(), then: None });
+                    self.dialogs.insert(
+                        0,
+                        Dialog::TypePath { purpose: PathPurpose::Open, text: String::new(), then: None },
+                    );
                 }
             }
             Pending::OpenPath(path) => {
@@ -434,10 +446,10 @@ impl AppState {
     fn save(&mut self, then: Option<Pending>) {
         match self.document.path.clone() {
             Some(path) => {
-                if self.save_to_path(&path) {
-                    if let Some(pending) = then {
-                        self.proceed(pending);
-                    }
+                if self.save_to_path(&path)
+                    && let Some(pending) = then
+                {
+                    self.proceed(pending);
                 }
             }
             None => self.save_as(then),
@@ -452,12 +464,11 @@ impl AppState {
             return;
         }
         let name = format!("{}.toml", self.document.title().trim_end_matches(".toml"));
-        if let Some(path) = choose_plan_to_save(self.document.path.as_deref(), &name) {
-            if self.save_to_path(&path) {
-                if let Some(pending) = then {
-                    self.proceed(pending);
-                }
-            }
+        if let Some(path) = choose_plan_to_save(self.document.path.as_deref(), &name)
+            && self.save_to_path(&path)
+            && let Some(pending) = then
+        {
+            self.proceed(pending);
         }
     }
 
@@ -505,7 +516,8 @@ impl AppState {
         self.document = document;
         self.history.clear();
         self.derived = Derived::new(&self.document.plan);
-        self.camera = OrbitCamera::framing(self.derived.scene.min, self.derived.scene.max, ViewPreset::Corner);
+        self.camera =
+            OrbitCamera::framing(self.derived.scene.min, self.derived.scene.max, ViewPreset::Corner);
         self.picked = None;
         self.selected_wall = None;
         self.selected_corner = None;

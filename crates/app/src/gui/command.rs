@@ -170,12 +170,7 @@ pub const MENU_ENTRIES: &[MenuEntry] = &[
     entry(Menu::View, "Right view", Command::SetView(ViewPreset::Right), &[plain(Key::R)]),
     entry(Menu::View, "Zoom to picked", Command::FocusPicked, &[plain(Key::Z)]),
     entry(Menu::View, "Client view", Command::ToggleClientView, &[plain(Key::V)]),
-    after_separator(
-        Menu::View,
-        "Feet and inches",
-        Command::SetUnits(DisplayUnits::FeetInches),
-        &[],
-    ),
+    after_separator(Menu::View, "Feet and inches", Command::SetUnits(DisplayUnits::FeetInches), &[]),
     entry(Menu::View, "Inches", Command::SetUnits(DisplayUnits::Inches), &[]),
     entry(Menu::View, "Millimetres", Command::SetUnits(DisplayUnits::Millimetres), &[]),
     after_separator(Menu::View, "Light colours", Command::SetTheme(egui::Theme::Light), &[]),
@@ -231,19 +226,14 @@ mod tests {
 
     #[test]
     fn ctrl_shift_z_redoes_and_ctrl_z_undoes() {
-        let ctx = egui::Context::default();
         let press = |modifiers: Modifiers| {
-            let mut input = egui::RawInput::default();
-            input.modifiers = modifiers;
-            input.events.push(egui::Event::Key {
-                key: Key::Z,
-                physical_key: None,
-                pressed: true,
-                repeat: false,
-                modifiers,
-            });
             let mut commands = Vec::new();
-            let _ = ctx.run_ui(input, |ui| commands = shortcut_commands(ui.ctx()));
+            {
+                let mut harness =
+                    egui_kittest::Harness::new_ui(|ui| commands.extend(shortcut_commands(ui.ctx())));
+                harness.key_press_modifiers(modifiers, Key::Z);
+                harness.run();
+            }
             commands
         };
         assert_eq!(press(CTRL_SHIFT), vec![Command::Redo]);

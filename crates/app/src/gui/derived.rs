@@ -86,7 +86,9 @@ fn roof_walls(error: &RoofError) -> Vec<usize> {
 fn corner_wall(plan: &Plan, corner: &CornerName) -> usize {
     match corner.courtyard {
         None => corner.corner,
-        Some(c) => plan.walls.len() + plan.courtyards.iter().take(c).map(Vec::len).sum::<usize>() + corner.corner,
+        Some(c) => {
+            plan.walls.len() + plan.courtyards.iter().take(c).map(Vec::len).sum::<usize>() + corner.corner
+        }
     }
 }
 
@@ -106,7 +108,9 @@ fn outline_walls(plan: &Plan, error: &OutlineError) -> Vec<usize> {
         OutlineError::WallsCross { wall: w, other } | OutlineError::WallsTouch { wall: w, other } => {
             vec![wall(w), wall(other)]
         }
-        OutlineError::CornerTooCloseToWall { corner, wall: w, .. } => vec![corner_wall(plan, corner), wall(w)],
+        OutlineError::CornerTooCloseToWall { corner, wall: w, .. } => {
+            vec![corner_wall(plan, corner), wall(w)]
+        }
         OutlineError::StraightCornerRoofChanges { wall: w, next, .. } => vec![wall(w), wall(next)],
         _ => Vec::new(),
     }

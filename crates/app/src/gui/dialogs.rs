@@ -42,7 +42,7 @@ pub enum Dialog {
     /// An autosave was left by a window that did not close cleanly.
     Restore {
         /// The plan in the autosave.
-        plan: Plan,
+        plan: Box<Plan>,
         /// The file it was being edited for.
         source: Option<PathBuf>,
     },

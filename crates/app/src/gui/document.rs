@@ -41,9 +41,15 @@ impl Document {
 
     /// Reads the plan file at `path`.
     pub fn open(path: &Path) -> anyhow::Result<Self> {
-        let text = std::fs::read_to_string(path).with_context(|| format!("cannot read {}", path.display()))?;
+        let text =
+            std::fs::read_to_string(path).with_context(|| format!("cannot read {}", path.display()))?;
         let plan = Plan::from_toml(&text).with_context(|| format!("cannot open {}", path.display()))?;
-        Ok(Self { saved: Some(plan.clone()), plan, path: Some(path.to_path_buf()), untitled_name: String::new() })
+        Ok(Self {
+            saved: Some(plan.clone()),
+            plan,
+            path: Some(path.to_path_buf()),
+            untitled_name: String::new(),
+        })
     }
 
     /// A plan recovered from an autosave: it is unsaved work for `path`.

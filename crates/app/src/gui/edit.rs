@@ -174,7 +174,9 @@ pub fn neighbours(plan: &Plan, wall: usize) -> Option<(usize, usize)> {
 fn point(plan: &Plan, at_in: DVec2) -> [Length; 2] {
     let length = |inches: f64| match plan.units {
         LengthUnit::Inch => Length::from_inches(inches),
-        LengthUnit::Millimetre => Length::from_mm((Length::from_inches(inches).mm() * 1000.0).round() / 1000.0),
+        LengthUnit::Millimetre => {
+            Length::from_mm((Length::from_inches(inches).mm() * 1000.0).round() / 1000.0)
+        }
     };
     [length(at_in.x), length(at_in.y)]
 }

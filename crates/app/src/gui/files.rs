@@ -60,7 +60,9 @@ impl ConfigDir {
         let base = std::env::var_os("XDG_CONFIG_HOME")
             .filter(|value| !value.is_empty())
             .map(PathBuf::from)
-            .or_else(|| std::env::var_os("HOME").filter(|h| !h.is_empty()).map(|h| PathBuf::from(h).join(".config")))?;
+            .or_else(|| {
+            std::env::var_os("HOME").filter(|h| !h.is_empty()).map(|h| PathBuf::from(h).join(".config"))
+        })?;
         Some(Self::at(base.join("pitchframe")))
     }
 

@@ -55,7 +55,9 @@ impl MenuState {
 /// The menu bar.
 pub fn menu_bar_ui(ui: &mut egui::Ui, state: &MenuState, commands: &mut Vec<Command>) {
     egui::MenuBar::new().ui(ui, |ui| {
-        for (menu, name) in [(Menu::File, "File"), (Menu::Edit, "Edit"), (Menu::View, "View"), (Menu::Help, "Help")] {
+        for (menu, name) in
+            [(Menu::File, "File"), (Menu::Edit, "Edit"), (Menu::View, "View"), (Menu::Help, "Help")]
+        {
             ui.menu_button(name, |ui| {
                 for entry in MENU_ENTRIES.iter().filter(|entry| entry.menu == menu) {
                     if entry.separated {
@@ -89,7 +91,9 @@ fn recent_ui(ui: &mut egui::Ui, recent: &[PathBuf], commands: &mut Vec<Command>)
     ui.add_enabled_ui(!recent.is_empty(), |ui| {
         ui.menu_button("Open recent", |ui| {
             for path in recent {
-                let name = path.file_name().map_or_else(|| path.display().to_string(), |n| n.to_string_lossy().into_owned());
+                let name = path
+                    .file_name()
+                    .map_or_else(|| path.display().to_string(), |n| n.to_string_lossy().into_owned());
                 if ui.button(name).on_hover_text(path.display().to_string()).clicked() {
                     commands.push(Command::OpenPath(path.clone()));
                 }

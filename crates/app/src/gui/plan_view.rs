@@ -162,7 +162,11 @@ pub fn plan_view_ui(
         let number = if gable { format!("{} gable", wall + 1) } else { format!("{}", wall + 1) };
         let badge = painter.layout_no_wrap(number, egui::FontId::proportional(LABEL_SIZE), Color32::WHITE);
         let badge_rect = Rect::from_center_size(middle, badge.size() + Vec2::splat(6.0));
-        painter.rect_filled(badge_rect, 4.0, if faults.contains(&wall) { FAULT } else { palette::WALL_BADGE });
+        painter.rect_filled(
+            badge_rect,
+            4.0,
+            if faults.contains(&wall) { FAULT } else { palette::WALL_BADGE },
+        );
         painter.galley(badge_rect.min + Vec2::splat(3.0), badge, Color32::WHITE);
         let length = input.units.format(Length::from_inches((b - a).length()));
         painter.text(
@@ -178,19 +182,18 @@ pub fn plan_view_ui(
 
     if let Some(problem) = &input.derived.problem {
         let text = format!("{} (the roof shown is the last one that solved)", problem.message);
-        let galley =
-            painter.layout(text, egui::FontId::proportional(LABEL_SIZE), FAULT, rect.width() - 16.0);
+        let galley = painter.layout(text, egui::FontId::proportional(LABEL_SIZE), FAULT, rect.width() - 16.0);
         painter.galley(rect.min + Vec2::new(8.0, 6.0), galley, FAULT);
     }
 
     let pointer = background.interact_pointer_pos();
     let near = pointer.and_then(|pos| nearest_wall(plan, transform, pos));
     if background.double_clicked() {
-        if let (Some(wall), Some(pos)) = (near, pointer) {
-            if let Some(at_in) = insertion_point(plan, wall, transform.to_plan(pos), input.units, state) {
-                commands.push(Command::Edit { edit: PlanEdit::InsertCorner { wall, at_in }, group: None });
-                commands.push(Command::SelectCorner(Some(wall + 1)));
-            }
+        if let (Some(wall), Some(pos)) = (near, pointer)
+            && let Some(at_in) = insertion_point(plan, wall, transform.to_plan(pos), input.units, state)
+        {
+            commands.push(Command::Edit { edit: PlanEdit::InsertCorner { wall, at_in }, group: None });
+            commands.push(Command::SelectCorner(Some(wall + 1)));
         }
     } else if background.clicked() {
         commands.push(Command::SelectWall(near));
@@ -199,7 +202,12 @@ pub fn plan_view_ui(
 }
 
 /// The snap choices and the corner buttons above the drawing.
-fn header_ui(ui: &mut egui::Ui, input: &PlanViewInput<'_>, state: &mut PlanViewState, commands: &mut Vec<Command>) {
+fn header_ui(
+    ui: &mut egui::Ui,
+    input: &PlanViewInput<'_>,
+    state: &mut PlanViewState,
+    commands: &mut Vec<Command>,
+) {
     ui.horizontal_wrapped(|ui| {
         ui.label("Snap:");
         let [fine, coarse] = input.units.snap_step_labels();
@@ -233,7 +241,8 @@ fn corners_ui(
         let Some((at, _)) = wall_ends_in(plan, wall) else { continue };
         let centre = transform.to_screen(at);
         let id = ui.scope_id().with(("corner", wall));
-        let response = ui.interact(Rect::from_center_size(centre, Vec2::splat(HANDLE_PT)), id, Sense::click_and_drag());
+        let response =
+            ui.interact(Rect::from_center_size(centre, Vec2::splat(HANDLE_PT)), id, Sense::click_and_drag());
         let name = corner_name(plan, wall);
         response.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Button, true, &name));
         let selected = input.selected_corner == Some(wall);
@@ -252,12 +261,12 @@ fn corners_ui(
         }
         if let (true, Some((dragged, group)), Some(pos)) =
             (response.dragged(), state.drag, response.interact_pointer_pos())
+            && dragged == wall
         {
-            if dragged == wall {
-                let to_in = dragged_to(plan, wall, transform.to_plan(pos), state.snap(input.units));
-                if (to_in - at).length_squared() > 0.0 {
-                    commands.push(Command::Edit { edit: PlanEdit::MoveCorner { wall, to_in }, group: Some(group) });
-                }
+            let to_in = dragged_to(plan, wall, transform.to_plan(pos), state.snap(input.units));
+            if (to_in - at).length_squared() > 0.0 {
+                commands
+                    .push(Command::Edit { edit: PlanEdit::MoveCorner { wall, to_in }, group: Some(group) });
             }
         }
         if response.drag_stopped() {
@@ -369,13 +378,19 @@ fn grid_ui(painter: &egui::Painter, rect: Rect, transform: PlanTransform, units:
     let mut x = (low.x / step).floor() * step;
     while x <= high.x {
         let sx = transform.to_screen(DVec2::new(x, 0.0)).x;
-        painter.line_segment([Pos2::new(sx, rect.top()), Pos2::new(sx, rect.bottom())], Stroke::new(1.0, colour));
+        painter.line_segment(
+            [Pos2::new(sx, rect.top()), Pos2::new(sx, rect.bottom())],
+            Stroke::new(1.0, colour),
+        );
         x += step;
     }
     let mut y = (low.y / step).floor() * step;
     while y <= high.y {
         let sy = transform.to_screen(DVec2::new(0.0, y)).y;
-        painter.line_segment([Pos2::new(rect.left(), sy), Pos2::new(rect.right(), sy)], Stroke::new(1.0, colour));
+        painter.line_segment(
+            [Pos2::new(rect.left(), sy), Pos2::new(rect.right(), sy)],
+            Stroke::new(1.0, colour),
+        );
         y += step;
     }
 }
@@ -388,7 +403,8 @@ fn roof_ui(painter: &egui::Painter, input: &PlanViewInput<'_>, transform: PlanTr
     let fade = |[r, g, b]: [u8; 3]| Color32::from_rgba_unmultiplied(r, g, b, alpha);
     let eave = fade(palette::part(super::scene::PartKind::RoofPlanes));
     for plane in &roof.planes {
-        let points: Vec<Pos2> = plane.eave_outline.iter().map(|p| transform.to_screen(p.truncate())).collect();
+        let points: Vec<Pos2> =
+            plane.eave_outline.iter().map(|p| transform.to_screen(p.truncate())).collect();
         painter.add(egui::Shape::closed_line(points, Stroke::new(1.0, eave)));
     }
     for line in &roof.lines {

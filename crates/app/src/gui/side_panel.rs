@@ -32,7 +32,10 @@ pub fn side_panel_ui(
             units.format_small(Length::from_inches(WALL_THICKNESS_IN))
         ));
         if let Some(problem) = &derived.problem {
-            ui.colored_label(ui.visuals().warn_fg_color, format!("{} (the frame shown is the last one that solved)", problem.message));
+            ui.colored_label(
+                ui.visuals().warn_fg_color,
+                format!("{} (the frame shown is the last one that solved)", problem.message),
+            );
         }
         if let Some(error) = &derived.settings_error {
             ui.colored_label(ui.visuals().warn_fg_color, format!("No frame: {error}"));
@@ -145,7 +148,9 @@ fn cut_text(units: DisplayUnits, cut: &Cut) -> String {
         Cut::Tail { square, .. } => {
             format!("Tail cut: square {} and {}", figure(square[0]), figure(square[1]))
         }
-        Cut::Soffit { length_in, .. } => format!("Soffit cut, level, {} long", inches_text(units, *length_in)),
+        Cut::Soffit { length_in, .. } => {
+            format!("Soffit cut, level, {} long", inches_text(units, *length_in))
+        }
         Cut::Backing { left_deg, right_deg, .. } => {
             format!("Backing: {left_deg:.1}° left, {right_deg:.1}° right")
         }
@@ -176,7 +181,10 @@ fn warning_text(units: DisplayUnits, warning: &FramingWarning) -> String {
             format!("{hip} is too shallow for this jack's cheek cut by {}", inches_text(units, *short_by_in))
         }
         FramingWarning::RidgeTooShallow { ridge, short_by_in, .. } => {
-            format!("{ridge} is too shallow for this rafter's plumb cut by {}", inches_text(units, *short_by_in))
+            format!(
+                "{ridge} is too shallow for this rafter's plumb cut by {}",
+                inches_text(units, *short_by_in)
+            )
         }
         FramingWarning::StockLengthExceeded { length_in, longest_stock_in, .. } => format!(
             "{} long, past the longest stock of {}",

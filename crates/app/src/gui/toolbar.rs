@@ -36,7 +36,8 @@ pub fn toolbar_ui(ui: &mut egui::Ui, state: ToolbarState, commands: &mut Vec<Com
             }
         }
         ui.separator();
-        for (label, layout) in [("Plan and 3D", Layout::Both), ("Plan", Layout::Plan), ("3D", Layout::ThreeD)] {
+        for (label, layout) in [("Plan and 3D", Layout::Both), ("Plan", Layout::Plan), ("3D", Layout::ThreeD)]
+        {
             let command = Command::SetLayout(layout);
             let tip = hover(&command, "Show");
             if ui.selectable_label(state.layout == layout, label).on_hover_text(tip).clicked() {
@@ -80,8 +81,13 @@ mod tests {
         commands
     }
 
-    const IDLE: ToolbarState =
-        ToolbarState { picked: false, client_view: false, can_undo: false, can_redo: false, layout: Layout::Both };
+    const IDLE: ToolbarState = ToolbarState {
+        picked: false,
+        client_view: false,
+        can_undo: false,
+        can_redo: false,
+        layout: Layout::Both,
+    };
 
     #[test]
     fn view_buttons_ask_for_their_view() {

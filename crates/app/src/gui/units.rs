@@ -17,24 +17,11 @@ pub enum DisplayUnits {
 }
 
 impl DisplayUnits {
-    /// Every choice, in menu order.
-    pub const ALL: [DisplayUnits; 3] =
-        [DisplayUnits::FeetInches, DisplayUnits::Inches, DisplayUnits::Millimetres];
-
     /// The units a plan opens in: its own unit, feet-inches for inch plans.
     pub fn for_plan_unit(unit: LengthUnit) -> Self {
         match unit {
             LengthUnit::Inch => DisplayUnits::FeetInches,
             LengthUnit::Millimetre => DisplayUnits::Millimetres,
-        }
-    }
-
-    /// The choice's name in the View menu.
-    pub fn label(self) -> &'static str {
-        match self {
-            DisplayUnits::FeetInches => "Feet and inches",
-            DisplayUnits::Inches => "Inches",
-            DisplayUnits::Millimetres => "Millimetres",
         }
     }
 

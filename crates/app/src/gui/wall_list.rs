@@ -14,7 +14,7 @@ use super::edit::{PlanEdit, locate, ring, wall_count, wall_ends_in};
 use super::units::DisplayUnits;
 
 /// Width of a length or pitch field, in points.
-const FIELD_WIDTH: f32 = 110.0;
+const FIELD_WIDTH: f32 = 96.0;
 /// The red of an error message.
 const ERROR: Color32 = Color32::from_rgb(220, 30, 30);
 
@@ -60,11 +60,7 @@ fn direction_deg(plan: &Plan, wall: usize) -> Option<f64> {
 /// Reads a direction typed in degrees: `90`, `90°`, `90 deg`, `-45`.
 pub fn parse_direction_deg(text: &str) -> Result<f64, String> {
     let trimmed = text.trim();
-    let number = trimmed
-        .trim_end_matches('°')
-        .trim_end_matches("degrees")
-        .trim_end_matches("deg")
-        .trim();
+    let number = trimmed.trim_end_matches('°').trim_end_matches("degrees").trim_end_matches("deg").trim();
     match number.parse::<f64>() {
         Ok(value) if value.is_finite() => Ok(value),
         _ if trimmed.is_empty() => Err("no direction was given (the text is empty)".to_owned()),
@@ -124,7 +120,17 @@ pub fn wall_list_ui(
                 continue;
             };
             ui.push_id(wall, |ui| {
-                wall_row_ui(ui, plan, plan_wall, wall, units, selected_wall, faults.contains(&wall), state, commands);
+                wall_row_ui(
+                    ui,
+                    plan,
+                    plan_wall,
+                    wall,
+                    units,
+                    selected_wall,
+                    faults.contains(&wall),
+                    state,
+                    commands,
+                );
             });
         }
     });
@@ -146,7 +152,8 @@ fn wall_row_ui(
         Some((Some(courtyard), _)) => format!("Wall {} (courtyard {})", wall + 1, courtyard + 1),
         _ => format!("Wall {}", wall + 1),
     };
-    let title = if at_fault { RichText::new(&name).color(ERROR).strong() } else { RichText::new(&name).strong() };
+    let title =
+        if at_fault { RichText::new(&name).color(ERROR).strong() } else { RichText::new(&name).strong() };
     ui.horizontal(|ui| {
         if ui.selectable_label(selected_wall == Some(wall), title).clicked() {
             commands.push(Command::SelectWall(Some(wall)));
@@ -166,7 +173,8 @@ fn wall_row_ui(
         let text = direction_deg(plan, wall).map(|deg| format!("{deg:.1}°")).unwrap_or_default();
         let label = format!("{name} direction");
         field_ui(ui, state, Field::Direction(wall), "Direction", &label, &text, "", commands, |text| {
-            parse_direction_deg(text).map(|deg| PlanEdit::SetDirection { wall, direction_rad: deg.to_radians() })
+            parse_direction_deg(text)
+                .map(|deg| PlanEdit::SetDirection { wall, direction_rad: deg.to_radians() })
         });
     });
     ui.horizontal(|ui| {
@@ -177,7 +185,9 @@ fn wall_row_ui(
             if text.trim().is_empty() {
                 return Ok(PlanEdit::SetPitch { wall, pitch: None });
             }
-            Pitch::parse(text).map(|pitch| PlanEdit::SetPitch { wall, pitch: Some(pitch) }).map_err(|e| e.to_string())
+            Pitch::parse(text)
+                .map(|pitch| PlanEdit::SetPitch { wall, pitch: Some(pitch) })
+                .map_err(|e| e.to_string())
         });
         let text = plan_wall.overhang.map(|o| units.format(o)).unwrap_or_default();
         let hint = units.format(plan.default_overhang);
@@ -189,7 +199,11 @@ fn wall_row_ui(
             units.parse(text).map(|overhang| PlanEdit::SetOverhang { wall, overhang: Some(overhang) })
         });
     });
-    errors_ui(ui, state, &[Field::Length(wall), Field::Direction(wall), Field::Pitch(wall), Field::Overhang(wall)]);
+    errors_ui(
+        ui,
+        state,
+        &[Field::Length(wall), Field::Direction(wall), Field::Pitch(wall), Field::Overhang(wall)],
+    );
     ui.separator();
 }
 

@@ -1,1 +1,305 @@
-//! Whole-window tests: the app state driven through its widgets.
+//! Whole-window tests: the app state driven through its widgets with
+//! egui_kittest (found by role and label, clicked and typed into), the 3D
+//! drawing left out.
+
+use egui::{Key, Modifiers, Pos2};
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable as _;
+use glam::DVec2;
+use pitchframe_geometry::Plan;
+
+use super::ViewPreset;
+use super::app::AppState;
+use super::command::Command;
+use super::dialogs::Dialog;
+use super::document::Document;
+use super::edit::{PlanEdit, corner_in};
+use super::files::ConfigDir;
+use super::files::tests::TempFolder;
+
+/// The window on the demo house, with its own files in `folder` and the
+/// first-start cautions already seen.
+fn demo_window(folder: &TempFolder) -> Harness<'static, AppState> {
+    let config = ConfigDir::at(folder.0.join("config"));
+    config.mark_safety_shown().unwrap();
+    window(AppState::new(Document::demo().unwrap(), Some(config), ViewPreset::Corner))
+}
+
+fn window(state: AppState) -> Harness<'static, AppState> {
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1400.0, 900.0))
+        // A sixtieth of a second a frame, as on a screen, so two clicks
+        // a frame apart make a double-click.
+        .with_step_dt(1.0 / 60.0)
+        .build_ui_state(|ui, state: &mut AppState| state.ui(ui, None), state);
+    harness.run();
+    harness
+}
+
+/// The slope of the roof plane rising from global wall `wall`.
+fn plane_slope(state: &AppState, wall: usize) -> f64 {
+    let roof = state.derived.scene.roof.as_ref().expect("the roof solved");
+    roof.planes.iter().find(|plane| plane.wall == wall).expect("the wall has a plane").rise_per_run
+}
+
+fn centre_of(harness: &Harness<'_, AppState>, label: &str) -> Pos2 {
+    harness.get_by_label(label).rect().center()
+}
+
+fn type_into(harness: &mut Harness<'_, AppState>, label: &str, text: &str) {
+    harness.get_by_label(label).click();
+    harness.run();
+    // Select what the field holds so the typing replaces it.
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::A);
+    harness.get_by_label(label).type_text(text);
+    harness.run();
+    harness.key_press(Key::Enter);
+    harness.run();
+}
+
+#[test]
+fn a_walls_pitch_typed_in_resolves_the_roof_and_undo_restores_it() {
+    let folder = TempFolder::new("pitch");
+    let mut harness = demo_window(&folder);
+    harness.get_by_label("Wall 2").click();
+    harness.run();
+    assert_eq!(harness.state().selected_wall, Some(1));
+    // The demo's east wall rises at the roof's 6 in 12 (0.5 rise per run).
+    assert!((plane_slope(harness.state(), 1) - 0.5).abs() < 1e-12);
+
+    type_into(&mut harness, "Wall 2 pitch", "8/12");
+    // Derivation: 8 in 12 is 8 / 12 rise per unit run.
+    assert!((plane_slope(harness.state(), 1) - 8.0 / 12.0).abs() < 1e-12);
+    assert!(harness.state().document.unsaved());
+
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    harness.run();
+    assert!((plane_slope(harness.state(), 1) - 0.5).abs() < 1e-12);
+    assert!(!harness.state().document.unsaved(), "undo back to the opened plan leaves nothing unsaved");
+
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::Y);
+    harness.run();
+    assert!((plane_slope(harness.state(), 1) - 8.0 / 12.0).abs() < 1e-12);
+}
+
+#[test]
+fn text_that_does_not_read_shows_the_parsers_message_and_changes_nothing() {
+    let folder = TempFolder::new("bad-text");
+    let mut harness = demo_window(&folder);
+    let before = harness.state().document.plan.clone();
+    type_into(&mut harness, "Wall 1 pitch", "steep");
+    assert_eq!(harness.state().document.plan, before);
+    let message = pitchframe_geometry::Pitch::parse("steep").unwrap_err().to_string();
+    let _ = harness.get_by_label(&message);
+    type_into(&mut harness, "Wall 1 length", "44 yards");
+    assert_eq!(harness.state().document.plan, before);
+    let _ = harness.get_by_label_contains("\"44 yards\" is not a length");
+}
+
+#[test]
+fn a_wall_length_typed_in_feet_and_inches_moves_its_far_corner() {
+    let folder = TempFolder::new("length");
+    let mut harness = demo_window(&folder);
+    type_into(&mut harness, "Wall 1 length", "46' 6-1/2\"");
+    // Derivation: wall 1 runs along +X from (0, 0); 46 ft 6-1/2 in is 558.5 in.
+    let corner = corner_in(&harness.state().document.plan.walls[1]);
+    assert_eq!(corner, DVec2::new(558.5, 0.0));
+}
+
+/// A double-click: two clicks in successive frames.
+fn double_click_at(harness: &mut Harness<'_, AppState>, pos: Pos2) {
+    harness.hover_at(pos);
+    harness.step();
+    for _ in 0..2 {
+        for pressed in [true, false] {
+            harness.event(egui::Event::PointerButton {
+                pos,
+                button: egui::PointerButton::Primary,
+                pressed,
+                modifiers: Modifiers::NONE,
+            });
+        }
+        harness.step();
+    }
+    harness.run();
+}
+
+/// A drag from `from` to `to` over a few frames, as a hand makes it.
+fn drag(harness: &mut Harness<'_, AppState>, from: Pos2, to: Pos2) {
+    harness.hover_at(from);
+    harness.step();
+    harness.drag_at(from);
+    harness.step();
+    for step in 1..=5 {
+        harness.hover_at(from + (to - from) * (step as f32 / 5.0));
+        harness.step();
+    }
+    harness.drop_at(to);
+    harness.run();
+}
+
+#[test]
+fn a_double_click_on_a_wall_adds_a_corner_that_drags_on_the_grid() {
+    let folder = TempFolder::new("corner");
+    let mut harness = demo_window(&folder);
+    let opened = harness.state().document.plan.clone();
+    let (a, b) = (centre_of(&harness, "Corner 1"), centre_of(&harness, "Corner 2"));
+    double_click_at(&mut harness, a + (b - a) * 0.4);
+    let split = harness.state().document.plan.clone();
+    assert_eq!(split.walls.len(), opened.walls.len() + 1, "no corner was added");
+    let added = corner_in(&split.walls[1]);
+    // On wall 1 (y = 0, from x = 0 to 528 in), about 0.4 of the way along,
+    // on the 1 in grid.
+    assert_eq!(added.y, 0.0);
+    assert!((added.x - 0.4 * 528.0).abs() < 12.0, "added at {added}");
+    assert_eq!(added.x, added.x.round());
+    assert_eq!(harness.state().selected_corner, Some(1));
+
+    // Drag the new corner out, a little off square: it moves and lands on
+    // the grid, and the whole drag is one undo step.
+    let from = centre_of(&harness, "Corner 2");
+    drag(&mut harness, from, from + egui::vec2(7.0, 60.0));
+    let dragged = harness.state().document.plan.clone();
+    let moved = corner_in(&dragged.walls[1]);
+    assert!(moved.y < -10.0, "the corner did not move out of the wall: {moved}");
+    assert_eq!(moved, moved.round(), "the corner is off the 1 in grid");
+    assert!(harness.state().derived.problem.is_none());
+
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    harness.run();
+    assert_eq!(harness.state().document.plan, split);
+
+    // Delete the corner again from the keyboard.
+    harness.get_by_label("Corner 2").click();
+    harness.run();
+    harness.key_press(Key::Delete);
+    harness.run();
+    assert_eq!(harness.state().document.plan, opened);
+}
+
+#[test]
+fn a_corner_dragged_across_the_house_names_the_crossing_and_keeps_the_last_roof() {
+    let folder = TempFolder::new("crossing");
+    let mut harness = demo_window(&folder);
+    let good_roof = harness.state().derived.scene.roof.clone();
+    let (from, across) = (centre_of(&harness, "Corner 3"), centre_of(&harness, "Corner 1"));
+    drag(&mut harness, from, across + (across - from) * 0.3);
+    let problem = harness.state().derived.problem.clone().expect("the outline should be invalid");
+    assert!(problem.message.contains("crosses"), "{}", problem.message);
+    assert!(!problem.walls.is_empty(), "no wall is marked at fault");
+    let _ = harness.get_by_label_contains(&problem.message);
+    // The roof on screen is one that solved (from part-way through the
+    // drag), and further bad edits leave it alone.
+    let shown = std::sync::Arc::clone(&harness.state().derived.scene);
+    assert!(shown.roof.is_some() && good_roof.is_some());
+    let wall = 2;
+    let to_in = DVec2::new(-5000.0, -5000.0);
+    harness.state_mut().push(Command::Edit { edit: PlanEdit::MoveCorner { wall, to_in }, group: None });
+    harness.run();
+    assert!(harness.state().derived.problem.is_some());
+    assert!(std::sync::Arc::ptr_eq(&shown, &harness.state().derived.scene));
+}
+
+#[test]
+fn a_saved_plan_reopens_the_same_and_joins_the_recent_files() {
+    let folder = TempFolder::new("save");
+    let mut harness = demo_window(&folder);
+    type_into(&mut harness, "Wall 3 pitch", "10/12");
+    let edited = harness.state().document.plan.clone();
+    let path = folder.0.join("house.toml");
+    assert!(harness.state_mut().save_to_path(&path));
+    harness.run();
+    assert!(!harness.state().document.unsaved());
+
+    harness.state_mut().push(Command::New);
+    harness.run();
+    assert_ne!(harness.state().document.plan, edited);
+    assert!(harness.state_mut().open_path(&path));
+    harness.run();
+    assert_eq!(harness.state().document.plan, edited);
+    assert_eq!(harness.state().document.title(), "house.toml");
+    let recent = harness.state().config.as_ref().unwrap().recent();
+    assert_eq!(recent.first().and_then(|p| p.file_name()), path.file_name());
+}
+
+#[test]
+fn a_file_that_is_not_a_plan_gets_a_message_in_the_window() {
+    let folder = TempFolder::new("bad-file");
+    let mut harness = demo_window(&folder);
+    let path = folder.0.join("notes.toml");
+    std::fs::write(&path, "this is not a plan").unwrap();
+    let before = harness.state().document.plan.clone();
+    assert!(!harness.state_mut().open_path(&path));
+    harness.run();
+    assert_eq!(harness.state().document.plan, before);
+    let _ = harness.get_by_label_contains("notes.toml");
+}
+
+#[test]
+fn new_asks_before_losing_unsaved_changes() {
+    let folder = TempFolder::new("unsaved");
+    let mut harness = demo_window(&folder);
+    type_into(&mut harness, "Wall 1 pitch", "7/12");
+    let edited = harness.state().document.plan.clone();
+    harness.get_by_label("File").click();
+    harness.run();
+    harness.get_by_role_and_label(egui::Role::Button, "New Ctrl+N").click();
+    harness.run();
+    assert!(matches!(harness.state().dialogs.first(), Some(Dialog::Unsaved(_))));
+    harness.get_by_label("Cancel").click();
+    harness.run();
+    assert_eq!(harness.state().document.plan, edited);
+
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::N);
+    harness.run();
+    harness.get_by_label("Don't save").click();
+    harness.run();
+    assert_eq!(harness.state().document.plan.walls.len(), 4, "the new plan is a plain box");
+}
+
+#[test]
+fn an_autosave_left_by_a_crash_is_offered_back_at_the_next_start() {
+    let folder = TempFolder::new("recover");
+    let edited = {
+        let mut harness = demo_window(&folder);
+        type_into(&mut harness, "Wall 4 pitch", "12/12");
+        harness.state_mut().autosave_now();
+        harness.state().document.plan.clone()
+        // Dropped without closing, as a crash leaves it.
+    };
+    let config = ConfigDir::at(folder.0.join("config"));
+    let state = AppState::new(Document::demo().unwrap(), Some(config), ViewPreset::Corner);
+    let mut harness = window(state);
+    let _ = harness.get_by_label("Restore unsaved work?");
+    harness.get_by_label("Restore").click();
+    harness.run();
+    let restored: &Plan = &harness.state().document.plan;
+    assert_eq!(*restored, edited);
+    assert!(harness.state().document.unsaved(), "restored work is still unsaved");
+}
+
+#[test]
+fn the_safety_cautions_show_at_the_first_start_only() {
+    let folder = TempFolder::new("first-start");
+    let config = ConfigDir::at(folder.0.join("config"));
+    let mut harness =
+        window(AppState::new(Document::demo().unwrap(), Some(config.clone()), ViewPreset::Corner));
+    let _ = harness.get_by_label_contains("Work at height needs fall protection");
+    harness.get_by_label("I understand").click();
+    harness.run();
+    assert!(harness.state().dialogs.is_empty());
+    let again = AppState::new(Document::demo().unwrap(), Some(config), ViewPreset::Corner);
+    assert!(again.dialogs.is_empty());
+}
+
+#[test]
+fn millimetres_show_the_walls_in_millimetres() {
+    let folder = TempFolder::new("units");
+    let mut harness = demo_window(&folder);
+    harness.get_by_label("View").click();
+    harness.run();
+    harness.get_by_label("Millimetres").click();
+    harness.run();
+    // Derivation: the demo's wall 1 is 44 ft = 528 in x 25.4 = 13411.2 mm.
+    assert!(harness.query_all_by_value("13411 mm").next().is_some(), "no field shows 13411 mm");
+}
