@@ -64,6 +64,11 @@ pub struct SeatWall {
     pub inside: HalfSpace,
     /// Cuts for this half alone (a valley's tail at its own fascia).
     pub half_cuts: Vec<HalfSpace>,
+    /// The plate's inner face (outward normal toward the wall line), for
+    /// members over a corner: the seat is cut only over the plate, and
+    /// past it the hip or valley keeps its full depth and hangs below the
+    /// plate inside the walls.
+    pub plate_inner: Option<HalfSpace>,
 }
 
 /// Everything needed to cut one piece's solid.
@@ -140,6 +145,23 @@ impl PieceSpec {
             let mut body = half.clone();
             body.push(HalfSpace { tag: inside_tag, end: inside_end, ..inside });
             body.push(above_plate(FaceTag::Seat));
+            if let Some(plate) = wall.plate_inner {
+                body.push(HalfSpace {
+                    normal: -plate.normal,
+                    offset: -plate.offset,
+                    tag: FaceTag::Interior,
+                    end: None,
+                });
+                let mut past_above = half.clone();
+                past_above.push(HalfSpace { tag: FaceTag::Interior, end: None, ..plate });
+                past_above.push(HalfSpace { end: None, ..above_plate(FaceTag::Interior) });
+                parts.extend(ConvexPart::from_half_spaces(&past_above));
+                // The notch's inner plumb cut bears on the plate's inner face.
+                let mut past_below = half.clone();
+                past_below.push(HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..plate });
+                past_below.push(below_plate);
+                parts.extend(ConvexPart::from_half_spaces(&past_below));
+            }
             parts.extend(ConvexPart::from_half_spaces(&body));
             if self.has_tail {
                 let mut tail_top = half.clone();

@@ -92,6 +92,12 @@ impl Ctx<'_> {
         cuts
     }
 
+    /// The inner face of plane `p`'s wall plate, one seat width in from
+    /// its wall line (outward normal).
+    pub fn plate_inner(&self, p: &PlaneFrame) -> Option<HalfSpace> {
+        p.wall_side(-self.settings.seat_width_in, true, FaceTag::Heel, Some(CutEnd::Seat))
+    }
+
     /// The ridge's height at its top: flush with the rafters' tops at its
     /// side faces (the lower side where pitches differ).
     pub fn ridge_top(&self, line: &PlanLine) -> f64 {
@@ -264,6 +270,7 @@ impl Ctx<'_> {
             seat.push(SeatWall {
                 inside: p.wall_side(0.0, true, FaceTag::Interior, None)?,
                 half_cuts: Vec::new(),
+                plate_inner: None,
             });
             if has_tail {
                 lower_cuts.extend(self.tail_cuts(p, &frame));
@@ -509,8 +516,16 @@ impl Ctx<'_> {
         }
         let seat = if seated {
             vec![
-                SeatWall { inside: pl.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
-                SeatWall { inside: pr.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts: Vec::new() },
+                SeatWall {
+                    inside: pl.wall_side(0.0, true, FaceTag::Interior, None)?,
+                    half_cuts: Vec::new(),
+                    plate_inner: self.plate_inner(pl),
+                },
+                SeatWall {
+                    inside: pr.wall_side(0.0, true, FaceTag::Interior, None)?,
+                    half_cuts: Vec::new(),
+                    plate_inner: self.plate_inner(pr),
+                },
             ]
         } else {
             Vec::new()
@@ -578,7 +593,11 @@ impl Ctx<'_> {
                     ));
                 }
             }
-            Some(SeatWall { inside: p.wall_side(0.0, true, FaceTag::Interior, None)?, half_cuts })
+            Some(SeatWall {
+                inside: p.wall_side(0.0, true, FaceTag::Interior, None)?,
+                half_cuts,
+                plate_inner: self.plate_inner(p),
+            })
         };
         let seat = vec![half(pl)?, half(pr)?];
         let spec = PieceSpec {

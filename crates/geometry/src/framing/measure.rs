@@ -284,17 +284,24 @@ fn end_cut(
 fn seat_cut(spec: &PieceSpec, solid: &Solid) -> Cut {
     let fr = &spec.frame;
     let plan_dir = fr.along.truncate().normalize_or_zero();
-    let seat: Vec<f64> = solid
+    // Measured along lines parallel to the member (where a framer marks
+    // it, on a side face or the centre line): over a corner the heel is a
+    // V, so the seat's ends sit further along at the sides than at the
+    // centre, and its whole plan extent would overstate the width.
+    let seat: Vec<(f64, f64)> = solid
         .faces()
         .filter(|f| f.tag == FaceTag::Seat)
-        .flat_map(|f| f.vertices.iter().map(move |p| p.truncate().dot(plan_dir)))
+        .flat_map(|f| f.vertices.iter().map(|p| ((*p - fr.origin).dot(fr.side), p.truncate().dot(plan_dir))))
         .collect();
-    let seat_width_in = if seat.is_empty() {
-        0.0
-    } else {
-        seat.iter().copied().fold(f64::NEG_INFINITY, f64::max)
-            - seat.iter().copied().fold(f64::INFINITY, f64::min)
-    };
+    let seat_width_in = seat
+        .iter()
+        .map(|(side, _)| {
+            let on_line = seat.iter().filter(|(s, _)| (s - side).abs() < READ_TOL_IN).map(|(_, a)| *a);
+            let (lo, hi) =
+                on_line.fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), a| (lo.min(a), hi.max(a)));
+            hi - lo
+        })
+        .fold(0.0, f64::max);
     Cut::Seat {
         end: CutEnd::Seat,
         square: [12.0, 12.0 * spec.slope],
