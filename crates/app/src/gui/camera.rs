@@ -146,6 +146,20 @@ impl OrbitCamera {
             .clamp(MIN_DISTANCE_RADII * self.scene_radius_in, MAX_DISTANCE_RADII * self.scene_radius_in);
     }
 
+    /// The tangent of half the vertical view angle for a view of
+    /// `size_px`: a view taller than wide widens its vertical angle so the
+    /// horizontal one stays the camera's, and the house still fits across.
+    fn half_height(&self, size_px: DVec2) -> f64 {
+        let base = (self.fov_y_rad / 2.0).tan();
+        let aspect = size_px.x / size_px.y.max(1.0);
+        if aspect > 0.0 && aspect < 1.0 { base / aspect } else { base }
+    }
+
+    /// The vertical view angle drawn in a view of `size_px`.
+    pub fn fov_y_for(&self, size_px: DVec2) -> f64 {
+        2.0 * self.half_height(size_px).atan()
+    }
+
     /// Where `point` shows in a view of `size_px`, from its top-left;
     /// `None` when it lies behind the eye.
     pub fn project(&self, point: DVec3, size_px: DVec2) -> Option<DVec2> {
@@ -154,7 +168,7 @@ impl OrbitCamera {
         if depth <= 0.0 {
             return None;
         }
-        let half_height = (self.fov_y_rad / 2.0).tan();
+        let half_height = self.half_height(size_px);
         let aspect = size_px.x / size_px.y.max(1.0);
         let ndc_x = relative.dot(self.right()) / (depth * half_height * aspect);
         let ndc_y = relative.dot(self.up()) / (depth * half_height);
@@ -163,7 +177,7 @@ impl OrbitCamera {
 
     /// The ray through `pixel` (from the top-left of a view of `size_px`).
     pub fn ray(&self, pixel: DVec2, size_px: DVec2) -> Ray {
-        let half_height = (self.fov_y_rad / 2.0).tan();
+        let half_height = self.half_height(size_px);
         let aspect = size_px.x / size_px.y.max(1.0);
         // Normalised device coordinates: -1..1, y up.
         let ndc_x = 2.0 * pixel.x / size_px.x.max(1.0) - 1.0;
@@ -215,6 +229,19 @@ mod tests {
         let top = cam.ray(DVec2::new(400.0, 0.0), size);
         let angle = top.direction.dot(ray.direction).acos();
         assert_abs_diff_eq!(angle, cam.fov_y_rad / 2.0, epsilon = 1e-9);
+    }
+
+    #[test]
+    fn a_view_taller_than_wide_keeps_the_horizontal_angle() {
+        let cam = camera(ViewPreset::Corner);
+        let tall = DVec2::new(400.0, 800.0);
+        let left = cam.ray(DVec2::new(0.0, 400.0), tall);
+        let centre = cam.ray(DVec2::new(200.0, 400.0), tall);
+        // Derivation: across a view half as wide as tall, the half-angle
+        // across is the camera's half vertical angle, as in a square view.
+        assert_abs_diff_eq!(left.direction.dot(centre.direction).acos(), cam.fov_y_rad / 2.0, epsilon = 1e-9);
+        let back = cam.project(left.origin + left.direction * 300.0, tall).unwrap();
+        assert_abs_diff_eq!(back.x, 0.0, epsilon = 1e-9);
     }
 
     #[test]

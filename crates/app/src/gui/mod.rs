@@ -24,6 +24,7 @@ mod document;
 mod edit;
 mod file_dialog;
 mod files;
+mod frame_timer;
 mod history;
 mod menu;
 mod palette;

@@ -15,7 +15,7 @@ use super::units::DisplayUnits;
 
 /// Room left round the drawing, in points, for the lengths written
 /// outside the walls.
-const MARGIN_PT: f32 = 48.0;
+const MARGIN_PT: f32 = 64.0;
 /// How near the pointer must come to a wall or corner to reach it, in
 /// points: about a fingertip on a touch pad.
 const REACH_PT: f32 = 14.0;
@@ -169,13 +169,12 @@ pub fn plan_view_ui(
         );
         painter.galley(badge_rect.min + Vec2::splat(3.0), badge, Color32::WHITE);
         let length = input.units.format(Length::from_inches((b - a).length()));
-        painter.text(
-            middle + away * 22.0,
-            egui::Align2::CENTER_CENTER,
-            length,
-            egui::FontId::proportional(LABEL_SIZE),
-            text_colour,
-        );
+        let galley = painter.layout_no_wrap(length, egui::FontId::proportional(LABEL_SIZE), text_colour);
+        // Stand the text clear of the wall and its number, whichever way the wall runs.
+        let half = galley.size() / 2.0;
+        let clear = 12.0 + away.x.abs() * half.x + away.y.abs() * half.y;
+        let centre = middle + away * clear;
+        painter.galley(centre - half, galley, text_colour);
     }
 
     corners_ui(ui, input, state, transform, commands);

@@ -225,7 +225,11 @@ impl Renderer {
             vec3(camera.eye()),
             vec3(camera.target),
             vec3(camera.up()),
-            degrees(camera.fov_y_rad.to_degrees() as f32),
+            degrees(
+                camera
+                    .fov_y_for(DVec2::new(f64::from(view_px.width_px), f64::from(view_px.height_px)))
+                    .to_degrees() as f32,
+            ),
             near as f32,
             far as f32,
         );

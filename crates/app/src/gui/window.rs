@@ -7,6 +7,7 @@ use anyhow::Context as _;
 
 use super::app::{AppState, SideTab};
 use super::command::{Command, Layout};
+use super::frame_timer::FrameTimer;
 use super::picture::PictureJob;
 use super::viewport::Renderer;
 
@@ -15,6 +16,7 @@ pub struct PitchframeApp {
     state: AppState,
     renderer: Arc<Mutex<Renderer>>,
     picture: Option<PictureJob>,
+    frame_timer: Option<FrameTimer>,
 }
 
 impl PitchframeApp {
@@ -37,13 +39,17 @@ impl PitchframeApp {
             // Opening on a pick (as tests do) shows it close up.
             state.push(Command::FocusPicked);
         }
-        Ok(Self { state, renderer: Arc::new(Mutex::new(renderer)), picture })
+        let frame_timer = FrameTimer::from_env();
+        Ok(Self { state, renderer: Arc::new(Mutex::new(renderer)), picture, frame_timer })
     }
 }
 
 impl eframe::App for PitchframeApp {
     fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
         let ctx = ui.ctx().clone();
+        if let Some(timer) = &mut self.frame_timer {
+            timer.on_frame(&mut self.state, &ctx);
+        }
         self.state.ui(ui, Some(&self.renderer));
         if let Some(picture) = &mut self.picture {
             picture.on_frame(&ctx);
