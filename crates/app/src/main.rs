@@ -2,6 +2,7 @@
 
 mod cli;
 mod gui;
+mod storage;
 
 use std::io::Write;
 use std::process::ExitCode;

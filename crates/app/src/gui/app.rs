@@ -111,13 +111,12 @@ impl AppState {
         let camera = OrbitCamera::framing(derived.scene.min, derived.scene.max, view);
         let mut dialogs = Vec::new();
         if let Some(config) = &config {
-            if let Some(leftover) = config.leftover_autosave() {
-                match Plan::from_toml(&leftover.text) {
-                    Ok(plan) => {
-                        dialogs.push(Dialog::Restore { plan: Box::new(plan), source: leftover.source })
-                    }
-                    Err(_) => config.clear_autosave(),
-                }
+            if let Some(leftover) = config.leftover_autosave(document.path.as_deref()) {
+                dialogs.push(Dialog::Restore {
+                    plan: Box::new(leftover.plan),
+                    source: leftover.source,
+                    autosave: leftover.autosave,
+                });
             }
             if !config.safety_shown() {
                 dialogs.push(Dialog::Safety);
@@ -373,13 +372,13 @@ impl AppState {
         match (dialog, answer) {
             (Dialog::Unsaved(pending), Answer::Save) => self.save(Some(pending)),
             (Dialog::Unsaved(pending), Answer::Discard) => self.proceed(pending),
-            (Dialog::Restore { plan, source }, Answer::Restore) => {
+            (Dialog::Restore { plan, source, .. }, Answer::Restore) => {
                 let document = Document::recovered(*plan, source);
                 self.load(document);
             }
-            (Dialog::Restore { .. }, Answer::Discard) => {
+            (Dialog::Restore { source, .. }, Answer::Discard) => {
                 if let Some(config) = &self.config {
-                    config.clear_autosave();
+                    config.clear_autosave(source.as_deref());
                 }
             }
             (Dialog::TypePath { purpose, text, then }, Answer::PathTyped) => {
@@ -436,7 +435,7 @@ impl AppState {
                 self.close_allowed = true;
                 self.close_now = true;
                 if let Some(config) = &self.config {
-                    config.clear_autosave();
+                    config.clear_autosave(self.document.path.as_deref());
                 }
             }
         }
@@ -474,10 +473,14 @@ impl AppState {
 
     /// Saves the plan to `path`; says in the window whether it worked.
     pub fn save_to_path(&mut self, path: &Path) -> bool {
+        let before = self.document.path.clone();
         match self.document.save_to(path) {
             Ok(()) => {
                 if let Some(config) = &self.config {
-                    config.clear_autosave();
+                    // The work is in its file: the autosave it was kept in
+                    // (beside the old file, or untitled) is done with.
+                    config.clear_autosave(before.as_deref());
+                    config.clear_autosave(Some(path));
                     let _ = config.add_recent(path);
                 }
                 self.autosaved = None;
@@ -563,7 +566,7 @@ impl AppState {
             }
         } else if let Some(config) = self.config.as_ref().filter(|_| !self.document.unsaved()) {
             // Closing with everything saved: no autosave is needed.
-            config.clear_autosave();
+            config.clear_autosave(self.document.path.as_deref());
         }
     }
 
@@ -589,7 +592,7 @@ impl AppState {
         if self.autosaved.as_ref() == Some(&self.document.plan) {
             return;
         }
-        match config.write_autosave(&self.document.plan.to_toml(), self.document.path.as_deref()) {
+        match config.write_autosave(&self.document.plan, self.document.path.as_deref()) {
             Ok(()) => self.autosaved = Some(self.document.plan.clone()),
             Err(err) => self.notice = Some(Notice::Error(format!("The autosave failed: {err:#}"))),
         }

@@ -45,6 +45,8 @@ pub enum Dialog {
         plan: Box<Plan>,
         /// The file it was being edited for.
         source: Option<PathBuf>,
+        /// Where the autosave lies.
+        autosave: PathBuf,
     },
     /// No file dialog: the path is typed.
     TypePath {
@@ -104,7 +106,7 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
                     }
                 });
             }
-            Dialog::Restore { source, .. } => {
+            Dialog::Restore { source, autosave, .. } => {
                 ui.heading("Restore unsaved work?");
                 let of = match source {
                     Some(path) => format!("for {}", path.display()),
@@ -113,6 +115,7 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
                 ui.label(format!(
                     "Pitchframe last closed without saving its changes. An autosave {of} is newer than the saved file."
                 ));
+                ui.label(egui::RichText::new(format!("Autosave: {}", autosave.display())).weak());
                 ui.horizontal(|ui| {
                     if ui.button("Restore").clicked() {
                         answer = Some(Answer::Restore);

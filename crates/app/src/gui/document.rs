@@ -6,7 +6,7 @@ use std::path::{Path, PathBuf};
 use anyhow::Context as _;
 use pitchframe_geometry::{Plan, demo_plan};
 
-use super::files::save_atomically;
+use crate::storage;
 
 /// A plan for New: a 40 ft x 24 ft box hipped at 6 in 12 with a 16 in
 /// overhang, a plain start that any plan can be dragged from.
@@ -60,7 +60,8 @@ impl Document {
 
     /// Writes the plan to `path` (atomically) and makes that its file.
     pub fn save_to(&mut self, path: &Path) -> anyhow::Result<()> {
-        save_atomically(path, &self.plan.to_toml())?;
+        storage::save_plan_atomically(path, &self.plan)
+            .with_context(|| format!("cannot save {}", path.display()))?;
         self.path = Some(path.to_path_buf());
         self.saved = Some(self.plan.clone());
         Ok(())

@@ -4,47 +4,36 @@
 //! Everything but the plans themselves lives in one folder,
 //! `$XDG_CONFIG_HOME/pitchframe` (or `~/.config/pitchframe`).
 
-use std::io::Write as _;
 use std::path::{Path, PathBuf};
-use std::time::SystemTime;
 
 use anyhow::Context as _;
+use pitchframe_geometry::Plan;
+
+use crate::storage;
 
 /// Most files the recent list keeps.
 const MAX_RECENT: usize = 8;
 
+/// The note naming the plan whose autosave is waiting: its path, or an
+/// empty line for a plan never saved.
+const AUTOSAVE_NOTE: &str = "autosave-of.txt";
+
 /// Writes `text` to `path` so that a crash or a full disk never leaves a
-/// half-written plan: the text goes to a temporary file in the same
-/// folder, is flushed to the disk, and is then renamed over `path`.
+/// half-written file (the storage module's temporary file and rename).
 pub fn save_atomically(path: &Path, text: &str) -> anyhow::Result<()> {
-    let folder = path.parent().filter(|parent| !parent.as_os_str().is_empty()).unwrap_or(Path::new("."));
-    let name = path.file_name().with_context(|| format!("{} is not a file name", path.display()))?;
-    let mut temporary_name = std::ffi::OsString::from(".");
-    temporary_name.push(name);
-    temporary_name.push(format!(".{}.saving", std::process::id()));
-    let temporary = folder.join(temporary_name);
-    let written = (|| -> std::io::Result<()> {
-        let mut file = std::fs::File::create(&temporary)?;
-        file.write_all(text.as_bytes())?;
-        file.sync_all()
-    })();
-    if let Err(err) = written {
-        let _ = std::fs::remove_file(&temporary);
-        return Err(err).with_context(|| format!("cannot write {}", path.display()));
-    }
-    std::fs::rename(&temporary, path).map_err(|err| {
-        let _ = std::fs::remove_file(&temporary);
-        anyhow::Error::new(err).context(format!("cannot replace {}", path.display()))
-    })
+    storage::write_atomically(path, text.as_bytes())
+        .with_context(|| format!("cannot write {}", path.display()))
 }
 
-/// A plan left in the autosave by a window that did not close cleanly.
+/// A plan left in an autosave by a window that did not close cleanly.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Leftover {
-    /// The autosaved plan text.
-    pub text: String,
+    /// The autosaved plan.
+    pub plan: Plan,
     /// The file the plan was being edited for, if it had one.
     pub source: Option<PathBuf>,
+    /// Where the autosave lies.
+    pub autosave: PathBuf,
 }
 
 /// The folder of the window's own files.
@@ -112,35 +101,44 @@ impl ConfigDir {
         self.write("safety-shown", "The safety cautions were shown at first start.\n")
     }
 
-    /// Keeps a copy of unsaved work, with the file it belongs to.
-    pub fn write_autosave(&self, plan_text: &str, source: Option<&Path>) -> anyhow::Result<()> {
+    /// Keeps a copy of unsaved work (beside its file, or in the user's
+    /// state folder for a plan never saved) and notes which plan it is for,
+    /// so the next start finds it whatever it opens.
+    pub fn write_autosave(&self, plan: &Plan, source: Option<&Path>) -> anyhow::Result<()> {
         let source = source.map(|path| std::path::absolute(path).unwrap_or_else(|_| path.to_path_buf()));
-        let source_line = source.map(|path| format!("{}\n", path.display())).unwrap_or_default();
-        self.write("autosave-source.txt", &source_line)?;
-        self.write("autosave.toml", plan_text)
+        storage::write_autosave(source.as_deref(), plan).context("cannot write the autosave")?;
+        let note = source.map(|path| format!("{}\n", path.display())).unwrap_or_else(|| "\n".to_owned());
+        self.write(AUTOSAVE_NOTE, &note)
     }
 
-    /// Drops the autosave: the work is saved, or the user let it go.
-    pub fn clear_autosave(&self) {
-        let _ = std::fs::remove_file(self.file("autosave.toml"));
-        let _ = std::fs::remove_file(self.file("autosave-source.txt"));
+    /// Drops the autosave of `source` and the note: the work is saved, or
+    /// the user let it go.
+    pub fn clear_autosave(&self, source: Option<&Path>) {
+        let noted = self.noted_source();
+        for plan in [source.map(Path::to_path_buf), noted.flatten()] {
+            let _ = storage::remove_autosave(plan.as_deref());
+        }
+        let _ = std::fs::remove_file(self.file(AUTOSAVE_NOTE));
     }
 
-    /// The autosave, when one is left that is newer than the file it
-    /// belongs to (or belongs to no file, or its file is gone).
-    pub fn leftover_autosave(&self) -> Option<Leftover> {
-        let autosave = self.file("autosave.toml");
-        let text = std::fs::read_to_string(&autosave).ok()?;
-        let source = std::fs::read_to_string(self.file("autosave-source.txt"))
-            .ok()
-            .and_then(|text| text.lines().next().map(str::trim).filter(|l| !l.is_empty()).map(PathBuf::from));
-        let modified = |path: &Path| std::fs::metadata(path).and_then(|meta| meta.modified()).ok();
-        let autosaved = modified(&autosave).unwrap_or(SystemTime::UNIX_EPOCH);
-        let newer = match source.as_deref().map(modified) {
-            None | Some(None) => true,
-            Some(Some(saved)) => autosaved > saved,
-        };
-        newer.then_some(Leftover { text, source })
+    /// The plan the note names: `Some(None)` for a plan never saved.
+    fn noted_source(&self) -> Option<Option<PathBuf>> {
+        let text = std::fs::read_to_string(self.file(AUTOSAVE_NOTE)).ok()?;
+        let line = text.lines().next().map(str::trim).unwrap_or_default();
+        Some((!line.is_empty()).then(|| PathBuf::from(line)))
+    }
+
+    /// An autosave newer than its saved file (or of a plan never saved):
+    /// the one the note names, else the one beside `opened`.
+    pub fn leftover_autosave(&self, opened: Option<&Path>) -> Option<Leftover> {
+        let mut candidates: Vec<Option<PathBuf>> = self.noted_source().into_iter().collect();
+        if let Some(opened) = opened {
+            candidates.push(Some(std::path::absolute(opened).unwrap_or_else(|_| opened.to_path_buf())));
+        }
+        candidates.into_iter().find_map(|source| {
+            let found = storage::read_autosave(source.as_deref()).ok().flatten()?;
+            found.newer_than_plan.then_some(Leftover { plan: found.plan, source, autosave: found.path })
+        })
     }
 }
 
@@ -206,17 +204,21 @@ pub mod tests {
         let folder = TempFolder::new("autosave");
         let config = ConfigDir::at(folder.0.join("config"));
         let plan_path = folder.0.join("house.toml");
-        std::fs::write(&plan_path, "saved").unwrap();
+        let mut plan = pitchframe_geometry::demo_plan().unwrap();
+        std::fs::write(&plan_path, plan.to_toml()).unwrap();
         std::thread::sleep(std::time::Duration::from_millis(20));
-        config.write_autosave("newer", Some(&plan_path)).unwrap();
-        let leftover = config.leftover_autosave().unwrap();
-        assert_eq!(leftover.text, "newer");
+        plan.walls[0].gable = true;
+        config.write_autosave(&plan, Some(&plan_path)).unwrap();
+        // Found from the note, whatever the next start opens.
+        let leftover = config.leftover_autosave(None).unwrap();
+        assert_eq!(leftover.plan, plan);
         assert_eq!(leftover.source.as_deref(), Some(plan_path.as_path()));
+        assert_eq!(leftover.autosave.parent(), plan_path.parent());
         std::thread::sleep(std::time::Duration::from_millis(20));
         std::fs::write(&plan_path, "saved again").unwrap();
-        assert_eq!(config.leftover_autosave(), None);
-        config.clear_autosave();
-        std::fs::remove_file(&plan_path).unwrap();
-        assert_eq!(config.leftover_autosave(), None);
+        assert_eq!(config.leftover_autosave(Some(&plan_path)), None);
+        config.clear_autosave(Some(&plan_path));
+        assert!(!storage::autosave_path(Some(&plan_path)).exists());
+        assert_eq!(config.leftover_autosave(Some(&plan_path)), None);
     }
 }

@@ -260,13 +260,18 @@ fn new_asks_before_losing_unsaved_changes() {
 #[test]
 fn an_autosave_left_by_a_crash_is_offered_back_at_the_next_start() {
     let folder = TempFolder::new("recover");
+    let path = folder.0.join("house.toml");
     let edited = {
         let mut harness = demo_window(&folder);
+        assert!(harness.state_mut().save_to_path(&path));
+        // The autosave must be newer than the saved file.
+        std::thread::sleep(std::time::Duration::from_millis(20));
         type_into(&mut harness, "Wall 4 pitch", "12/12");
         harness.state_mut().autosave_now();
         harness.state().document.plan.clone()
         // Dropped without closing, as a crash leaves it.
     };
+    // The next start opens the demo, not the plan: the note finds the autosave.
     let config = ConfigDir::at(folder.0.join("config"));
     let state = AppState::new(Document::demo().unwrap(), Some(config), ViewPreset::Corner);
     let mut harness = window(state);
@@ -276,6 +281,11 @@ fn an_autosave_left_by_a_crash_is_offered_back_at_the_next_start() {
     let restored: &Plan = &harness.state().document.plan;
     assert_eq!(*restored, edited);
     assert!(harness.state().document.unsaved(), "restored work is still unsaved");
+    assert_eq!(harness.state().document.path.as_deref(), Some(path.as_path()));
+    // Saving it puts the work in its file and the autosave away.
+    assert!(harness.state_mut().save_to_path(&path));
+    let config = ConfigDir::at(folder.0.join("config"));
+    assert_eq!(config.leftover_autosave(Some(&path)), None);
 }
 
 #[test]
