@@ -548,7 +548,13 @@ impl AppState {
 
     fn set_plan(&mut self, plan: Plan) {
         self.document.plan = plan;
+        let had_nothing = self.derived.scene.parts.is_empty();
         self.derived.update(&self.document.plan);
+        if had_nothing && !self.derived.scene.parts.is_empty() {
+            // A plan opened invalid has just been fixed: aim at the house.
+            self.camera =
+                OrbitCamera::framing(self.derived.scene.min, self.derived.scene.max, ViewPreset::Corner);
+        }
         let walls = wall_count(&self.document.plan);
         self.selected_wall = self.selected_wall.filter(|&wall| wall < walls);
         self.selected_corner = self.selected_corner.filter(|&wall| wall < walls);

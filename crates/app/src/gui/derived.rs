@@ -68,6 +68,15 @@ impl Derived {
     pub fn stale(&self) -> bool {
         self.problem.is_some()
     }
+
+    /// What the window shows of the roof while there is a problem, in words.
+    pub fn shown_instead(&self) -> &'static str {
+        if self.scene.roof.is_some() {
+            "the roof shown is the last one that solved"
+        } else {
+            "no roof can be shown until it is fixed"
+        }
+    }
 }
 
 /// The walls a roof solve error is about.

@@ -180,7 +180,7 @@ pub fn plan_view_ui(
     corners_ui(ui, input, state, transform, commands);
 
     if let Some(problem) = &input.derived.problem {
-        let text = format!("{} (the roof shown is the last one that solved)", problem.message);
+        let text = format!("{} ({})", problem.message, input.derived.shown_instead());
         let galley = painter.layout(text, egui::FontId::proportional(LABEL_SIZE), FAULT, rect.width() - 16.0);
         painter.galley(rect.min + Vec2::new(8.0, 6.0), galley, FAULT);
     }

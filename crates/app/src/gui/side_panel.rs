@@ -34,7 +34,7 @@ pub fn side_panel_ui(
         if let Some(problem) = &derived.problem {
             ui.colored_label(
                 ui.visuals().warn_fg_color,
-                format!("{} (the frame shown is the last one that solved)", problem.message),
+                format!("{} ({})", problem.message, derived.shown_instead()),
             );
         }
         if let Some(error) = &derived.settings_error {

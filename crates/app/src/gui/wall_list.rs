@@ -104,7 +104,7 @@ pub fn wall_list_ui(
     errors_ui(ui, state, &[Field::RoofPitch, Field::RoofOverhang]);
     if let Some(problem) = &derived.problem {
         ui.label(RichText::new(&problem.message).color(ERROR).strong());
-        ui.label("The roof shown is the last one that solved; fix the walls in red.");
+        ui.label(format!("Fix the walls in red: {}.", derived.shown_instead()));
     }
     if let Some(error) = &derived.settings_error {
         ui.label(RichText::new(format!("No frame: {error}")).color(ERROR).strong());
