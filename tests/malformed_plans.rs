@@ -1,3 +1,4 @@
+#![allow(clippy::unwrap_used)] // test helpers: a panic here is a failed test
 //! The malformed plan corpus (`tests/malformed/`) through the geometry
 //! crate alone: loading, outlining and solving each file gives an error,
 //! never a panic, and the error holds the text in the file's `.expect`.
