@@ -313,3 +313,88 @@ fn millimetres_show_the_walls_in_millimetres() {
     // Derivation: the demo's wall 1 is 44 ft = 528 in x 25.4 = 13411.2 mm.
     assert!(harness.query_all_by_value("13411 mm").next().is_some(), "no field shows 13411 mm");
 }
+
+#[test]
+fn unsaved_work_is_autosaved_within_half_a_minute() {
+    let folder = TempFolder::new("autosave-clock");
+    let config = ConfigDir::at(folder.0.join("config"));
+    config.mark_safety_shown().unwrap();
+    let path = folder.0.join("house.toml");
+    let mut state = AppState::new(Document::demo().unwrap(), Some(config.clone()), ViewPreset::Corner);
+    assert!(state.save_to_path(&path));
+    // One second a frame, so half a minute passes in thirty frames.
+    let mut harness = Harness::builder()
+        .with_size(egui::vec2(1400.0, 900.0))
+        .with_step_dt(1.0)
+        .build_ui_state(|ui, state: &mut AppState| state.ui(ui, None), state);
+    harness.run();
+    std::thread::sleep(std::time::Duration::from_millis(20));
+    harness
+        .state_mut()
+        .push(Command::Edit { edit: PlanEdit::SetGable { wall: 0, gable: true }, group: None });
+    harness.run_steps(5);
+    assert_eq!(config.leftover_autosave(Some(&path)), None, "autosaved before the half minute");
+    harness.run_steps(30);
+    let leftover = config.leftover_autosave(Some(&path)).expect("no autosave after half a minute");
+    assert_eq!(leftover.plan, harness.state().document.plan);
+}
+
+#[test]
+fn the_recent_files_are_in_the_file_menu_and_colours_in_the_view_menu() {
+    let folder = TempFolder::new("menus");
+    let mut harness = demo_window(&folder);
+    let path = folder.0.join("cabin.toml");
+    assert!(harness.state_mut().save_to_path(&path));
+    harness.run();
+    harness.get_by_label("File").click();
+    harness.run();
+    harness.get_by_label("Open recent").click();
+    harness.run();
+    harness.get_by_role_and_label(egui::Role::Button, "cabin.toml").click();
+    harness.run();
+    assert!(harness.state().notice.is_none(), "{:?}", harness.state().notice);
+    assert_eq!(harness.state().document.title(), "cabin.toml");
+
+    harness.get_by_label("View").click();
+    harness.run();
+    harness.get_by_label("Dark colours").click();
+    harness.run();
+    assert_eq!(harness.state().theme, egui::Theme::Dark);
+    assert_eq!(harness.ctx.theme(), egui::Theme::Dark);
+}
+
+#[test]
+fn closing_with_unsaved_changes_asks_first() {
+    let folder = TempFolder::new("close");
+    let mut harness = demo_window(&folder);
+    harness
+        .state_mut()
+        .push(Command::Edit { edit: PlanEdit::SetGable { wall: 0, gable: true }, group: None });
+    harness.run();
+    harness
+        .input_mut()
+        .viewports
+        .entry(egui::ViewportId::ROOT)
+        .or_default()
+        .events
+        .push(egui::ViewportEvent::Close);
+    harness.step();
+    assert!(matches!(harness.state().dialogs.first(), Some(Dialog::Unsaved(_))));
+    let cancelled_close = harness
+        .output()
+        .viewport_output
+        .values()
+        .any(|output| output.commands.contains(&egui::ViewportCommand::CancelClose));
+    assert!(cancelled_close, "the window closed without asking");
+    harness.run();
+    harness.get_by_label("Don't save").click();
+    // The window keeps asking to close from here on, so it never settles.
+    harness.run_steps(2);
+    assert!(harness.state().dialogs.is_empty());
+    let closing = harness
+        .output()
+        .viewport_output
+        .values()
+        .any(|output| output.commands.contains(&egui::ViewportCommand::Close));
+    assert!(closing, "the window did not close after \"Don't save\"");
+}
