@@ -100,6 +100,8 @@ pub struct AppState {
     next_autosave_s: Option<f64>,
     autosaved: Option<Plan>,
     style_set: bool,
+    /// The window title last sent, so it is only sent when it changes.
+    title: String,
 }
 
 impl AppState {
@@ -148,6 +150,7 @@ impl AppState {
             next_autosave_s: None,
             autosaved: None,
             style_set: false,
+            title: String::new(),
         }
     }
 
@@ -172,6 +175,12 @@ impl AppState {
         }
         self.commands.extend(shortcut_commands(&ctx));
         self.watch_close(&ctx);
+        let unsaved_mark = if self.document.unsaved() { " (unsaved)" } else { "" };
+        let title = format!("{}{unsaved_mark} - Pitchframe", self.document.title());
+        if title != self.title {
+            ctx.send_viewport_cmd(egui::ViewportCommand::Title(title.clone()));
+            self.title = title;
+        }
 
         let menu_state = MenuState {
             can_undo: self.history.can_undo(),

@@ -52,7 +52,14 @@ pub struct PlanViewState {
     drag: Option<(usize, u64)>,
     /// The next drag's undo group.
     next_group: u64,
+    /// Zoom over the fitted drawing (1 shows the whole plan).
+    zoom: f64,
+    /// How far the drawing has been dragged from its fitted place, in points.
+    pan_pt: Vec2,
 }
+
+/// Closest and farthest zoom: a tenth of the fitted drawing to fifty times it.
+const ZOOM_RANGE: std::ops::RangeInclusive<f64> = 0.1..=50.0;
 
 impl PlanViewState {
     /// The snapping in force, for display units `units`.
@@ -82,6 +89,11 @@ impl PlanTransform {
         let room = rect.shrink(MARGIN_PT).size().max(Vec2::splat(10.0));
         let points_per_in = (f64::from(room.x) / size.x).min(f64::from(room.y) / size.y);
         Self { centre_in: (min + max) / 2.0, points_per_in, screen_centre: rect.center() }
+    }
+
+    /// The same drawing zoomed by `zoom` about the middle and moved by `pan_pt`.
+    fn zoomed(self, zoom: f64, pan_pt: Vec2) -> Self {
+        Self { points_per_in: self.points_per_in * zoom, screen_centre: self.screen_centre + pan_pt, ..self }
     }
 
     fn to_screen(self, p: DVec2) -> Pos2 {
@@ -126,13 +138,17 @@ pub fn plan_view_ui(
     commands: &mut Vec<Command>,
 ) {
     header_ui(ui, input, state, commands);
-    let (rect, background) = ui.allocate_exact_size(ui.available_size(), Sense::click());
+    let (rect, background) = ui.allocate_exact_size(ui.available_size(), Sense::click_and_drag());
+    if state.zoom <= 0.0 {
+        state.zoom = 1.0;
+    }
+    zoom_and_pan(ui, &background, state);
     let painter = ui.painter_at(rect);
     painter.rect_filled(rect, 0.0, ui.visuals().extreme_bg_color);
     let plan = input.plan;
     let transform = state.frozen.unwrap_or_else(|| {
         let (min, max) = drawing_bounds(input);
-        PlanTransform::fit(min, max, rect)
+        PlanTransform::fit(min, max, rect).zoomed(state.zoom, state.pan_pt)
     });
     grid_ui(&painter, rect, transform, input.units, ui.visuals().dark_mode);
     roof_ui(&painter, input, transform);
@@ -200,6 +216,25 @@ pub fn plan_view_ui(
     }
 }
 
+/// Scrolling zooms about the pointer; dragging the background moves the drawing.
+fn zoom_and_pan(ui: &egui::Ui, background: &egui::Response, state: &mut PlanViewState) {
+    if state.drag.is_some() {
+        return;
+    }
+    if background.dragged() {
+        state.pan_pt += background.drag_delta();
+    }
+    let scroll = if background.hovered() { ui.input(|input| input.smooth_scroll_delta.y) } else { 0.0 };
+    if let (true, Some(pointer)) = (scroll != 0.0, background.hover_pos()) {
+        let zoom =
+            (state.zoom * (f64::from(scroll) * 0.002).exp()).clamp(*ZOOM_RANGE.start(), *ZOOM_RANGE.end());
+        // Keep the plan point under the pointer where it is.
+        let from_centre = pointer - background.rect.center() - state.pan_pt;
+        state.pan_pt = pointer - background.rect.center() - from_centre * (zoom / state.zoom) as f32;
+        state.zoom = zoom;
+    }
+}
+
 /// The snap choices and the corner buttons above the drawing.
 fn header_ui(
     ui: &mut egui::Ui,
@@ -217,12 +252,19 @@ fn header_ui(
         }
         ui.checkbox(&mut state.square, "Square and 45°")
             .on_hover_text("Walls snap to 0, 45 and 90 degrees from the neighbouring corners");
+        if ui.button("Fit").on_hover_text("Show the whole plan (scroll to zoom, drag to move)").clicked() {
+            state.zoom = 1.0;
+            state.pan_pt = Vec2::ZERO;
+        }
         ui.separator();
         let delete = ui.add_enabled(input.selected_corner.is_some(), egui::Button::new("Delete corner"));
         if delete.on_hover_text("Key: Delete").clicked() {
             commands.push(Command::DeleteSelectedCorner);
         }
-        ui.label(egui::RichText::new("Drag a corner to move it; double-click a wall to add one.").weak());
+        ui.label(
+            egui::RichText::new("Drag a corner to move it; double-click a wall to add one; scroll to zoom.")
+                .weak(),
+        );
     });
 }
 
@@ -430,6 +472,19 @@ mod tests {
         assert!(rect.contains(low) && rect.contains(high));
         let back = transform.to_plan(transform.to_screen(DVec2::new(123.0, 45.0)));
         assert!((back - DVec2::new(123.0, 45.0)).length() < 1e-3);
+    }
+
+    #[test]
+    fn zooming_about_a_point_keeps_it_under_the_pointer() {
+        let rect = Rect::from_min_size(Pos2::new(100.0, 50.0), Vec2::new(600.0, 400.0));
+        let fitted = PlanTransform::fit(DVec2::ZERO, DVec2::new(480.0, 240.0), rect);
+        let point = DVec2::new(100.0, 50.0);
+        let pointer = fitted.to_screen(point);
+        // Derivation: doubling the scale about the pointer moves the centre
+        // away from it by the pointer's offset from the centre.
+        let pan = pointer - rect.center() - (pointer - rect.center()) * 2.0;
+        let zoomed = fitted.zoomed(2.0, pan);
+        assert!((zoomed.to_screen(point) - pointer).length() < 1e-3);
     }
 
     #[test]
