@@ -156,6 +156,8 @@ pub fn plan_view_ui(
     let faults = input.derived.problem.as_ref().map(|p| p.walls.clone()).unwrap_or_default();
     let text_colour = ui.visuals().strong_text_color();
     let wall_colour = if ui.visuals().dark_mode { Color32::from_gray(230) } else { Color32::from_gray(30) };
+    // Labels already drawn: a label that would overlap one is left out.
+    let mut placed: Vec<Rect> = Vec::new();
     for wall in 0..wall_count(plan) {
         let Some((a, b)) = wall_ends_in(plan, wall) else { continue };
         let (sa, sb) = (transform.to_screen(a), transform.to_screen(b));
@@ -172,25 +174,35 @@ pub fn plan_view_ui(
         } else {
             painter.line_segment([sa, sb], Stroke::new(width, colour));
         }
-        // Number on the wall, length beside it on the side away from the building.
+        // Number on the wall, length beside it on the side away from the
+        // building; each left out where the wall is too short on screen to
+        // carry it, so a large plan does not drown in labels.
+        let screen_length = (sb - sa).length();
         let middle = sa + (sb - sa) / 2.0;
         let away = away_from_building(plan, wall, sa, sb);
         let number = if gable { format!("{} gable", wall + 1) } else { format!("{}", wall + 1) };
         let badge = painter.layout_no_wrap(number, egui::FontId::proportional(LABEL_SIZE), Color32::WHITE);
         let badge_rect = Rect::from_center_size(middle, badge.size() + Vec2::splat(6.0));
-        painter.rect_filled(
-            badge_rect,
-            4.0,
-            if faults.contains(&wall) { FAULT } else { palette::WALL_BADGE },
-        );
-        painter.galley(badge_rect.min + Vec2::splat(3.0), badge, Color32::WHITE);
+        let selected_or_fault = input.selected_wall == Some(wall) || faults.contains(&wall);
+        if screen_length > badge_rect.width().max(badge_rect.height()) + 2.0 * HANDLE_PT || selected_or_fault
+        {
+            let fill = if faults.contains(&wall) { FAULT } else { palette::WALL_BADGE };
+            painter.rect_filled(badge_rect, 4.0, fill);
+            painter.galley(badge_rect.min + Vec2::splat(3.0), badge, Color32::WHITE);
+        }
         let length = input.units.format(Length::from_inches((b - a).length()));
         let galley = painter.layout_no_wrap(length, egui::FontId::proportional(LABEL_SIZE), text_colour);
         // Stand the text clear of the wall and its number, whichever way the wall runs.
         let half = galley.size() / 2.0;
+        let along = (sb - sa).normalized();
+        let extent_along = along.x.abs() * galley.size().x + along.y.abs() * galley.size().y;
         let clear = 12.0 + away.x.abs() * half.x + away.y.abs() * half.y;
-        let centre = middle + away * clear;
-        painter.galley(centre - half, galley, text_colour);
+        let text_rect = Rect::from_center_size(middle + away * clear, galley.size());
+        let free = !placed.iter().any(|other| other.intersects(text_rect));
+        if (screen_length > extent_along + 8.0 && free) || selected_or_fault {
+            placed.push(text_rect);
+            painter.galley(text_rect.min, galley, text_colour);
+        }
     }
 
     corners_ui(ui, input, state, transform, commands);
@@ -278,6 +290,12 @@ fn corners_ui(
 ) {
     let plan = input.plan;
     let dark = ui.visuals().dark_mode;
+    // Corners closer than a handle on screen are drawn small.
+    let shortest_pt = (0..wall_count(plan))
+        .filter_map(|wall| wall_ends_in(plan, wall))
+        .map(|(a, b)| (transform.to_screen(b) - transform.to_screen(a)).length())
+        .fold(f32::INFINITY, f32::min);
+    let corner_radius = if shortest_pt < HANDLE_PT { 3.5 } else { 6.0 };
     for wall in 0..wall_count(plan) {
         let Some((at, _)) = wall_ends_in(plan, wall) else { continue };
         let centre = transform.to_screen(at);
@@ -287,7 +305,7 @@ fn corners_ui(
         let name = corner_name(plan, wall);
         response.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Button, true, &name));
         let selected = input.selected_corner == Some(wall);
-        let radius = if selected || response.hovered() || response.dragged() { 9.0 } else { 6.0 };
+        let radius = if selected || response.hovered() || response.dragged() { 9.0 } else { corner_radius };
         if selected {
             ui.painter().circle_filled(centre, radius + 4.0, palette::selection(dark));
         }
