@@ -180,12 +180,18 @@ pub fn plan_view_ui(
         let screen_length = (sb - sa).length();
         let middle = sa + (sb - sa) / 2.0;
         let away = away_from_building(plan, wall, sa, sb);
-        let number = if gable { format!("{} gable", wall + 1) } else { format!("{}", wall + 1) };
-        let badge = painter.layout_no_wrap(number, egui::FontId::proportional(LABEL_SIZE), Color32::WHITE);
+        // "3 gable" where it fits, else just the number (the dashed line still marks a gable).
+        let font = egui::FontId::proportional(LABEL_SIZE);
+        let long = if gable { format!("{} gable", wall + 1) } else { format!("{}", wall + 1) };
+        let mut badge = painter.layout_no_wrap(long, font.clone(), Color32::WHITE);
+        if gable && screen_length < badge.size().x + 6.0 + HANDLE_PT {
+            badge = painter.layout_no_wrap(format!("{}", wall + 1), font, Color32::WHITE);
+        }
         let badge_rect = Rect::from_center_size(middle, badge.size() + Vec2::splat(6.0));
         let selected_or_fault = input.selected_wall == Some(wall) || faults.contains(&wall);
-        if screen_length > badge_rect.width().max(badge_rect.height()) + 2.0 * HANDLE_PT || selected_or_fault
-        {
+        let badge_fits = screen_length > badge_rect.width().max(badge_rect.height()) + HANDLE_PT;
+        if (badge_fits && !placed.iter().any(|other| other.intersects(badge_rect))) || selected_or_fault {
+            placed.push(badge_rect);
             let fill = if faults.contains(&wall) { FAULT } else { palette::WALL_BADGE };
             painter.rect_filled(badge_rect, 4.0, fill);
             painter.galley(badge_rect.min + Vec2::splat(3.0), badge, Color32::WHITE);
@@ -196,10 +202,17 @@ pub fn plan_view_ui(
         let half = galley.size() / 2.0;
         let along = (sb - sa).normalized();
         let extent_along = along.x.abs() * galley.size().x + along.y.abs() * galley.size().y;
-        let clear = 12.0 + away.x.abs() * half.x + away.y.abs() * half.y;
-        let text_rect = Rect::from_center_size(middle + away * clear, galley.size());
-        let free = !placed.iter().any(|other| other.intersects(text_rect));
-        if (screen_length > extent_along + 8.0 && free) || selected_or_fault {
+        let clear = 16.0 + away.x.abs() * half.x + away.y.abs() * half.y;
+        // Outside the building first; inside when another label is in the way.
+        let free = |rect: &Rect| !placed.iter().any(|other| other.intersects(*rect));
+        let outside = Rect::from_center_size(middle + away * clear, galley.size());
+        let inside = Rect::from_center_size(middle - away * clear, galley.size());
+        let (text_rect, room) = match (free(&outside), free(&inside)) {
+            (true, _) => (outside, true),
+            (false, true) => (inside, true),
+            (false, false) => (outside, false),
+        };
+        if (screen_length > extent_along + 8.0 && room) || selected_or_fault {
             placed.push(text_rect);
             painter.galley(text_rect.min, galley, text_colour);
         }
