@@ -39,7 +39,7 @@ pub enum GridStep {
 }
 
 /// The plan view's own settings and the drag under way.
-#[derive(Debug, Clone, Default)]
+#[derive(Debug, Clone)]
 pub struct PlanViewState {
     /// The grid corners snap to.
     pub grid: GridStep,
@@ -56,6 +56,22 @@ pub struct PlanViewState {
     zoom: f64,
     /// How far the drawing has been dragged from its fitted place, in points.
     pan_pt: Vec2,
+}
+
+impl Default for PlanViewState {
+    /// On the 1 in (10 mm) grid and square to the neighbours: most walls
+    /// are laid out square.
+    fn default() -> Self {
+        Self {
+            grid: GridStep::Fine,
+            square: true,
+            frozen: None,
+            drag: None,
+            next_group: 0,
+            zoom: 1.0,
+            pan_pt: Vec2::ZERO,
+        }
+    }
 }
 
 /// Closest and farthest zoom: a tenth of the fitted drawing to fifty times it.
