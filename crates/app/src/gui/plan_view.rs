@@ -219,8 +219,10 @@ pub fn plan_view_ui(
         let along = (sb - sa).normalized();
         let extent_along = along.x.abs() * galley.size().x + along.y.abs() * galley.size().y;
         let clear = 16.0 + away.x.abs() * half.x + away.y.abs() * half.y;
-        // Outside the building first; inside when another label is in the way.
-        let free = |rect: &Rect| !placed.iter().any(|other| other.intersects(*rect));
+        // Outside the building first; inside when another label is in the
+        // way or the view's edge would cut it.
+        let free =
+            |label: &Rect| rect.contains_rect(*label) && !placed.iter().any(|other| other.intersects(*label));
         let outside = Rect::from_center_size(middle + away * clear, galley.size());
         let inside = Rect::from_center_size(middle - away * clear, galley.size());
         let (text_rect, room) = match (free(&outside), free(&inside)) {
