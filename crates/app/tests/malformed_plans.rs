@@ -165,3 +165,16 @@ fn a_missing_file_and_a_directory_are_refused_by_name() {
     assert!(message.contains("cannot read"), "{message}");
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+#[test]
+fn a_file_name_holding_a_newline_and_an_escape_stays_on_one_line() {
+    let dir = scratch("name");
+    // A name a downloaded or renamed file can carry; `refusal` checks the
+    // message is one line with no control characters.
+    let path = dir.join("plan\n\u{1b}[31mred.toml");
+    std::fs::write(&path, "format = 1\nunits = \"yards\"\n").unwrap();
+    let message = refusal(&path).unwrap();
+    assert!(message.contains("plan\\n\\u{1b}[31mred.toml"), "{message}");
+    assert!(message.contains("units = \"yards\" is not known"), "{message}");
+    let _ = std::fs::remove_dir_all(&dir);
+}

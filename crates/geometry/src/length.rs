@@ -7,6 +7,8 @@ use std::fmt;
 use std::ops::{Add, Div, Mul, Neg, Sub};
 
 use serde::{Deserialize, Serialize};
+
+use crate::shown::shown;
 use thiserror::Error;
 
 /// Millimetres in one inch, exact by definition (1959 international inch).
@@ -177,7 +179,7 @@ impl Length {
         let lower = trimmed.to_lowercase();
         let inches = parse_inches(&lower, plain_unit).map_err(|fault| fault.into_error(trimmed))?;
         if !inches.is_finite() || inches.abs() > Self::MAX_PARSED_INCHES {
-            return Err(LengthError::TooLarge { text: trimmed.to_string() });
+            return Err(LengthError::TooLarge { text: shown(trimmed) });
         }
         Ok(Length { inches })
     }
@@ -305,7 +307,7 @@ enum Fault {
 
 impl Fault {
     fn into_error(self, text: &str) -> LengthError {
-        let text = text.to_string();
+        let text = shown(text);
         match self {
             Fault::Unreadable(problem) => LengthError::Unreadable { text, problem },
             Fault::ZeroDenominator => LengthError::ZeroDenominator { text },
@@ -343,7 +345,7 @@ fn parse_inches(text: &str, plain_unit: LengthUnit) -> Result<f64, Fault> {
         return Err(Fault::Unreadable(if cursor.rest.is_empty() {
             "there is no number after the sign".to_string()
         } else {
-            format!("expected a number at \"{}\"", cursor.rest)
+            format!("expected a number at \"{}\"", shown(cursor.rest))
         }));
     };
     cursor.skip_blanks();
@@ -382,7 +384,7 @@ fn feet_then_inches(cursor: &mut Cursor<'_>, feet: f64) -> Result<f64, Fault> {
         return Ok(feet * 12.0);
     }
     let Some(inches) = cursor.amount()? else {
-        return Err(Fault::Unreadable(format!("expected inches at \"{}\"", cursor.rest)));
+        return Err(Fault::Unreadable(format!("expected inches at \"{}\"", shown(cursor.rest))));
     };
     cursor.skip_blanks();
     cursor.eat_mark(&INCH_MARKS);
@@ -455,7 +457,7 @@ impl<'a> Cursor<'a> {
         if self.rest.trim().is_empty() {
             Ok(())
         } else {
-            Err(Fault::Unreadable(format!("unexpected \"{}\"", self.rest.trim())))
+            Err(Fault::Unreadable(format!("unexpected \"{}\"", shown(self.rest.trim()))))
         }
     }
 
@@ -494,7 +496,10 @@ impl<'a> Cursor<'a> {
         let is_whole = !first_text.contains('.');
         if self.eat("/") {
             let Some(denominator_text) = self.digits() else {
-                return Err(Fault::Unreadable(format!("the fraction {first_text}/ has no denominator")));
+                return Err(Fault::Unreadable(format!(
+                    "the fraction {}/ has no denominator",
+                    shown(first_text)
+                )));
             };
             if !is_whole {
                 return Err(Fault::Unreadable(format!(
@@ -518,7 +523,10 @@ impl<'a> Cursor<'a> {
             && probe.eat("/")
         {
             let Some(denominator_text) = probe.digits() else {
-                return Err(Fault::Unreadable(format!("the fraction {numerator_text}/ has no denominator")));
+                return Err(Fault::Unreadable(format!(
+                    "the fraction {}/ has no denominator",
+                    shown(numerator_text)
+                )));
             };
             let numerator = parse_decimal(numerator_text)?;
             let denominator = parse_decimal(denominator_text)?;

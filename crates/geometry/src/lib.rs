@@ -31,6 +31,7 @@ pub mod rafter_table;
 pub mod random_outline;
 pub mod roof;
 pub mod roof_check;
+pub mod shown;
 
 pub use compound_cut::{CompoundCut, CutAngles, CutWarning, MiterSetting, SquareFigures};
 pub use framing::{Frame, FramingError, FramingSettings, Member, MemberKind, frame_roof};

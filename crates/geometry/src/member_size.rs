@@ -4,6 +4,7 @@
 use serde::Serialize;
 use thiserror::Error;
 
+use crate::shown::shown;
 use crate::{Length, LengthError, LengthStyle, LengthUnit};
 
 /// A member's cross-section: thickness (the narrow face) and depth.
@@ -99,7 +100,7 @@ impl MemberSize {
             return Err(MemberSizeError::Empty);
         }
         let Some((thickness_text, depth_text)) = trimmed.split_once(SEPARATORS) else {
-            return Err(MemberSizeError::NoSeparator { text: trimmed.to_string() });
+            return Err(MemberSizeError::NoSeparator { text: shown(trimmed) });
         };
         let (thickness_text, depth_text) = (thickness_text.trim(), depth_text.trim());
         let whole = |s: &str| !s.is_empty() && s.chars().all(|c| c.is_ascii_digit());
@@ -119,7 +120,7 @@ impl MemberSize {
                 }
             }
             if plan_unit == LengthUnit::Inch {
-                return Err(MemberSizeError::UnknownNominal { text: trimmed.to_string() });
+                return Err(MemberSizeError::UnknownNominal { text: shown(trimmed) });
             }
         }
 
@@ -135,7 +136,7 @@ impl MemberSize {
         };
         let side = |side: &'static str, part: &str| {
             Length::parse(part, plan_unit).map_err(|source| MemberSizeError::Side {
-                text: trimmed.to_string(),
+                text: shown(trimmed),
                 side,
                 source,
             })
@@ -166,11 +167,11 @@ impl MemberSize {
         for (side, value) in [("thickness", thickness), ("depth", depth)] {
             let usable = value.inches().is_finite() && value.inches() > 0.0;
             if !usable {
-                return Err(MemberSizeError::NotPositive { text: text.to_string(), side });
+                return Err(MemberSizeError::NotPositive { text: shown(text), side });
             }
         }
         if thickness > depth {
-            return Err(MemberSizeError::ThicknessOverDepth { text: text.to_string() });
+            return Err(MemberSizeError::ThicknessOverDepth { text: shown(text) });
         }
         let name = if metric {
             format!("{:.0}x{:.0} mm", thickness.mm(), depth.mm())

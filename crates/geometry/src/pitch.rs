@@ -5,6 +5,8 @@ use std::f64::consts::FRAC_PI_2;
 use std::fmt;
 
 use serde::{Deserialize, Serialize};
+
+use crate::shown::shown;
 use thiserror::Error;
 
 use crate::length::parse_plain_decimal;
@@ -126,22 +128,22 @@ impl Pitch {
                     ));
                 };
                 if rise < 0.0 || run < 0.0 {
-                    return Err(PitchError::Negative { text: trimmed.to_string() });
+                    return Err(PitchError::Negative { text: shown(trimmed) });
                 }
                 if run == 0.0 {
-                    return Err(PitchError::ZeroRun { text: trimmed.to_string() });
+                    return Err(PitchError::ZeroRun { text: shown(trimmed) });
                 }
                 return Self::checked_ratio(rise / run, trimmed);
             }
         }
         if parse_plain_decimal(&lower).is_some() {
-            return Err(PitchError::BareNumber { text: trimmed.to_string() });
+            return Err(PitchError::BareNumber { text: shown(trimmed) });
         }
         Err(unreadable(trimmed, "no / , : , in or deg was found"))
     }
 
     fn checked_ratio(rise_per_run: f64, text: &str) -> Result<Pitch, PitchError> {
-        let text = text.to_string();
+        let text = shown(text);
         if !rise_per_run.is_finite() {
             return Err(if rise_per_run == f64::INFINITY {
                 PitchError::TooSteep { text }
@@ -164,7 +166,7 @@ impl Pitch {
     }
 
     fn checked_degrees(degrees: f64, text: &str) -> Result<Pitch, PitchError> {
-        let owned = text.to_string();
+        let owned = shown(text);
         if !degrees.is_finite() {
             return Err(PitchError::NotFinite { text: owned });
         }
@@ -233,7 +235,7 @@ fn trimmed_decimals(value: f64, places: usize) -> String {
 }
 
 fn unreadable(text: &str, problem: &str) -> PitchError {
-    PitchError::Unreadable { text: text.to_string(), problem: problem.to_string() }
+    PitchError::Unreadable { text: shown(text), problem: problem.to_string() }
 }
 
 #[cfg(test)]

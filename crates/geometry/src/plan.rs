@@ -30,6 +30,7 @@ use serde::de::{self, Visitor};
 use thiserror::Error;
 
 use crate::framing::{BoardSize, FramingSettings, Heel, HipTop, TailCut};
+use crate::shown::shown;
 use crate::{Length, LengthError, LengthStyle, LengthUnit, Outline, OutlineError, Pitch, PitchError};
 use crate::{MemberSize, Wall, WallRoof};
 
@@ -609,7 +610,7 @@ impl RawPlan {
         let units = match self.units.as_deref() {
             None | Some("in") => LengthUnit::Inch,
             Some("mm") => LengthUnit::Millimetre,
-            Some(other) => return Err(PlanError::UnknownUnits { found: other.to_string() }),
+            Some(other) => return Err(PlanError::UnknownUnits { found: shown(other) }),
         };
         let corners = self.wall.len() + self.courtyard.iter().map(|c| c.wall.len()).sum::<usize>();
         if corners > MAX_PLAN_CORNERS {
@@ -701,11 +702,20 @@ fn parse_length(raw: &RawLength, units: LengthUnit, place: &str) -> Result<Lengt
             .map_err(|source| PlanError::BadLength { place: place.into(), source })?,
     };
     if !length.inches().is_finite() || length.inches().abs() > MAX_COORDINATE_IN {
+        // Past a few miles the feet-and-inches display would run to hundreds
+        // of digits; a rough figure in the plan's units says enough.
+        let given = if length.inches().abs() < 1.0e7 {
+            length.to_string()
+        } else {
+            match units {
+                LengthUnit::Inch => format!("about {:.1e} in", length.inches()),
+                LengthUnit::Millimetre => format!("about {:.1e} mm", length.mm()),
+            }
+        };
         return Err(PlanError::OutOfRange {
             place: place.into(),
             reason: format!(
-                "{} is beyond the largest accepted size of {}",
-                length,
+                "{given} is beyond the largest accepted size of {}",
                 Length::from_inches(MAX_COORDINATE_IN)
             ),
         });
@@ -791,7 +801,7 @@ impl RawFraming {
             {
                 return Err(PlanError::OutOfRange {
                     place: format!("[framing] {name}"),
-                    reason: format!("\"{v}\" is not one of {}", allowed.join(", ")),
+                    reason: format!("\"{}\" is not one of {}", shown(v), allowed.join(", ")),
                 });
             }
         }
