@@ -149,12 +149,16 @@ pub struct Framed {
 
 /// Reads, solves and frames a plan.
 pub fn frame_plan(path: &Path) -> Result<Framed, UserError> {
-    let at = |e: &dyn std::fmt::Display| UserError(format!("{}: {e}", path.display()));
     let plan = load_plan(path)?;
-    let outline = plan.outline().map_err(|e| at(&e))?;
-    let roof = Roof::solve(&outline).map_err(|e| at(&e))?;
-    let settings = plan.framing_settings().map_err(|e| at(&e))?;
-    let frame = frame_roof(&outline, &roof, &settings).map_err(|e| at(&e))?;
+    frame_loaded(plan).map_err(|UserError(e)| UserError(format!("{}: {e}", path.display())))
+}
+
+/// Solves and frames a plan already read (the window's plan).
+pub fn frame_loaded(plan: Plan) -> Result<Framed, UserError> {
+    let outline = plan.outline()?;
+    let roof = Roof::solve(&outline)?;
+    let settings = plan.framing_settings()?;
+    let frame = frame_roof(&outline, &roof, &settings)?;
     Ok(Framed { plan, outline, roof, frame })
 }
 
@@ -181,7 +185,8 @@ fn order_settings(plan: &Plan) -> OrderSettings {
     settings
 }
 
-fn lumber_order(framed: &Framed) -> Result<LumberOrder, UserError> {
+/// The lumber order for a framed plan.
+pub fn lumber_order(framed: &Framed) -> Result<LumberOrder, UserError> {
     let pieces = order_pieces(&framed.frame, style(&framed.plan));
     Ok(order_lumber(&pieces, &order_settings(&framed.plan))?)
 }
@@ -192,8 +197,13 @@ fn write_file(path: &Path, bytes: &[u8]) -> Result<(), UserError> {
 
 fn deck(path: &Path, framed: &Framed) -> Result<pitchframe_cards::CardDeck, UserError> {
     let title = path.file_stem().map_or_else(|| "plan".to_string(), |s| s.to_string_lossy().into_owned());
+    titled_deck(&title, framed)
+}
+
+/// The cut cards of a framed plan, headed `title`, with its lumber order.
+pub fn titled_deck(title: &str, framed: &Framed) -> Result<pitchframe_cards::CardDeck, UserError> {
     let lumber = lumber_order(framed)?;
-    Ok(card_deck(&title, &framed.plan, &framed.outline, &framed.roof, &framed.frame, Some(lumber)))
+    Ok(card_deck(title, &framed.plan, &framed.outline, &framed.roof, &framed.frame, Some(lumber)))
 }
 
 fn list(path: &Path, csv: Option<&Path>) -> Result<String, UserError> {

@@ -4,6 +4,7 @@
 //! whole window (less the 3D drawing) runs under test.
 
 use std::path::{Path, PathBuf};
+use std::sync::mpsc::{Receiver, Sender, channel};
 use std::sync::{Arc, Mutex};
 use std::time::Duration;
 
@@ -13,11 +14,17 @@ use super::ViewPreset;
 use super::camera::OrbitCamera;
 use super::command::{Command, Layout, shortcut_commands};
 use super::derived::Derived;
+use super::desktop_open::{desktop_opener, open_in_desktop};
 use super::dialogs::{Answer, Dialog, PathPurpose, Pending, dialog_ui};
 use super::document::Document;
 use super::edit::{PlanEdit, wall_count};
+use super::export::{
+    CardChoice, ExportJob, ExportKind, ExportSpec, ExportWork, JobOutcome, PictureRequest, Pixels,
+    parse_picture_side, with_extension,
+};
 use super::file_dialog::{
-    choose_plan_to_open, choose_plan_to_save, native_dialog_available, with_toml_extension,
+    choose_export_path, choose_plan_to_open, choose_plan_to_save, native_dialog_available,
+    with_toml_extension,
 };
 use super::files::ConfigDir;
 use super::history::History;
@@ -54,6 +61,13 @@ pub enum Notice {
     Error(String),
     /// Something worth saying (a file was saved).
     Info(String),
+    /// A file was written: the message, and the file to open.
+    Written {
+        /// What was written where.
+        text: String,
+        /// The file.
+        path: PathBuf,
+    },
 }
 
 /// Everything the window holds but the GL renderer.
@@ -93,6 +107,18 @@ pub struct AppState {
     /// The folder of the window's own files; `None` keeps nothing (as for
     /// `--picture`).
     pub config: Option<ConfigDir>,
+    /// Whether the desktop's file dialogs are used (else paths are typed).
+    pub native_dialogs: bool,
+    /// Files being written on their own threads.
+    pub jobs: Vec<ExportJob>,
+    /// A picture of the 3D view for the renderer to draw after this frame.
+    pub picture_request: Option<PictureRequest>,
+    /// The 3D view's size on screen in pixels, from the last frame.
+    pub view_px: [u32; 2],
+    /// The program that opens written files and folders.
+    pub opener: String,
+    /// Messages from the desktop's file opener, which may fail late.
+    open_failures: (Sender<String>, Receiver<String>),
     commands: Vec<Command>,
     /// Set once the user has agreed to close.
     close_now: bool,
@@ -144,6 +170,12 @@ impl AppState {
             dialogs,
             notice: None,
             config,
+            native_dialogs: native_dialog_available(),
+            jobs: Vec::new(),
+            picture_request: None,
+            view_px: [1280, 800],
+            opener: desktop_opener().to_owned(),
+            open_failures: channel(),
             commands: Vec::new(),
             close_now: false,
             close_allowed: false,
@@ -204,8 +236,13 @@ impl AppState {
             };
             toolbar_ui(ui, state, &mut self.commands);
         });
+        self.poll_jobs(&ctx);
+        if !self.jobs.is_empty() {
+            egui::Panel::top("jobs").show(ui, |ui| jobs_ui(ui, &self.jobs));
+        }
         if let Some(notice) = self.notice.clone() {
-            egui::Panel::top("notice").show(ui, |ui| notice_ui(ui, &notice, &mut self.notice));
+            egui::Panel::top("notice")
+                .show(ui, |ui| notice_ui(ui, &notice, &mut self.notice, &mut self.commands));
         }
         egui::Panel::bottom("status").show(ui, |ui| {
             let unsaved = if self.document.unsaved() { "  (unsaved changes)" } else { "" };
@@ -276,6 +313,8 @@ impl AppState {
             plan_view_ui(&mut plan_ui, &input, &mut self.plan_view, &mut self.commands);
         }
         if let Some(view_rect) = view_rect {
+            let pixels = |points: f32| (points * ui.ctx().pixels_per_point()).round().max(1.0) as u32;
+            self.view_px = [pixels(view_rect.width()), pixels(view_rect.height())];
             let mut view_ui = ui.new_child(egui::UiBuilder::new().max_rect(view_rect).id_salt("3d view"));
             // The 3D view clears what its clip rect covers: keep it to its half.
             view_ui.set_clip_rect(view_rect);
@@ -300,6 +339,10 @@ impl AppState {
 
     /// Applies every command recorded this frame, in order.
     fn apply_commands(&mut self, ctx: &egui::Context) {
+        if !self.commands.is_empty() {
+            // The frame was drawn before these changes: draw the next one.
+            ctx.request_repaint();
+        }
         for command in std::mem::take(&mut self.commands) {
             self.apply(ctx, command);
         }
@@ -369,6 +412,12 @@ impl AppState {
             Command::ShowKeys => self.dialogs.push(Dialog::Keys),
             Command::ShowAbout => self.dialogs.push(Dialog::About),
             Command::Answer(answer) => self.answer(answer),
+            Command::Export(kind) => self.ask_export(kind),
+            Command::OpenInDesktop(path) => {
+                if let Err(message) = open_in_desktop(&self.opener, &path, self.open_failures.0.clone()) {
+                    self.notice = Some(Notice::Error(message));
+                }
+            }
         }
     }
 
@@ -390,9 +439,29 @@ impl AppState {
                     config.clear_autosave(source.as_deref());
                 }
             }
+            (Dialog::CardOptions(cards), Answer::Continue) => {
+                let spec = ExportSpec { kind: ExportKind::Cards, cards, picture_px: self.view_px };
+                self.choose_export_path(spec);
+            }
+            (Dialog::PictureSize { width, height, window_px, .. }, Answer::Continue) => {
+                let size = parse_picture_side(&width, "width")
+                    .and_then(|w| parse_picture_side(&height, "height").map(|h| [w, h]));
+                match size {
+                    Ok(picture_px) => {
+                        let cards = CardChoice::for_plan(&self.document.plan);
+                        self.choose_export_path(ExportSpec { kind: ExportKind::Picture, cards, picture_px });
+                    }
+                    Err(message) => self
+                        .dialogs
+                        .insert(0, Dialog::PictureSize { width, height, window_px, error: Some(message) }),
+                }
+            }
             (Dialog::TypePath { purpose, text, then }, Answer::PathTyped) => {
                 let path = PathBuf::from(text.trim());
                 match purpose {
+                    PathPurpose::Export(spec) => {
+                        self.start_export(spec, with_extension(path, spec.kind.extension()));
+                    }
                     PathPurpose::Open => {
                         self.open_path(&path);
                     }
@@ -426,7 +495,7 @@ impl AppState {
                 Err(err) => self.notice = Some(Notice::Error(format!("{err:#}"))),
             },
             Pending::Open => {
-                if native_dialog_available() {
+                if self.native_dialogs {
                     if let Some(path) = choose_plan_to_open(self.document.path.as_deref()) {
                         self.open_path(&path);
                     }
@@ -466,7 +535,7 @@ impl AppState {
 
     /// Asks for a file and saves there; then does `then`.
     fn save_as(&mut self, then: Option<Pending>) {
-        if !native_dialog_available() {
+        if !self.native_dialogs {
             let text = self.document.path.as_ref().map(|p| p.display().to_string()).unwrap_or_default();
             self.dialogs.insert(0, Dialog::TypePath { purpose: PathPurpose::SaveAs, text, then });
             return;
@@ -569,6 +638,123 @@ impl AppState {
         self.selected_corner = self.selected_corner.filter(|&wall| wall < walls);
     }
 
+    /// Starts an export: the cards ask for paper first, a picture for its
+    /// size; the rest go straight to asking where.
+    fn ask_export(&mut self, kind: ExportKind) {
+        if kind.needs_frame() {
+            let reason = match (
+                &self.derived.problem,
+                &self.derived.settings_error,
+                &self.derived.scene.frame_error,
+            ) {
+                (Some(problem), _, _) => Some(problem.message.clone()),
+                (None, Some(error), _) | (None, None, Some(error)) => Some(error.clone()),
+                (None, None, None) => None,
+            };
+            if let Some(reason) = reason {
+                self.notice = Some(Notice::Error(format!(
+                    "The {} cannot be made until the plan frames: {reason}",
+                    kind.noun()
+                )));
+                return;
+            }
+        }
+        let cards = CardChoice::for_plan(&self.document.plan);
+        match kind {
+            ExportKind::Cards => self.dialogs.insert(0, Dialog::CardOptions(cards)),
+            ExportKind::Picture => self.dialogs.insert(
+                0,
+                Dialog::PictureSize {
+                    width: self.view_px[0].to_string(),
+                    height: self.view_px[1].to_string(),
+                    window_px: self.view_px,
+                    error: None,
+                },
+            ),
+            _ => self.choose_export_path(ExportSpec { kind, cards, picture_px: self.view_px }),
+        }
+    }
+
+    /// Asks where the file goes (the desktop's dialog, or a typed path).
+    fn choose_export_path(&mut self, spec: ExportSpec) {
+        let name = spec.kind.file_name(&self.document.title());
+        let near = self.document.path.as_deref();
+        if self.native_dialogs {
+            if let Some(path) = choose_export_path(spec.kind, near, &name) {
+                self.start_export(spec, path);
+            }
+            return;
+        }
+        let folder = near
+            .and_then(Path::parent)
+            .filter(|dir| !dir.as_os_str().is_empty())
+            .map(Path::to_path_buf)
+            .or_else(|| std::env::current_dir().ok())
+            .unwrap_or_default();
+        let text = folder.join(name).display().to_string();
+        self.dialogs.insert(0, Dialog::TypePath { purpose: PathPurpose::Export(spec), text, then: None });
+    }
+
+    /// Starts writing the file at `path` on its own thread (a picture waits
+    /// for the renderer to draw it after this frame).
+    fn start_export(&mut self, spec: ExportSpec, path: PathBuf) {
+        if spec.kind == ExportKind::Picture {
+            self.picture_request = Some(PictureRequest { path, size_px: spec.picture_px });
+            return;
+        }
+        let work = ExportWork::FromPlan {
+            kind: spec.kind,
+            plan: Box::new(self.document.plan.clone()),
+            title: self.document.title().trim_end_matches(".toml").to_owned(),
+            cards: spec.cards,
+        };
+        self.jobs.push(ExportJob::start(work, path));
+    }
+
+    /// Hands the picture the renderer drew to a thread that writes it.
+    pub fn write_picture(&mut self, path: PathBuf, pixels: Result<Pixels, String>) {
+        match pixels {
+            Ok(pixels) => self.jobs.push(ExportJob::start(ExportWork::Picture(pixels), path)),
+            Err(reason) => {
+                self.notice = Some(Notice::Error(format!(
+                    "The picture was not written to {}: {reason}",
+                    path.display()
+                )));
+            }
+        }
+    }
+
+    /// Collects the jobs that have ended and says how each went.
+    fn poll_jobs(&mut self, ctx: &egui::Context) {
+        let mut running = Vec::new();
+        for job in std::mem::take(&mut self.jobs) {
+            match job.poll() {
+                None => running.push(job),
+                Some(JobOutcome::Written(summary)) => {
+                    self.notice = Some(Notice::Written {
+                        text: format!("Wrote the {} ({summary}) to {}", job.kind.noun(), job.path.display()),
+                        path: job.path,
+                    });
+                }
+                Some(JobOutcome::Failed(reason)) => {
+                    self.notice = Some(Notice::Error(format!(
+                        "The {} was not written to {}: {reason}",
+                        job.kind.noun(),
+                        job.path.display()
+                    )));
+                }
+            }
+        }
+        self.jobs = running;
+        if let Ok(message) = self.open_failures.1.try_recv() {
+            self.notice = Some(Notice::Error(message));
+        }
+        if !self.jobs.is_empty() {
+            // Nothing else wakes the window when a job ends.
+            ctx.request_repaint_after(Duration::from_millis(100));
+        }
+    }
+
     /// Asks first when the window is closed with unsaved changes.
     fn watch_close(&mut self, ctx: &egui::Context) {
         if !ctx.input(|input| input.viewport().close_requested()) {
@@ -614,18 +800,44 @@ impl AppState {
     }
 }
 
-/// The message across the top of the window, with a button to dismiss it.
-fn notice_ui(ui: &mut egui::Ui, notice: &Notice, slot: &mut Option<Notice>) {
-    ui.horizontal(|ui| {
+/// The message across the top of the window, with a button to dismiss it
+/// (and, for a written file, buttons to open it or its folder).
+fn notice_ui(ui: &mut egui::Ui, notice: &Notice, slot: &mut Option<Notice>, commands: &mut Vec<Command>) {
+    ui.horizontal_wrapped(|ui| {
         let (text, colour) = match notice {
             Notice::Error(text) => (text.as_str(), egui::Color32::from_rgb(220, 30, 30)),
-            Notice::Info(text) => (text.as_str(), ui.visuals().strong_text_color()),
+            Notice::Info(text) | Notice::Written { text, .. } => {
+                (text.as_str(), ui.visuals().strong_text_color())
+            }
         };
         if ui.button("Dismiss").clicked() {
             *slot = None;
         }
+        if let Notice::Written { path, .. } = notice {
+            if ui.button("Open file").clicked() {
+                commands.push(Command::OpenInDesktop(path.clone()));
+            }
+            let folder = path.parent().filter(|dir| !dir.as_os_str().is_empty());
+            if let Some(folder) = folder
+                && ui.button("Open folder").clicked()
+            {
+                commands.push(Command::OpenInDesktop(folder.to_path_buf()));
+            }
+        }
         ui.label(egui::RichText::new(text).color(colour).strong().size(18.0));
     });
+}
+
+/// The files being written, each with a spinner and the seconds so far.
+fn jobs_ui(ui: &mut egui::Ui, jobs: &[ExportJob]) {
+    for job in jobs {
+        ui.horizontal(|ui| {
+            ui.add(egui::Spinner::new().size(20.0));
+            let seconds = job.started.elapsed().as_secs();
+            let text = format!("Writing the {} to {}… {seconds} s", job.kind.noun(), job.path.display());
+            ui.label(egui::RichText::new(text).size(18.0));
+        });
+    }
 }
 
 /// Larger text and buttons than egui's defaults, for reading at arm's

@@ -10,6 +10,7 @@ use glam::DVec2;
 use super::ViewPreset;
 use super::dialogs::Answer;
 use super::edit::PlanEdit;
+use super::export::ExportKind;
 use super::units::DisplayUnits;
 
 /// How the middle of the window is shared between the two views.
@@ -86,6 +87,10 @@ pub enum Command {
     ShowAbout,
     /// The user's answer to the dialog in front.
     Answer(Answer),
+    /// Write a file from the plan or the view, asking first what and where.
+    Export(ExportKind),
+    /// Open a written file or a folder with the desktop's own program.
+    OpenInDesktop(PathBuf),
 }
 
 /// The menus of the menu bar.
@@ -97,6 +102,8 @@ pub enum Menu {
     Edit,
     /// Views, units, colours.
     View,
+    /// Cut cards, lists, the model and pictures.
+    Export,
     /// Safety, keys, about.
     Help,
 }
@@ -175,6 +182,16 @@ pub const MENU_ENTRIES: &[MenuEntry] = &[
     entry(Menu::View, "Millimetres", Command::SetUnits(DisplayUnits::Millimetres), &[]),
     after_separator(Menu::View, "Light colours", Command::SetTheme(egui::Theme::Light), &[]),
     entry(Menu::View, "Dark colours", Command::SetTheme(egui::Theme::Dark), &[]),
+    entry(Menu::Export, "Cut cards (PDF)…", Command::Export(ExportKind::Cards), &[key(CTRL, Key::P)]),
+    entry(Menu::Export, "Cut list (CSV)…", Command::Export(ExportKind::CutList), &[]),
+    entry(Menu::Export, "Lumber order (CSV)…", Command::Export(ExportKind::LumberOrder), &[]),
+    entry(Menu::Export, "3D frame (glTF .glb)…", Command::Export(ExportKind::Model), &[]),
+    after_separator(
+        Menu::Export,
+        "Picture of this view (PNG)…",
+        Command::Export(ExportKind::Picture),
+        &[key(CTRL_SHIFT, Key::P)],
+    ),
     entry(Menu::Help, "Safety", Command::ShowSafety, &[key(Modifiers::NONE, Key::F1)]),
     entry(Menu::Help, "Keys", Command::ShowKeys, &[]),
     entry(Menu::Help, "About Pitchframe", Command::ShowAbout, &[]),

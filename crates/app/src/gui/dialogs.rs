@@ -6,9 +6,11 @@
 use std::path::PathBuf;
 
 use egui::RichText;
+use pitchframe_cards::Paper;
 use pitchframe_geometry::Plan;
 
 use super::command::MENU_ENTRIES;
+use super::export::{CardChoice, ExportSpec, MAX_PICTURE_SIDE_PX};
 use super::file_dialog::NO_DIALOG_MESSAGE;
 use super::safety::safety_ui;
 
@@ -32,6 +34,8 @@ pub enum PathPurpose {
     Open,
     /// Where to save the plan.
     SaveAs,
+    /// Where to write an exported file.
+    Export(ExportSpec),
 }
 
 /// A dialog waiting for the user.
@@ -63,6 +67,19 @@ pub enum Dialog {
     Keys,
     /// What the program is.
     About,
+    /// Paper and cards a page for the cut cards.
+    CardOptions(CardChoice),
+    /// The size of a picture of the 3D view, typed in pixels.
+    PictureSize {
+        /// Width as typed.
+        width: String,
+        /// Height as typed.
+        height: String,
+        /// The 3D view's own size on screen, in pixels.
+        window_px: [u32; 2],
+        /// Why the last size given could not be used.
+        error: Option<String>,
+    },
 }
 
 /// The user's answer to the dialog in front.
@@ -76,6 +93,8 @@ pub enum Answer {
     Restore,
     /// Use the path typed.
     PathTyped,
+    /// Go on with what was chosen in the dialog.
+    Continue,
     /// Close the dialog and do nothing.
     Close,
 }
@@ -127,8 +146,9 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
             }
             Dialog::TypePath { purpose, text, .. } => {
                 let (title, action) = match purpose {
-                    PathPurpose::Open => ("Open a plan", "Open"),
-                    PathPurpose::SaveAs => ("Save the plan", "Save"),
+                    PathPurpose::Open => ("Open a plan".to_owned(), "Open"),
+                    PathPurpose::SaveAs => ("Save the plan".to_owned(), "Save"),
+                    PathPurpose::Export(spec) => (format!("Write the {}", spec.kind.noun()), "Write"),
                 };
                 ui.heading(title);
                 ui.label(NO_DIALOG_MESSAGE);
@@ -165,6 +185,72 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
                 if ui.button("Close").clicked() {
                     answer = Some(Answer::Close);
                 }
+            }
+            Dialog::CardOptions(choice) => {
+                ui.heading("Print cut cards");
+                ui.label("One card for each member, with a cover sheet of the roof and the cautions.");
+                ui.horizontal(|ui| {
+                    ui.label(RichText::new("Paper").strong());
+                    for (paper, name) in [(Paper::Letter, "Letter"), (Paper::A4, "A4")] {
+                        ui.selectable_value(&mut choice.paper, paper, RichText::new(name).size(18.0));
+                    }
+                });
+                ui.horizontal(|ui| {
+                    ui.label(RichText::new("Cards a page").strong());
+                    for per_page in [1u8, 2, 4] {
+                        let name = RichText::new(per_page.to_string()).size(18.0);
+                        ui.selectable_value(&mut choice.per_page, per_page, name);
+                    }
+                });
+                ui.horizontal(|ui| {
+                    if ui.button(RichText::new("Choose where to save…").size(18.0)).clicked() {
+                        answer = Some(Answer::Continue);
+                    }
+                    if ui.button("Cancel").clicked() {
+                        answer = Some(Answer::Close);
+                    }
+                });
+            }
+            Dialog::PictureSize { width, height, window_px, error } => {
+                ui.heading("Picture of this view");
+                ui.label(format!(
+                    "Draws the 3D view as it is now into a PNG. The view on screen is {} x {} pixels; \
+                     up to {MAX_PICTURE_SIDE_PX} a side.",
+                    window_px[0], window_px[1]
+                ));
+                ui.horizontal(|ui| {
+                    for (text, shown, name) in
+                        [(&mut *width, "Width", "Picture width"), (&mut *height, "Height", "Picture height")]
+                    {
+                        ui.label(shown);
+                        let field = ui.add(egui::TextEdit::singleline(text).desired_width(80.0));
+                        ui.ctx().accesskit_node_builder(field.id, |node| node.set_label(name));
+                    }
+                    ui.label("pixels");
+                });
+                ui.horizontal(|ui| {
+                    if ui.button("Same as the view").clicked() {
+                        *width = window_px[0].to_string();
+                        *height = window_px[1].to_string();
+                    }
+                    for [w, h] in [[1920u32, 1080u32], [3840, 2160]] {
+                        if ui.button(format!("{w} x {h}")).clicked() {
+                            *width = w.to_string();
+                            *height = h.to_string();
+                        }
+                    }
+                });
+                if let Some(error) = error {
+                    ui.label(RichText::new(error.as_str()).color(egui::Color32::from_rgb(220, 30, 30)).strong());
+                }
+                ui.horizontal(|ui| {
+                    if ui.button(RichText::new("Choose where to save…").size(18.0)).clicked() {
+                        answer = Some(Answer::Continue);
+                    }
+                    if ui.button("Cancel").clicked() {
+                        answer = Some(Answer::Close);
+                    }
+                });
             }
             Dialog::About => {
                 ui.heading("Pitchframe");

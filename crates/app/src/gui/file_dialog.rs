@@ -4,6 +4,8 @@
 
 use std::path::{Path, PathBuf};
 
+use super::export::{ExportKind, with_extension};
+
 /// Why no native dialog could be shown.
 pub const NO_DIALOG_MESSAGE: &str = "This desktop offers no file dialog (no desktop portal and no zenity \
                                      were found); type the file's path here instead.";
@@ -38,6 +40,20 @@ pub fn choose_plan_to_open(near: Option<&Path>) -> Option<PathBuf> {
 pub fn choose_plan_to_save(near: Option<&Path>, name: &str) -> Option<PathBuf> {
     let path = plan_dialog(near).set_title("Save the plan").set_file_name(name).save_file()?;
     Some(with_toml_extension(path))
+}
+
+/// Asks where to write an exported file; `None` if the user cancels. A
+/// name without the kind's ending gets it.
+pub fn choose_export_path(kind: ExportKind, near: Option<&Path>, name: &str) -> Option<PathBuf> {
+    let dialog = rfd::FileDialog::new()
+        .add_filter(kind.filter_name(), &[kind.extension()])
+        .set_title(format!("Write the {}", kind.noun()))
+        .set_file_name(name);
+    let dialog = match near.and_then(Path::parent).filter(|dir| dir.is_dir()) {
+        Some(dir) => dialog.set_directory(dir),
+        None => dialog,
+    };
+    Some(with_extension(dialog.save_file()?, kind.extension()))
 }
 
 /// `path` ending in `.toml`.

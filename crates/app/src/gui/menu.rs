@@ -55,9 +55,13 @@ impl MenuState {
 /// The menu bar.
 pub fn menu_bar_ui(ui: &mut egui::Ui, state: &MenuState, commands: &mut Vec<Command>) {
     egui::MenuBar::new().ui(ui, |ui| {
-        for (menu, name) in
-            [(Menu::File, "File"), (Menu::Edit, "Edit"), (Menu::View, "View"), (Menu::Help, "Help")]
-        {
+        for (menu, name) in [
+            (Menu::File, "File"),
+            (Menu::Edit, "Edit"),
+            (Menu::View, "View"),
+            (Menu::Export, "Export"),
+            (Menu::Help, "Help"),
+        ] {
             ui.menu_button(name, |ui| {
                 for entry in MENU_ENTRIES.iter().filter(|entry| entry.menu == menu) {
                     if entry.separated {

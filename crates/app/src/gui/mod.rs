@@ -14,14 +14,18 @@
 //! `viewport` draws those with three-d inside an egui paint callback,
 //! `side_panel` shows the numbers, `window` is the eframe app holding the
 //! GL renderer, and `picture` saves a screenshot for `--picture`.
+//! `export` writes the cut cards, lists, model and pictures of the view on
+//! threads of their own; `desktop_open` opens what was written.
 
 mod app;
 mod camera;
 mod command;
 mod derived;
+mod desktop_open;
 mod dialogs;
 mod document;
 mod edit;
+mod export;
 mod file_dialog;
 mod files;
 mod frame_timer;

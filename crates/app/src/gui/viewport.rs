@@ -10,12 +10,13 @@ use std::sync::{Arc, Mutex};
 use egui::{PointerButton, Sense};
 use glam::{DVec2, DVec3};
 use three_d::{
-    AmbientLight, Camera, ClearState, ColorMaterial, Context, CpuMaterial, CpuMesh, DirectionalLight, Gm,
-    Indices, LightingModel, Mesh, Object, PhysicalMaterial, Positions, RenderTarget, ScissorBox, Srgba, Vec3,
-    Viewport, degrees,
+    AmbientLight, Camera, ClearState, ColorMaterial, Context, CpuMaterial, CpuMesh, DepthTexture2D,
+    DirectionalLight, Gm, Indices, Interpolation, Light, LightingModel, Mesh, Object, PhysicalMaterial,
+    Positions, RenderTarget, ScissorBox, Srgba, Texture2D, Vec3, Viewport, Wrapping, degrees,
 };
 
 use super::camera::OrbitCamera;
+use super::export::{MAX_PICTURE_SIDE_PX, Pixels};
 use super::palette;
 use super::pick::pick;
 use super::scene::{PartKind, Scene, ScenePiece, Triangles, is_cut_face};
@@ -218,29 +219,23 @@ impl Renderer {
             width: px(clip_px.width_px),
             height: px(clip_px.height_px),
         };
-        let camera = &frame.camera;
-        let (near, far) = camera.clip_range_in();
-        let three_d_camera = Camera::new_perspective(
-            viewport,
-            vec3(camera.eye()),
-            vec3(camera.target),
-            vec3(camera.up()),
-            degrees(
-                camera
-                    .fov_y_for(DVec2::new(f64::from(view_px.width_px), f64::from(view_px.height_px)))
-                    .to_degrees() as f32,
-            ),
-            near as f32,
-            far as f32,
+        let lights = Lights::new(&self.context, &frame.camera);
+        let three_d_camera = three_d_camera(&frame.camera, viewport);
+        target.clear_partially(scissor, lights.clear_state()).render_partially(
+            scissor,
+            &three_d_camera,
+            self.objects(frame.style),
+            &lights.all(),
         );
-        // Light from over the viewer's left shoulder, so the two wall faces
-        // seen from a corner view shade differently.
-        let light_dir = vec3(-camera.right() * 0.5 - camera.up() * 0.3 - DVec3::Z * 0.8);
-        let sun = DirectionalLight::new(&self.context, 2.2, Srgba::WHITE, light_dir);
-        let sky = AmbientLight::new(&self.context, 0.45, Srgba::WHITE);
-        let [r, g, b] = palette::BACKGROUND.map(|c| f32::from(c) / 255.0);
+        // The framebuffer belongs to egui: hand it back rather than let the
+        // render target delete it.
+        let _egui_framebuffer = target.into_framebuffer();
+    }
+}
 
-        let style = frame.style;
+impl Renderer {
+    /// The models shown in `style`, with the picked piece's overlay.
+    fn objects(&self, style: ViewStyle) -> Vec<&dyn Object> {
         let mut objects: Vec<&dyn Object> = self
             .models
             .iter()
@@ -252,16 +247,96 @@ impl Renderer {
             objects.extend(highlight.cuts.iter().map(|gm| gm as &dyn Object));
             objects.extend(highlight.siblings.iter().map(|gm| gm as &dyn Object));
         }
-        target.clear_partially(scissor, ClearState::color_and_depth(r, g, b, 1.0, 1.0)).render_partially(
-            scissor,
-            &three_d_camera,
-            objects,
-            &[&sun, &sky],
-        );
-        // The framebuffer belongs to egui: hand it back rather than let the
-        // render target delete it.
-        let _egui_framebuffer = target.into_framebuffer();
+        objects
     }
+
+    /// Draws the view as `camera` sees it into a picture of `size_px`
+    /// (width, height), off screen, with the same models and lights as the
+    /// window. Needs the window's GL context to be current, as it is while
+    /// the app builds a frame.
+    pub fn picture(
+        &mut self,
+        scene: &Arc<Scene>,
+        camera: &OrbitCamera,
+        style: ViewStyle,
+        picked: Option<usize>,
+        size_px: [u32; 2],
+    ) -> Result<Pixels, String> {
+        let [width, height] = size_px;
+        if width == 0 || height == 0 || width > MAX_PICTURE_SIDE_PX || height > MAX_PICTURE_SIDE_PX {
+            return Err(format!("{width} x {height} pixels is outside 1 to {MAX_PICTURE_SIDE_PX} a side"));
+        }
+        self.upload(scene);
+        let picked = if style.client_view { None } else { picked };
+        self.update_highlight(scene, picked);
+        let colour = Texture2D::new_empty::<[u8; 4]>(
+            &self.context,
+            width,
+            height,
+            Interpolation::Nearest,
+            Interpolation::Nearest,
+            None,
+            Wrapping::ClampToEdge,
+            Wrapping::ClampToEdge,
+        );
+        let depth = DepthTexture2D::new::<f32>(
+            &self.context,
+            width,
+            height,
+            Wrapping::ClampToEdge,
+            Wrapping::ClampToEdge,
+        );
+        let lights = Lights::new(&self.context, camera);
+        let three_d_camera = three_d_camera(camera, Viewport::new_at_origo(width, height));
+        let rgba: Vec<[u8; 4]> = RenderTarget::new(colour.as_color_target(None), depth.as_depth_target())
+            .clear(lights.clear_state())
+            .render(&three_d_camera, self.objects(style), &lights.all())
+            .read_color();
+        Ok(Pixels { width, height, rgba: rgba.into_iter().flatten().collect() })
+    }
+}
+
+/// The sun and sky the view is lit by.
+struct Lights {
+    sun: DirectionalLight,
+    sky: AmbientLight,
+}
+
+impl Lights {
+    fn new(context: &Context, camera: &OrbitCamera) -> Self {
+        // Light from over the viewer's left shoulder, so the two wall faces
+        // seen from a corner view shade differently.
+        let light_dir = vec3(-camera.right() * 0.5 - camera.up() * 0.3 - DVec3::Z * 0.8);
+        Self {
+            sun: DirectionalLight::new(context, 2.2, Srgba::WHITE, light_dir),
+            sky: AmbientLight::new(context, 0.45, Srgba::WHITE),
+        }
+    }
+
+    fn all(&self) -> [&dyn Light; 2] {
+        [&self.sun, &self.sky]
+    }
+
+    /// The background colour and a cleared depth buffer.
+    fn clear_state(&self) -> ClearState {
+        let [r, g, b] = palette::BACKGROUND.map(|c| f32::from(c) / 255.0);
+        ClearState::color_and_depth(r, g, b, 1.0, 1.0)
+    }
+}
+
+/// three-d's camera for the orbit camera drawing into `viewport`.
+fn three_d_camera(camera: &OrbitCamera, viewport: Viewport) -> Camera {
+    let (near, far) = camera.clip_range_in();
+    let size = DVec2::new(f64::from(viewport.width), f64::from(viewport.height));
+    Camera::new_perspective(
+        viewport,
+        vec3(camera.eye()),
+        vec3(camera.target),
+        vec3(camera.up()),
+        degrees(camera.fov_y_for(size).to_degrees() as f32),
+        near as f32,
+        far as f32,
+    )
 }
 
 /// The piece's triangles whose face tag passes `keep`, stood off their

@@ -51,6 +51,18 @@ impl eframe::App for PitchframeApp {
             timer.on_frame(&mut self.state, &ctx);
         }
         self.state.ui(ui, Some(&self.renderer));
+        if let Some(request) = self.state.picture_request.take() {
+            // The window's GL context is current while the frame is built.
+            let pixels = match self.renderer.lock() {
+                Ok(mut renderer) => {
+                    let scene = Arc::clone(&self.state.derived.scene);
+                    let picked = self.state.picked_piece();
+                    renderer.picture(&scene, &self.state.camera, self.state.style, picked, request.size_px)
+                }
+                Err(_) => Err("the 3D view failed earlier and cannot draw".to_owned()),
+            };
+            self.state.write_picture(request.path, pixels);
+        }
         if let Some(picture) = &mut self.picture {
             picture.on_frame(&ctx);
         }

@@ -398,3 +398,136 @@ fn closing_with_unsaved_changes_asks_first() {
         .any(|output| output.commands.contains(&egui::ViewportCommand::Close));
     assert!(closing, "the window did not close after \"Don't save\"");
 }
+
+/// Lets the window run until every file it is writing is done.
+fn wait_for_jobs(harness: &mut Harness<'_, AppState>) {
+    let start = std::time::Instant::now();
+    while !harness.state().jobs.is_empty() {
+        assert!(start.elapsed().as_secs() < 120, "an export has not finished in two minutes");
+        std::thread::sleep(std::time::Duration::from_millis(20));
+        harness.step();
+    }
+    harness.run();
+}
+
+/// The demo window with typed paths in place of the desktop's dialogs.
+fn demo_window_typing_paths(folder: &TempFolder) -> Harness<'static, AppState> {
+    let mut harness = demo_window(folder);
+    harness.state_mut().native_dialogs = false;
+    harness
+}
+
+/// Types `path` into the typed-path dialog and presses its Write button.
+/// Steps rather than runs once the file is asked for: the window keeps
+/// drawing its spinner while the file is written.
+fn write_to(harness: &mut Harness<'_, AppState>, path: &std::path::Path) {
+    harness.get_by_label("File path").click();
+    harness.run();
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::A);
+    harness.get_by_label("File path").type_text(&path.display().to_string());
+    harness.run();
+    harness.get_by_role_and_label(egui::Role::Button, "Write").click();
+    harness.step();
+    harness.step();
+}
+
+#[test]
+fn cut_cards_from_the_export_menu_print_on_the_paper_chosen_and_open_from_the_message() {
+    let folder = TempFolder::new("export-cards");
+    let mut harness = demo_window_typing_paths(&folder);
+    harness.get_by_label("Export").click();
+    harness.run();
+    harness.get_by_role_and_label(egui::Role::Button, "Cut cards (PDF)… Ctrl+P").click();
+    harness.run();
+    harness.get_by_label("A4").click();
+    harness.get_by_label("4").click();
+    harness.run();
+    harness.get_by_label("Choose where to save…").click();
+    harness.run();
+    let path = folder.0.join("demo cards.pdf");
+    write_to(&mut harness, &path);
+    wait_for_jobs(&mut harness);
+
+    let pdf = std::fs::read(&path).unwrap();
+    // PDF files open with "%PDF-" (ISO 32000-1, section 7.5.2).
+    assert!(pdf.starts_with(b"%PDF-"));
+    let text = String::from_utf8_lossy(&pdf);
+    // A4 is 210 x 297 mm (ISO 216) = 595.28 x 841.89 pt at 72 pt an inch.
+    assert!(text.contains("/MediaBox [0 0 595.27") || text.contains("/MediaBox[0 0 595.27"), "not A4");
+    let _ = harness.get_by_label_contains("Wrote the cut cards");
+    let _ = harness.get_by_label_contains(&path.display().to_string());
+
+    // An opener that cannot start is a message, not a crash.
+    harness.state_mut().opener = folder.0.join("no such opener").display().to_string();
+    harness.get_by_label("Open folder").click();
+    harness.run();
+    let _ = harness.get_by_label_contains("no such opener did not start");
+}
+
+#[test]
+fn the_cut_list_lumber_order_and_model_are_written_where_typed() {
+    let folder = TempFolder::new("export-files");
+    let mut harness = demo_window_typing_paths(&folder);
+    for (label, name) in
+        [("Cut list (CSV)…", "list"), ("Lumber order (CSV)…", "order"), ("3D frame (glTF .glb)…", "frame")]
+    {
+        harness.get_by_label("Export").click();
+        harness.run();
+        harness.get_by_role_and_label(egui::Role::Button, label).click();
+        harness.run();
+        // A name without its ending gets it.
+        write_to(&mut harness, &folder.0.join(name));
+        wait_for_jobs(&mut harness);
+    }
+    let list = std::fs::read_to_string(folder.0.join("list.csv")).unwrap();
+    assert!(list.starts_with("label,"), "{list}");
+    let order = std::fs::read_to_string(folder.0.join("order.csv")).unwrap();
+    assert!(order.starts_with("size,board,stock,pieces,offcut"), "{order}");
+    let glb = std::fs::read(folder.0.join("frame.glb")).unwrap();
+    // A binary glTF opens with the magic "glTF" (glTF 2.0 spec, section 4.4.2).
+    assert!(glb.starts_with(b"glTF"));
+    assert!(!harness.state().document.unsaved(), "writing files changes nothing in the plan");
+}
+
+#[test]
+fn a_file_that_cannot_be_written_names_the_path_and_the_reason_and_loses_nothing() {
+    let folder = TempFolder::new("export-bad");
+    let mut harness = demo_window_typing_paths(&folder);
+    type_into(&mut harness, "Wall 1 pitch", "7/12");
+    let edited = harness.state().document.plan.clone();
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::P);
+    harness.run();
+    harness.get_by_label("Choose where to save…").click();
+    harness.run();
+    let path = folder.0.join("no folder here").join("cards.pdf");
+    write_to(&mut harness, &path);
+    wait_for_jobs(&mut harness);
+    let _ = harness.get_by_label_contains(&format!("The cut cards was not written to {}", path.display()));
+    // The system's reason for a missing folder.
+    let _ = harness.get_by_label_contains("No such file or directory");
+    assert_eq!(harness.state().document.plan, edited);
+    assert!(harness.state().document.unsaved());
+    assert!(!path.exists());
+}
+
+#[test]
+fn a_picture_of_the_view_asks_its_size_and_rejects_one_that_is_not_a_number() {
+    let folder = TempFolder::new("export-picture");
+    let mut harness = demo_window_typing_paths(&folder);
+    harness.state_mut().push(Command::Export(super::export::ExportKind::Picture));
+    harness.run();
+    type_into(&mut harness, "Picture width", "wide");
+    harness.get_by_label("Choose where to save…").click();
+    harness.run();
+    let _ = harness.get_by_label("Picture width: \"wide\" is not a whole number of pixels");
+    assert!(harness.state().picture_request.is_none());
+    harness.get_by_label("1920 x 1080").click();
+    harness.run();
+    harness.get_by_label("Choose where to save…").click();
+    harness.run();
+    let path = folder.0.join("view.png");
+    write_to(&mut harness, &path);
+    let request = harness.state().picture_request.clone().expect("a picture was asked for");
+    assert_eq!(request.size_px, [1920, 1080]);
+    assert_eq!(request.path, path);
+}
