@@ -170,7 +170,12 @@ impl Roof {
     /// - **A gable at an inside corner** keeps its vertical face running on
     ///   along its line past the corner until the planes either side meet:
     ///   the plane beyond the corner starts at height 0 there, the one over
-    ///   the gable does not, so the roof steps at a vertical face.
+    ///   the gable does not, so the roof steps at a vertical face. Some
+    ///   step from that corner inward is unavoidable (no other wall's plane
+    ///   is at height 0 there, and the pitched wall's own plane is below the
+    ///   wall line on the gable's side); carried on along the gable's line
+    ///   it is the gable wall framed up above the lower roof, as where a
+    ///   wing's roof dies into a gable end.
     /// - **Part of the plan ringed by gables only** gets no plane:
     ///   [`RoofError::GablesOnly`].
     ///

@@ -15,7 +15,13 @@
 //! - no other wall's plane is lower at a point of a plane where that wall's
 //!   wavefront is known to arrive first (the lower-envelope property; see
 //!   [`RoofDefect::PointLowerOnOtherPlane`] for where this is decided);
-//! - every gable wall has a vertical face standing on it.
+//! - every gable wall has a vertical face standing on it. Where a gable
+//!   meets a pitched wall at an inside corner the face may run on along
+//!   the gable's line past the corner, over the roof beside it (no roof of
+//!   the wall planes can close there otherwise, see
+//!   [`RoofDefect::StepBetweenPlanes`]); a step between two planes is
+//!   accepted only where such a face stands and spans it, and two planes
+//!   on either side of a face need no ridge, hip or valley between them.
 //!
 //! Plan lengths are compared within [`Outline::tolerance`]; heights within
 //! that tolerance times (1 + the steepest pitch), four times over, since a
@@ -159,7 +165,17 @@ pub enum RoofDefect {
         /// Index into `Roof::planes`.
         other: usize,
     },
-    /// Where two planes meet, their heights differ.
+    /// Where two planes meet, their heights differ, and no gable face
+    /// stands there spanning the step.
+    ///
+    /// A step is right in one place only: beside a gable at an inside
+    /// corner. There the pitched wall's plane is at height 0 at the corner,
+    /// while the plane over the gable's top next to the corner is not (the
+    /// corner lies on no other pitched wall's line, and the pitched wall's
+    /// own plane is below the wall line on the gable's side of the corner,
+    /// since the corner is an inside one). So every roof made of the wall
+    /// planes steps somewhere from that corner inward, and it does so at
+    /// the gable's vertical face carried on along the gable's line.
     #[error("planes {plane} and {other} meet at {point} with heights {height} and {other_height}")]
     StepBetweenPlanes {
         /// Index into `Roof::planes`.
@@ -230,7 +246,11 @@ pub enum RoofDefect {
         /// Global wall index.
         wall: usize,
     },
-    /// A gable face that does not stand on its wall.
+    /// A gable face that does not stand on its wall: its first two points
+    /// are not the wall's ends at height 0, a point is off the wall's line
+    /// or below the wall line, or a point carried on past the wall's ends
+    /// is outside the outline or not on the edge of a roof plane at that
+    /// plane's height.
     #[error("gable face {face} does not stand on wall {wall}")]
     GableFaceOffWall {
         /// Index into `Roof::gables`.
@@ -287,6 +307,101 @@ impl Face {
             && p.cmple(self.max).all()
             && ring_contains(&self.points, p)
             && !self.on_boundary(p, tol)
+    }
+}
+
+/// A gable face seen from the side: where it stands in plan along its
+/// wall's line, and its outline in that vertical plane.
+struct GableSpan {
+    /// The wall's first corner and unit direction along the wall.
+    origin: DVec2,
+    unit: DVec2,
+    /// The face's plan extent along the line, from `origin`.
+    lo: f64,
+    hi: f64,
+    /// The face's outline as (distance along the line, height).
+    profile: Vec<(f64, f64)>,
+}
+
+impl GableSpan {
+    /// The span of a gable face whose points all lie on its wall's line.
+    fn new(outline: &[DVec3], a: DVec2, b: DVec2, tol: f64) -> Option<Self> {
+        let unit = (b - a).normalize_or_zero();
+        if unit == DVec2::ZERO || outline.len() < 3 {
+            return None;
+        }
+        let mut profile = Vec::with_capacity(outline.len());
+        for p in outline {
+            if !p.is_finite() || distance_to_line(p.truncate(), a, unit) > tol {
+                return None;
+            }
+            profile.push(((p.truncate() - a).dot(unit), p.z));
+        }
+        let lo = profile.iter().map(|q| q.0).fold(f64::INFINITY, f64::min);
+        let hi = profile.iter().map(|q| q.0).fold(f64::NEG_INFINITY, f64::max);
+        Some(Self { origin: a, unit, lo, hi, profile })
+    }
+
+    /// Where the face stands along its line, or `None` if `p` is off it.
+    fn along(&self, p: DVec2, tol: f64) -> Option<f64> {
+        let s = (p - self.origin).dot(self.unit);
+        (distance_to_line(p, self.origin, self.unit) <= tol && s >= self.lo - tol && s <= self.hi + tol)
+            .then_some(s)
+    }
+
+    /// The lowest and highest point of the face on the plumb line at `s`.
+    fn heights_at(&self, s: f64, tol: f64) -> Option<(f64, f64)> {
+        let n = self.profile.len();
+        let mut range: Option<(f64, f64)> = None;
+        let mut take = |z: f64| {
+            range = Some(range.map_or((z, z), |(lo, hi)| (lo.min(z), hi.max(z))));
+        };
+        for i in 0..n {
+            let (Some(&(s0, z0)), Some(&(s1, z1))) = (self.profile.get(i), self.profile.get((i + 1) % n))
+            else {
+                continue;
+            };
+            if (s0 - s).abs() <= tol {
+                take(z0);
+            }
+            let (a, b) = (s0.min(s1), s0.max(s1));
+            if b - a > tol && s > a && s < b {
+                take(z0 + (z1 - z0) * (s - s0) / (s1 - s0));
+            }
+        }
+        range
+    }
+
+    /// Whether the face stands at `p` and spans both heights there.
+    fn spans(&self, p: DVec2, z1: f64, z2: f64, tol: f64, height_tol: f64) -> bool {
+        let Some(s) = self.along(p, tol) else { return false };
+        self.heights_at(s, tol)
+            .is_some_and(|(lo, hi)| [z1, z2].iter().all(|&z| z >= lo - height_tol && z <= hi + height_tol))
+    }
+
+    /// The part of the plan segment `p -> p + unit * [lo, hi]` (a stretch
+    /// of a plane's edge) that the face stands on, as a length.
+    fn covered(&self, p: DVec2, unit: DVec2, lo: f64, hi: f64, tol: f64) -> Option<(f64, f64)> {
+        let (u, v) = (p + unit * lo, p + unit * hi);
+        let (su, sv) = (self.along_line(u, tol)?, self.along_line(v, tol)?);
+        // Parameter on the plane's edge of the face's two ends.
+        let to_edge = |s: f64| lo + (s - su) / (sv - su) * (hi - lo);
+        if (sv - su).abs() <= f64::MIN_POSITIVE {
+            return None;
+        }
+        let (a, b) = (to_edge(self.lo), to_edge(self.hi));
+        let (a, b) = (a.min(b).max(lo), a.max(b).min(hi));
+        (b > a).then_some((a, b))
+    }
+
+    /// Distance along the line of a point on the line (anywhere on it).
+    fn along_line(&self, p: DVec2, tol: f64) -> Option<f64> {
+        (distance_to_line(p, self.origin, self.unit) <= tol).then(|| (p - self.origin).dot(self.unit))
+    }
+
+    /// The face's plan segment.
+    fn segment(&self) -> (DVec2, DVec2) {
+        (self.origin + self.unit * self.lo, self.origin + self.unit * self.hi)
     }
 }
 
@@ -402,10 +517,10 @@ pub fn check_roof(outline: &Outline, roof: &Roof) -> Vec<RoofDefect> {
     let faces = build_faces(roof, &walls, tol, height_tol, &mut defects);
     check_walls_have_planes(roof, &walls, &mut defects);
     check_coverage(outline, &faces, tol, &mut defects);
-    let neighbours = check_pairs(&faces, tol, height_tol, &mut defects);
+    let spans = check_gables(roof, &walls, &faces, tol, height_tol, &mut defects);
+    let neighbours = check_pairs(&faces, &spans, tol, height_tol, &mut defects);
     check_lines(roof, &faces, &neighbours, tol, height_tol, &mut defects);
-    check_envelope(&faces, &walls, steepest, height_tol, &mut defects);
-    check_gables(roof, &walls, tol, height_tol, &mut defects);
+    check_envelope(&faces, &walls, &spans, steepest, tol, height_tol, &mut defects);
     defects
 }
 
@@ -546,6 +661,7 @@ fn check_coverage(outline: &Outline, faces: &[Face], tol: f64, defects: &mut Vec
 /// index) that share an edge of positive length and are not one plane.
 fn check_pairs(
     faces: &[Face],
+    spans: &[GableSpan],
     tol: f64,
     height_tol: f64,
     defects: &mut Vec<RoofDefect>,
@@ -563,7 +679,7 @@ fn check_pairs(
             if b.min.y > a.max.y + tol || a.min.y > b.max.y + tol {
                 continue;
             }
-            check_pair(a, b, tol, height_tol, defects, &mut neighbours);
+            check_pair(a, b, spans, tol, height_tol, defects, &mut neighbours);
         }
     }
     neighbours
@@ -572,6 +688,7 @@ fn check_pairs(
 fn check_pair(
     a: &Face,
     b: &Face,
+    spans: &[GableSpan],
     tol: f64,
     height_tol: f64,
     defects: &mut Vec<RoofDefect>,
@@ -585,7 +702,8 @@ fn check_pair(
     if overlap {
         defects.push(RoofDefect::PlanesOverlap { plane: a.plane, other: b.plane });
     }
-    // Heights must agree wherever one plane's point lies on the other's edge.
+    // Heights must agree wherever one plane's point lies on the other's
+    // edge, unless a gable face stands there spanning the step.
     let mut stepped = false;
     for (x, y) in [(a, b), (b, a)] {
         for (&p, &z) in x.points.iter().zip(&x.heights) {
@@ -593,7 +711,9 @@ fn check_pair(
                 continue;
             }
             let other_height = y.height_at(p);
-            if (z - other_height).abs() > height_tol {
+            if (z - other_height).abs() > height_tol
+                && !spans.iter().any(|g| g.spans(p, z, other_height, tol, height_tol))
+            {
                 defects.push(RoofDefect::StepBetweenPlanes {
                     plane: x.plane,
                     other: y.plane,
@@ -605,7 +725,7 @@ fn check_pair(
             }
         }
     }
-    if !same_plane(a, b, height_tol) && shared_edge_length(a, b, tol) > 2.0 * tol {
+    if !same_plane(a, b, height_tol) && shared_edge_length(a, b, spans, tol) > 2.0 * tol {
         neighbours.push((a.plane, b.plane));
     }
 }
@@ -625,8 +745,9 @@ fn edges_cross_clearly(a: &Face, b: &Face, tol: f64) -> bool {
     })
 }
 
-/// Total plan length along which an edge of `a` runs on an edge of `b`.
-fn shared_edge_length(a: &Face, b: &Face, tol: f64) -> f64 {
+/// Total plan length along which an edge of `a` runs on an edge of `b`
+/// with no gable face standing between them.
+fn shared_edge_length(a: &Face, b: &Face, spans: &[GableSpan], tol: f64) -> f64 {
     let mut total = 0.0;
     for (_, p, q) in a.edges() {
         let dir = q - p;
@@ -642,7 +763,22 @@ fn shared_edge_length(a: &Face, b: &Face, tol: f64) -> f64 {
             let (t0, t1) = ((r - p).dot(unit), (s - p).dot(unit));
             let lo = t0.min(t1).max(0.0);
             let hi = t0.max(t1).min(len);
-            total += (hi - lo).max(0.0);
+            if hi <= lo {
+                continue;
+            }
+            let mut covered: Vec<(f64, f64)> =
+                spans.iter().filter_map(|g| g.covered(p, unit, lo, hi, tol)).collect();
+            covered.sort_by(|x, y| x.0.total_cmp(&y.0));
+            let mut shared = hi - lo;
+            let mut reach = lo;
+            for (c0, c1) in covered {
+                let start = c0.max(reach);
+                if c1 > start {
+                    shared -= c1 - start;
+                    reach = c1;
+                }
+            }
+            total += shared.max(0.0);
         }
     }
     total
@@ -763,7 +899,9 @@ fn check_lines(
 fn check_envelope(
     faces: &[Face],
     walls: &Walls,
+    spans: &[GableSpan],
     steepest: f64,
+    tol: f64,
     height_tol: f64,
     defects: &mut Vec<RoofDefect>,
 ) {
@@ -796,7 +934,18 @@ fn check_envelope(
                 if !convex {
                     let t = (p - *a).dot(dir) / dir.length_squared();
                     let foot = *a + dir * t;
-                    if !(t > 0.0 && t < 1.0) || lower <= 0.0 || !walls.sees(wall, foot, p) {
+                    // The roof may jump up at a gable face, so the bound
+                    // holds only along a path that keeps clear of every one.
+                    let clear = walls.sees(wall, foot, p)
+                        && spans.iter().all(|g| {
+                            let (c, d) = g.segment();
+                            segments_meet(foot, p, c, d) == Meeting::Apart
+                                && distance_to_segment(p, c, d) > tol
+                                && distance_to_segment(foot, c, d) > tol
+                                && distance_to_segment(c, foot, p) > tol
+                                && distance_to_segment(d, foot, p) > tol
+                        });
+                    if !(t > 0.0 && t < 1.0) || lower <= 0.0 || !clear {
                         continue;
                     }
                 }
@@ -813,12 +962,22 @@ fn check_envelope(
     }
 }
 
-fn check_gables(roof: &Roof, walls: &Walls, tol: f64, height_tol: f64, defects: &mut Vec<RoofDefect>) {
+/// Checks that every gable wall has a face standing on it; returns the
+/// faces that do, for the checks of steps and neighbours.
+fn check_gables(
+    roof: &Roof,
+    walls: &Walls,
+    faces: &[Face],
+    tol: f64,
+    height_tol: f64,
+    defects: &mut Vec<RoofDefect>,
+) -> Vec<GableSpan> {
     for (wall, (line, slope)) in walls.lines.iter().zip(&walls.slopes).enumerate() {
         if slope.is_none() && line.is_some() && !roof.gables.iter().any(|g| g.wall == wall) {
             defects.push(RoofDefect::GableWithoutFace { wall });
         }
     }
+    let mut spans = Vec::new();
     for (face, gable) in roof.gables.iter().enumerate() {
         let off = || RoofDefect::GableFaceOffWall { face, wall: gable.wall };
         let Some(&Some((a, b))) = walls.lines.get(gable.wall) else {
@@ -830,14 +989,25 @@ fn check_gables(roof: &Roof, walls: &Walls, tol: f64, height_tol: f64, defects: 
         };
         let (first, second) = (gable.outline.first(), gable.outline.get(1));
         let ends = (at(first, a) && at(second, b)) || (at(first, b) && at(second, a));
-        let standing = gable
-            .outline
-            .iter()
-            .all(|p| distance_to_segment(p.truncate(), a, b) <= tol && p.z >= -height_tol);
-        if !ends || !standing {
-            defects.push(off());
+        // Past the wall's ends the face stands on the roof beside it: inside
+        // the outline, each corner on the edge of a plane at its height.
+        let standing = gable.outline.iter().all(|p| {
+            let q = p.truncate();
+            if p.z < -height_tol {
+                return false;
+            }
+            if distance_to_segment(q, a, b) <= tol {
+                return true;
+            }
+            (walls.near_boundary(q, tol) || walls.contains(q))
+                && faces.iter().any(|f| f.on_boundary(q, tol) && (f.height_at(q) - p.z).abs() <= height_tol)
+        });
+        match GableSpan::new(&gable.outline, a, b, tol) {
+            Some(span) if ends && standing => spans.push(span),
+            _ => defects.push(off()),
         }
     }
+    spans
 }
 
 #[cfg(test)]
@@ -977,13 +1147,114 @@ mod tests {
         (outline, roof)
     }
 
+    /// A 240 x 200 in house with gable ends (walls 1, 5 and 7) and an
+    /// 80 in wide wing on its right-hand gable end, 120 in long with a
+    /// gable end of its own (wall 3), all pitched walls at 6 in 12, worked
+    /// by hand. The main ridge runs along y = 100 at 0.5 * 100 = 50; the
+    /// wing's along y = 100 at 0.5 * 40 = 20. The wing's planes start at
+    /// height 0 at the inside corners (240, 60) and (240, 140), where the
+    /// main planes are 0.5 * 60 = 30 high, so the main gable face carries
+    /// on along x = 240 above the wing's planes to the wing's ridge: a wing
+    /// whose roof dies into the gable wall.
+    fn gable_wing() -> (Outline, Roof) {
+        let outline = outline(
+            &[
+                (0.0, 0.0),
+                (240.0, 0.0),
+                (240.0, 60.0),
+                (360.0, 60.0),
+                (360.0, 140.0),
+                (240.0, 140.0),
+                (240.0, 200.0),
+                (0.0, 200.0),
+            ],
+            &[1, 3, 5, 7],
+        );
+        let face = |wall, points: &[(f64, f64, f64)]| GableFace {
+            wall,
+            outline: points.iter().map(|&(x, y, z)| DVec3::new(x, y, z)).collect(),
+        };
+        let roof = Roof {
+            planes: vec![
+                plane(0, &[(0.0, 0.0, 0.0), (240.0, 0.0, 0.0), (240.0, 100.0, 50.0), (0.0, 100.0, 50.0)]),
+                plane(
+                    2,
+                    &[(240.0, 60.0, 0.0), (360.0, 60.0, 0.0), (360.0, 100.0, 20.0), (240.0, 100.0, 20.0)],
+                ),
+                plane(
+                    4,
+                    &[(360.0, 140.0, 0.0), (240.0, 140.0, 0.0), (240.0, 100.0, 20.0), (360.0, 100.0, 20.0)],
+                ),
+                plane(6, &[(240.0, 200.0, 0.0), (0.0, 200.0, 0.0), (0.0, 100.0, 50.0), (240.0, 100.0, 50.0)]),
+            ],
+            lines: vec![
+                line(RoofLineKind::Ridge, (0.0, 100.0, 50.0), (240.0, 100.0, 50.0), [0, 6]),
+                line(RoofLineKind::Ridge, (240.0, 100.0, 20.0), (360.0, 100.0, 20.0), [2, 4]),
+            ],
+            gables: vec![
+                face(1, &[(240.0, 0.0, 0.0), (240.0, 60.0, 0.0), (240.0, 100.0, 20.0), (240.0, 100.0, 50.0)]),
+                face(3, &[(360.0, 60.0, 0.0), (360.0, 140.0, 0.0), (360.0, 100.0, 20.0)]),
+                face(
+                    5,
+                    &[(240.0, 140.0, 0.0), (240.0, 200.0, 0.0), (240.0, 100.0, 50.0), (240.0, 100.0, 20.0)],
+                ),
+                face(7, &[(0.0, 200.0, 0.0), (0.0, 0.0, 0.0), (0.0, 100.0, 50.0)]),
+            ],
+        };
+        (outline, roof)
+    }
+
+    #[test]
+    fn a_wing_dying_into_a_gable_face_passes() {
+        let (outline, roof) = gable_wing();
+        assert_eq!(check_roof(&outline, &roof), vec![]);
+    }
+
+    #[test]
+    fn a_step_with_no_gable_face_over_it_is_found() {
+        // The main gable faces cut back to their walls: nothing stands over
+        // the step between the main planes (30 to 50 in) and the wing's
+        // (0 to 20 in) along x = 240, so the planes neither meet nor close.
+        let (outline, mut roof) = gable_wing();
+        roof.gables[0].outline =
+            vec![DVec3::new(240.0, 0.0, 0.0), DVec3::new(240.0, 60.0, 0.0), DVec3::new(240.0, 60.0, 30.0)];
+        roof.gables[2].outline = vec![
+            DVec3::new(240.0, 140.0, 0.0),
+            DVec3::new(240.0, 200.0, 0.0),
+            DVec3::new(240.0, 140.0, 30.0),
+        ];
+        let defects = check_roof(&outline, &roof);
+        assert!(has(&defects, |d| matches!(d, RoofDefect::StepBetweenPlanes { .. })));
+        assert!(has(&defects, |d| matches!(d, RoofDefect::PlanesMeetWithoutLine { .. })));
+    }
+
+    #[test]
+    fn a_gable_face_too_short_for_its_step_is_found() {
+        // The face over the wing stops at 40 in, below the main plane's
+        // 50 in at the wing's ridge, and its corner there is on no plane.
+        let (outline, mut roof) = gable_wing();
+        roof.gables[0].outline[3].z = 40.0;
+        let defects = check_roof(&outline, &roof);
+        assert!(has(&defects, |d| matches!(d, RoofDefect::GableFaceOffWall { face: 0, wall: 1 })));
+        assert!(has(&defects, |d| matches!(d, RoofDefect::StepBetweenPlanes { .. })));
+    }
+
+    #[test]
+    fn a_gable_face_carried_past_an_outside_corner_is_found() {
+        // Wall 7's face carried on 20 in past corner 0, outside the house.
+        let (outline, mut roof) = gable_wing();
+        roof.gables[3].outline.insert(2, DVec3::new(0.0, -20.0, 10.0));
+        let defects = check_roof(&outline, &roof);
+        assert!(has(&defects, |d| matches!(d, RoofDefect::GableFaceOffWall { face: 3, wall: 7 })));
+    }
+
     fn has(defects: &[RoofDefect], pick: impl Fn(&RoofDefect) -> bool) -> bool {
         defects.iter().any(pick)
     }
 
     #[test]
     fn hand_worked_roofs_pass() {
-        for (outline, roof) in [hip_rectangle(), gable_rectangle(), hip_l()] {
+        for (outline, roof) in [hip_rectangle(), gable_rectangle(), hip_l(), gable_wing()] {
             assert_eq!(check_roof(&outline, &roof), vec![]);
         }
     }
