@@ -10,10 +10,11 @@ use glam::DVec2;
 use pitchframe_geometry::LengthStyle;
 
 use crate::drawing::{
-    Area, Fit, SquareHold, bounds, dimension, figure_text, framing_square, length_text, member_view,
-    roof_plan, square_figures, square_hold,
+    Area, Fit, SquareHold, bounds, dimension, framing_square, length_text, member_view, roof_plan,
+    square_figures, square_hold,
 };
 use crate::pdf_page::{BLACK, Forms, GREY, Page, RED, text_width, wrap};
+use crate::square_figure::{degrees_text, figure_unit_in, square_figure_text, square_pair_text};
 use crate::{CardCut, CardDeck, CutAngles, CutFace, MemberCard, MemberView};
 
 /// The smallest type printed anywhere on the cards, points: about the
@@ -104,18 +105,19 @@ struct Hold<'a> {
     on_top: bool,
 }
 
-fn holds(member: &MemberCard) -> Vec<Hold<'_>> {
+fn holds(member: &MemberCard, style: LengthStyle) -> Vec<Hold<'_>> {
+    let unit_in = figure_unit_in(style);
     member
         .cuts
         .iter()
         .filter_map(|cut| {
             let square = cut.square.as_ref()?;
             if let Some(mark) = &cut.mark {
-                return Some(Hold { cut, hold: square_hold(mark, square)?, on_top: false });
+                return Some(Hold { cut, hold: square_hold(mark, square, unit_in)?, on_top: false });
             }
             member.top_view.as_ref()?;
             let mark = cut.top_mark.as_ref()?;
-            Some(Hold { cut, hold: square_hold(mark, square)?, on_top: true })
+            Some(Hold { cut, hold: square_hold(mark, square, unit_in)?, on_top: true })
         })
         .collect()
 }
@@ -134,8 +136,9 @@ fn same_angles(a: &CutAngles, b: &CutAngles) -> bool {
 
 /// Every cut in words at fixed sizes, `width` points wide: one group of
 /// lines per cut.
-fn cut_chunks(member: &MemberCard, width: f64) -> Vec<Vec<Line>> {
-    let drawn: Vec<*const CardCut> = holds(member).iter().map(|hold| hold.cut as *const CardCut).collect();
+fn cut_chunks(member: &MemberCard, width: f64, style: LengthStyle) -> Vec<Vec<Line>> {
+    let drawn: Vec<*const CardCut> =
+        holds(member, style).iter().map(|hold| hold.cut as *const CardCut).collect();
     let mut chunks = Vec::new();
     for (index, cut) in member.cuts.iter().enumerate() {
         let mut out = Vec::new();
@@ -149,10 +152,9 @@ fn cut_chunks(member: &MemberCard, width: f64) -> Vec<Vec<Line>> {
                 pitchframe_geometry::MarkAlong::Against => (square.against, square.figure),
             };
             heading.push_str(&format!(
-                ": square {} & {}, mark along the {} arm",
-                figure_text(other),
-                figure_text(mark),
-                figure_text(mark)
+                ": square {}, mark along the {} arm",
+                square_pair_text(other, mark, style),
+                square_figure_text(mark, style)
             ));
         }
         out.extend(para(&heading, HEADING_PT, true, BLACK, 0.0, width));
@@ -177,29 +179,31 @@ fn cut_chunks(member: &MemberCard, width: f64) -> Vec<Vec<Line>> {
                         );
                     }
                     None => {
+                        let deg = degrees_text;
                         let mut line_words =
-                            format!("lines: on the side face {:.1} deg from square", angles.side_line_deg);
+                            format!("lines: on the side face {} from square", deg(angles.side_line_deg));
                         if angles.top_line_deg > 0.05 {
                             line_words.push_str(&format!(
-                                "; across the top edge {:.1} deg from square (a line, not a saw bevel)",
-                                angles.top_line_deg
+                                "; across the top edge {} from square (a line, not a saw bevel)",
+                                deg(angles.top_line_deg)
                             ));
                         }
                         body(&line_words, &mut out);
                         body(
                             &format!(
-                                "circular saw: on the side face bevel {:.1}; riding the top edge bevel {:.1} deg",
-                                angles.circular_on_face_bevel_deg, angles.circular_on_edge_bevel_deg
+                                "circular saw: on the side face bevel {}; riding the top edge bevel {}",
+                                deg(angles.circular_on_face_bevel_deg),
+                                deg(angles.circular_on_edge_bevel_deg)
                             ),
                             &mut out,
                         );
                         body(
                             &format!(
-                                "miter saw: flat, miter {:.1} bevel {:.1}; on edge, miter {:.1} bevel {:.1} deg",
-                                angles.miter_flat_deg[0],
-                                angles.miter_flat_deg[1],
-                                angles.miter_on_edge_deg[0],
-                                angles.miter_on_edge_deg[1]
+                                "miter saw: flat, miter {} bevel {}; on edge, miter {} bevel {}",
+                                deg(angles.miter_flat_deg[0]),
+                                deg(angles.miter_flat_deg[1]),
+                                deg(angles.miter_on_edge_deg[0]),
+                                deg(angles.miter_on_edge_deg[1])
                             ),
                             &mut out,
                         );
@@ -324,11 +328,11 @@ fn summary_lines(member: &MemberCard, width: f64, continued: bool) -> Vec<String
         format!("{} (continued)", member.kind)
     } else {
         format!(
-            "{} - cut {} - {} - pitch {:.2} deg - lengths along the top edge",
+            "{} - cut {} - {} - pitch {} - lengths along the top edge",
             member.kind,
             member.count,
             member.size,
-            member.pitch_rad.to_degrees()
+            degrees_text(member.pitch_rad.to_degrees())
         )
     };
     let room = width - label_w - text_width("card 00 of 00", MIN_TEXT_PT, false) - 6.0;
@@ -359,7 +363,8 @@ fn header_cells(member: &MemberCard, style: LengthStyle, width: f64) -> (Vec<(DV
 pub(crate) fn layout(member: &MemberCard, deck: &CardDeck, width: f64) -> CardLayout {
     let (_, header_h) = header_cells(member, deck.length_style, width);
     let mut blocks = vec![(Block::Side, SIDE_VIEW_H)];
-    let cells: Vec<Cell> = (0..holds(member).len()).map(Cell::Hold).chain([Cell::Plan]).collect();
+    let cells: Vec<Cell> =
+        (0..holds(member, deck.length_style).len()).map(Cell::Hold).chain([Cell::Plan]).collect();
     for row in cells.chunks(cells_per_row(width)) {
         blocks.push((Block::Figures(row.to_vec()), CLOSE_UP_H));
     }
@@ -375,7 +380,7 @@ pub(crate) fn layout(member: &MemberCard, deck: &CardDeck, width: f64) -> CardLa
         let height = laid.iter().map(|column| column_height(column)).fold(0.0, f64::max);
         blocks.push((Block::Columns(laid), height));
     };
-    for chunk in cut_chunks(member, column_w) {
+    for chunk in cut_chunks(member, column_w, deck.length_style) {
         let height = chunk_height(&chunk);
         if group_h + height > WORDS_BLOCK_MAX_H * columns as f64 && !group.is_empty() {
             flush(&mut group, &mut blocks);
@@ -446,7 +451,7 @@ pub(crate) fn draw_block(
     match block {
         Block::Side => side_elevation(page, member, area, deck.length_style),
         Block::Figures(cells) => {
-            let all = holds(member);
+            let all = holds(member, deck.length_style);
             let per_row = cells_per_row(area.size.x) as f64;
             let w = (area.size.x - (per_row - 1.0) * GAP) / per_row;
             let mut x = area.corner.x;
@@ -459,7 +464,7 @@ pub(crate) fn draw_block(
                 match cell {
                     Cell::Hold(index) => {
                         if let Some(hold) = all.get(*index) {
-                            square_close_up(page, member, hold, cell_area);
+                            square_close_up(page, member, hold, cell_area, deck.length_style);
                         }
                     }
                     Cell::Plan => plan_box(page, forms, deck, member, cell_area),
@@ -571,17 +576,16 @@ fn side_elevation(page: &mut Page, member: &MemberCard, area: Area, style: Lengt
 /// The square held for one cut, close up: the board around it with the
 /// edge it is held on drawn bold and named, the square with both figures
 /// where they meet that edge, and the marked arm in red.
-fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: Area) {
+fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: Area, style: LengthStyle) {
     page.line_width(0.4);
     page.stroke_colour(GREY);
     page.rect(area.corner, area.size, None, true);
     let face = hold.cut.face;
     let caption = format!(
-        "[{}] {}: {} & {}",
+        "[{}] {}: {}",
         face.tag(),
         face.name(),
-        figure_text(hold.hold.other_figure),
-        figure_text(hold.hold.mark_figure)
+        square_pair_text(hold.hold.other_figure, hold.hold.mark_figure, style)
     );
     page.fill_colour(BLACK);
     page.text(DVec2::new(area.corner.x + 2.0, area.top() - HEADING_PT - 1.0), HEADING_PT, true, &caption);
@@ -599,7 +603,7 @@ fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: 
         true,
         edge_words,
     );
-    let hint = format!("mark along the {} arm (red)", figure_text(h.mark_figure));
+    let hint = format!("mark along the {} arm (red)", square_figure_text(h.mark_figure, style));
     page.text(DVec2::new(area.corner.x + 2.0, area.corner.y + 2.5), MIN_TEXT_PT, false, &hint);
     let view: &MemberView = if hold.on_top {
         match &member.top_view {
@@ -639,7 +643,7 @@ fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: 
     framing_square(page, h, fit, HEADING_PT);
     page.restore();
     // The figures outside the clip, so none is cut off at the box's edge.
-    square_figures(page, h, fit, HEADING_PT);
+    square_figures(page, h, fit, HEADING_PT, style);
 }
 
 fn view_low_y(view: &MemberView) -> f64 {

@@ -7,7 +7,7 @@ use serde::Serialize;
 use thiserror::Error;
 
 use crate::card_page::{self, MIN_TEXT_PT};
-use crate::drawing::{Area, Fit, bounds, figure_text, length_text, member_view, roof_plan, tag};
+use crate::drawing::{Area, Fit, bounds, length_text, member_view, roof_plan, tag};
 use crate::pdf_page::{BLACK, Forms, GREY, Page, RED, wrap, write_document};
 use crate::{CardDeck, CutFace, MemberCard};
 
@@ -356,11 +356,15 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
     ));
     let total_area: f64 = summary.planes.iter().map(|plane| plane.eave_area_sq_in).sum();
     for plane in &summary.planes {
+        let pitch = if style == LengthStyle::Millimetres {
+            crate::square_figure::degrees_text(plane.rise_in_12.atan2(12.0).to_degrees())
+        } else {
+            format!("{} in 12", crate::square_figure_text(plane.rise_in_12, style))
+        };
         lines.push(paragraph(
             format!(
-                "Plane on wall {}: {} in 12, {:.1} sq ft to the wall line, {:.1} sq ft with the overhang",
+                "Plane on wall {}: {pitch}, {:.1} sq ft to the wall line, {:.1} sq ft with the overhang",
                 plane.wall_number,
-                figure_text(plane.rise_in_12),
                 plane.area_sq_in / 144.0,
                 plane.eave_area_sq_in / 144.0
             ),

@@ -247,23 +247,28 @@ pub(crate) struct SquareHold {
 
 /// Where the square sits for a cut marked at `mark` with `square`, in view
 /// coordinates: the marked arm runs along the cut line from the edge to the
-/// heel, the other arm square to it back to the same edge.
-pub(crate) fn square_hold(mark: &CutMark, square: &SquareSetting) -> Option<SquareHold> {
+/// heel, the other arm square to it back to the same edge. `unit_in` is the
+/// inches per unit of the square's figures (see `figure_unit_in`).
+pub(crate) fn square_hold(mark: &CutMark, square: &SquareSetting, unit_in: f64) -> Option<SquareHold> {
     let (mark_figure, other_figure) = match square.mark_along {
         MarkAlong::Figure => (square.figure, square.against),
         MarkAlong::Against => (square.against, square.figure),
     };
+    if !(mark_figure.is_finite() && other_figure.is_finite()) {
+        return None;
+    }
     let into = mark.into_board.try_normalize()?;
-    let heel = mark.edge_point + into * mark_figure;
+    let (mark_in, other_in) = (mark_figure * unit_in, other_figure * unit_in);
+    let heel = mark.edge_point + into * mark_in;
     let mark_arm = -into;
     // Of the two arms square to the marked one, the one whose figure lands
     // back on the edge the square is held on.
     let edge = mark.edge_along.try_normalize()?;
-    let off_edge = |arm: DVec2| (heel + arm * other_figure - mark.edge_point).perp_dot(edge).abs();
+    let off_edge = |arm: DVec2| (heel + arm * other_in - mark.edge_point).perp_dot(edge).abs();
     let other_arm = [mark_arm.perp(), -mark_arm.perp()]
         .into_iter()
         .min_by(|a, b| off_edge(*a).total_cmp(&off_edge(*b)))?;
-    let other_point = heel + other_arm * other_figure;
+    let other_point = heel + other_arm * other_in;
     Some(SquareHold {
         heel,
         mark_point: mark.edge_point,
@@ -305,12 +310,18 @@ pub(crate) fn framing_square(page: &mut Page, hold: &SquareHold, fit: Fit, text_
 
 /// The two figures of a held square, written beside the points where they
 /// meet the edge, on the side away from the square's heel.
-pub(crate) fn square_figures(page: &mut Page, hold: &SquareHold, fit: Fit, text_size: f64) {
+pub(crate) fn square_figures(
+    page: &mut Page,
+    hold: &SquareHold,
+    fit: Fit,
+    text_size: f64,
+    style: LengthStyle,
+) {
     let heel = fit.at(hold.heel);
     for (point, figure) in [(hold.mark_point, hold.mark_figure), (hold.other_point, hold.other_figure)] {
         let at = fit.at(point);
         let away = (at - heel).try_normalize().unwrap_or(DVec2::Y);
-        let words = figure_text(figure);
+        let words = crate::square_figure_text(figure, style);
         let width = text_width(&words, text_size, true);
         let centre = at + away * (text_size * 0.9 + 0.25 * width);
         page.rect(
@@ -328,17 +339,6 @@ fn circle(centre: DVec2, radius: f64) -> Vec<DVec2> {
     (0..12)
         .map(|step| centre + DVec2::from_angle(f64::from(step) * std::f64::consts::TAU / 12.0) * radius)
         .collect()
-}
-
-/// A square figure as a framer reads it: to the nearest sixteenth, with a
-/// decimal where it is not a whole sixteenth.
-pub(crate) fn figure_text(figure: f64) -> String {
-    let sixteenths = (figure * 16.0).round();
-    if (sixteenths / 16.0 - figure).abs() < 1e-6 {
-        Length::from_inches(figure).format(LengthStyle::Inches).trim_end_matches('"').to_string()
-    } else {
-        format!("{figure:.2}")
-    }
 }
 
 /// The small roof plan: walls, ridges, hips and valleys, every piece faint,

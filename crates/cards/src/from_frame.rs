@@ -10,6 +10,7 @@ use pitchframe_geometry::{
     SquareSetting,
 };
 
+use crate::square_figure::{SquareUse, degrees_text, figure_unit_in, square_setting};
 use crate::{
     CardCut, CardDeck, CutAngles, CutFace, CutMark, LumberOrder, MemberCard, MemberLengths, MemberView,
     ModelFace, ModelPiece, ModelScene, OrderPiece, ViewFace,
@@ -66,13 +67,15 @@ pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
             length(*limit_in)
         ),
         FramingWarning::BevelBeyondSaw { end, saw, bevel_deg, max_deg, .. } => format!(
-            "the {} cut needs a {bevel_deg:.1} deg bevel on the {}, past its {max_deg:.0} deg: cut the \
+            "the {} cut needs a {} bevel on the {}, past its {}: cut the \
              complement and recut, or use the other saw",
             end_words(*end),
+            degrees_text(*bevel_deg),
             match saw {
                 SawKind::Circular => "circular saw",
                 SawKind::Miter => "miter saw",
-            }
+            },
+            degrees_text(*max_deg)
         ),
         FramingWarning::HipTooShallow { hip, short_by_in, .. } => format!(
             "its cheek cut hangs {} below {hip}: use a deeper {hip} or block under the jack",
@@ -252,6 +255,7 @@ fn cheek_top_mark(
     square: &SquareSetting,
     left: Option<bool>,
     used: &mut Vec<usize>,
+    unit_in: f64,
 ) -> Option<CutMark> {
     let (low, high) = crate::drawing::bounds(&top.outline)?;
     let middle_x = 0.5 * (low.x + high.x);
@@ -285,7 +289,7 @@ fn cheek_top_mark(
                 into_board: (other - edge).try_normalize()?,
                 edge_along: DVec2::X,
             };
-            let hold = crate::drawing::square_hold(&mark, square)?;
+            let hold = crate::drawing::square_hold(&mark, square, unit_in)?;
             let past = (low.x - hold.other_point.x).max(hold.other_point.x - high.x).max(0.0);
             Some((past, mark))
         })
@@ -304,29 +308,39 @@ fn cut_angles(face: &FaceAngles) -> CutAngles {
     }
 }
 
-fn plumb_square(square: [f64; 2], member: &str) -> SquareSetting {
-    SquareSetting {
-        figure: square[1],
-        against: square[0],
-        mark_along: MarkAlong::Figure,
-        setup: format!(
-            "on the {member}'s side hold {} and {:.3} on the same edge; mark along the {:.3} arm",
-            square[0], square[1], square[1]
-        ),
-    }
+/// The square held on a member's side face for a plumb line (marked along
+/// the figure's arm) or a level line (`mark_along` the other arm).
+fn side_square(
+    square: [f64; 2],
+    mark_along: MarkAlong,
+    member: &Member,
+    style: LengthStyle,
+) -> SquareSetting {
+    let use_ = if matches!(member.kind, MemberKind::Hip | MemberKind::Valley) {
+        SquareUse::HipPlumb
+    } else {
+        SquareUse::Plain
+    };
+    let words = kind_words(member.kind);
+    square_setting(square, mark_along, use_, style, |against, figure, mark| {
+        format!(
+            "on the {words}'s side hold {against} and {figure} on the same edge; mark along the {mark} arm"
+        )
+    })
 }
 
 fn angle_settings(face: &FaceAngles) -> Vec<AngleSetting> {
+    let deg = degrees_text;
     let mut out = vec![AngleSetting {
         degrees: face.side_angle_deg,
-        setup: format!("line on the side face {:.1} deg from square to the edge", face.side_angle_deg),
+        setup: format!("line on the side face {} from square to the edge", deg(face.side_angle_deg)),
     }];
     if face.top_edge_angle_deg > 1e-6 {
         out.push(AngleSetting {
             degrees: face.top_edge_angle_deg,
             setup: format!(
-                "line across the top edge {:.1} deg from square (a line angle, not a saw bevel)",
-                face.top_edge_angle_deg
+                "line across the top edge {} from square (a line angle, not a saw bevel)",
+                deg(face.top_edge_angle_deg)
             ),
         });
     }
@@ -334,26 +348,28 @@ fn angle_settings(face: &FaceAngles) -> Vec<AngleSetting> {
         AngleSetting {
             degrees: face.face_bevel_deg,
             setup: format!(
-                "circular saw on the side face along that line: bevel {:.1} deg",
-                face.face_bevel_deg
+                "circular saw on the side face along that line: bevel {}",
+                deg(face.face_bevel_deg)
             ),
         },
         AngleSetting {
             degrees: face.edge_bevel_deg,
-            setup: format!("circular saw riding the top edge: bevel {:.1} deg", face.edge_bevel_deg),
+            setup: format!("circular saw riding the top edge: bevel {}", deg(face.edge_bevel_deg)),
         },
         AngleSetting {
             degrees: face.miter_flat.miter_deg,
             setup: format!(
-                "miter saw, board flat: miter {:.1} deg, bevel {:.1} deg",
-                face.miter_flat.miter_deg, face.miter_flat.bevel_deg
+                "miter saw, board flat: miter {}, bevel {}",
+                deg(face.miter_flat.miter_deg),
+                deg(face.miter_flat.bevel_deg)
             ),
         },
         AngleSetting {
             degrees: face.miter_on_edge.miter_deg,
             setup: format!(
-                "miter saw, board on edge: miter {:.1} deg, bevel {:.1} deg",
-                face.miter_on_edge.miter_deg, face.miter_on_edge.bevel_deg
+                "miter saw, board on edge: miter {}, bevel {}",
+                deg(face.miter_on_edge.miter_deg),
+                deg(face.miter_on_edge.bevel_deg)
             ),
         },
     ]);
@@ -366,7 +382,6 @@ fn card_cuts(
     top: Option<&MemberView>,
     style: LengthStyle,
 ) -> Vec<CardCut> {
-    let words = kind_words(member.kind);
     let depth_in = member.size.depth_in;
     let mut used = Vec::new();
     let length = |inches: f64| Length::from_inches(inches).format(style);
@@ -379,7 +394,7 @@ fn card_cuts(
                 cuts.push(CardCut {
                     face: kind,
                     place,
-                    square: Some(plumb_square(*square, words)),
+                    square: Some(side_square(*square, MarkAlong::Figure, member, style)),
                     settings: angle_settings(face),
                     angles: Some(cut_angles(face)),
                     mark: edge_mark(side, kind, depth_in),
@@ -391,15 +406,18 @@ fn card_cuts(
                 });
             }
             Cut::Cheek { end, square, face, long_point, deduction_in, .. } => {
-                let square = SquareSetting {
-                    figure: square[1],
-                    against: square[0],
-                    mark_along: MarkAlong::Against,
-                    setup: format!(
-                        "on the top edge hold {} and {:.3} on the same edge; mark along the {} arm for the cheek line",
-                        square[0], square[1], square[0]
-                    ),
-                };
+                let square = square_setting(
+                    *square,
+                    MarkAlong::Against,
+                    SquareUse::Plain,
+                    style,
+                    |against, figure, mark| {
+                        format!(
+                            "on the top edge hold {against} and {figure} on the same edge; mark along the {mark} \
+                             arm for the cheek line"
+                        )
+                    },
+                );
                 let top_mark = top.and_then(|top| {
                     cheek_top_mark(
                         top,
@@ -408,6 +426,7 @@ fn card_cuts(
                         &square,
                         None,
                         &mut used,
+                        figure_unit_in(style),
                     )
                 });
                 cuts.push(CardCut {
@@ -426,14 +445,13 @@ fn card_cuts(
             }
             Cut::DoubleCheek { end, left, right, deduction_in, .. } => {
                 for (hand, face) in [("left", left), ("right", right)] {
-                    let square = face.top_edge_square.map(|square| SquareSetting {
-                        figure: square[1],
-                        against: square[0],
-                        mark_along: MarkAlong::Against,
-                        setup: format!(
-                            "on the top edge hold {} and {:.3}; mark along the {} arm",
-                            square[0], square[1], square[0]
-                        ),
+                    let square = face.top_edge_square.map(|square| {
+                        square_setting(square, MarkAlong::Against, SquareUse::Plain, style, |against, figure, mark| {
+                            format!(
+                                "on the top edge hold {against} and {figure} on the same edge; mark along the \
+                                 {mark} arm for the cheek line"
+                            )
+                        })
                     });
                     let top_mark = top.zip(square.as_ref()).and_then(|(top, square)| {
                         cheek_top_mark(
@@ -443,6 +461,7 @@ fn card_cuts(
                             square,
                             Some(hand == "left"),
                             &mut used,
+                            figure_unit_in(style),
                         )
                     });
                     cuts.push(CardCut {
@@ -461,7 +480,7 @@ fn card_cuts(
                 cuts.push(CardCut {
                     face: CutFace::Heel,
                     place: "birdsmouth, plumb on the wall line".into(),
-                    square: Some(plumb_square(*square, words)),
+                    square: Some(side_square(*square, MarkAlong::Figure, member, style)),
                     settings: vec![],
                     angles: None,
                     mark: edge_mark(side, CutFace::Heel, 0.0),
@@ -478,10 +497,7 @@ fn card_cuts(
                 cuts.push(CardCut {
                     face: CutFace::Seat,
                     place: "birdsmouth, level on the plate".into(),
-                    square: Some(SquareSetting {
-                        mark_along: MarkAlong::Against,
-                        ..plumb_square(*square, words)
-                    }),
+                    square: Some(side_square(*square, MarkAlong::Against, member, style)),
                     settings: vec![],
                     angles: None,
                     mark: edge_mark(side, CutFace::Seat, 0.0),
@@ -495,7 +511,7 @@ fn card_cuts(
                     TailCut::Square => "tail, square to the edge".into(),
                     _ => "tail, plumb on the fascia line".into(),
                 },
-                square: Some(plumb_square(*square, words)),
+                square: Some(side_square(*square, MarkAlong::Figure, member, style)),
                 settings: faces.first().map(angle_settings).unwrap_or_default(),
                 angles: faces.first().map(cut_angles),
                 mark: edge_mark(side, CutFace::TailPlumb, depth_in),
@@ -505,10 +521,7 @@ fn card_cuts(
             Cut::Soffit { square, length_in, .. } => cuts.push(CardCut {
                 face: CutFace::TailLevel,
                 place: "tail, level soffit cut".into(),
-                square: Some(SquareSetting {
-                    mark_along: MarkAlong::Against,
-                    ..plumb_square(*square, words)
-                }),
+                square: Some(side_square(*square, MarkAlong::Against, member, style)),
                 settings: vec![],
                 angles: None,
                 mark: edge_mark(side, CutFace::TailLevel, 0.0),
@@ -523,13 +536,15 @@ fn card_cuts(
                     AngleSetting {
                         degrees: *left_deg,
                         setup: format!(
-                            "left side of the top: bevel {left_deg:.1} deg from level across the top"
+                            "left side of the top: bevel {} from level across the top",
+                            degrees_text(*left_deg)
                         ),
                     },
                     AngleSetting {
                         degrees: *right_deg,
                         setup: format!(
-                            "right side of the top: bevel {right_deg:.1} deg from level across the top"
+                            "right side of the top: bevel {} from level across the top",
+                            degrees_text(*right_deg)
                         ),
                     },
                 ],

@@ -29,6 +29,7 @@ mod gltf_export;
 mod member_card;
 mod pdf_page;
 mod polygon_triangles;
+mod square_figure;
 
 pub use card_deck::{CardDeck, PlaneSummary, RoofSummary};
 pub use card_page::{CARD_CAUTION, MIN_TEXT_PT};
@@ -44,3 +45,5 @@ pub use gltf_export::{GltfError, ModelFace, ModelPiece, ModelScene, frame_glb};
 pub use member_card::{
     CardCut, CutAngles, CutFace, CutMark, MemberCard, MemberLengths, MemberView, ViewFace,
 };
+pub use pdf_page::text_width;
+pub use square_figure::square_figure_text;

@@ -46,19 +46,36 @@ fn win_ansi(character: char) -> Option<(u8, u16)> {
     }
 }
 
-/// The width of `text` in points at `size`.
-pub(crate) fn text_width(text: &str, size: f64, bold: bool) -> f64 {
+/// The width of `text` in points at `size` as the cards set it (Helvetica,
+/// or Helvetica-Bold measured 10 % wide).
+pub fn text_width(text: &str, size: f64, bold: bool) -> f64 {
     let thousandths: u32 =
         text.chars().map(|character| u32::from(win_ansi(character).map_or(556, |(_, width)| width))).sum();
     let factor = if bold { BOLD_WIDTH_FACTOR } else { 1.0 };
     f64::from(thousandths) * size / 1000.0 * factor
 }
 
+/// Unit words kept on the line of the number before them.
+const UNITS: [&str; 3] = ["deg", "mm", "%"];
+
 /// Breaks `text` into lines no wider than `width` points at `size`.
 pub(crate) fn wrap(text: &str, width: f64, size: f64, bold: bool) -> Vec<String> {
     let mut lines = Vec::new();
     let mut line = String::new();
+    // A unit stays on the line of its number ("26.6 deg", "173 mm").
+    let mut words: Vec<String> = Vec::new();
     for word in text.split_whitespace() {
+        match words.last_mut() {
+            Some(last)
+                if UNITS.iter().any(|unit| word.trim_end_matches([',', ';', ')', '.', ':']) == *unit) =>
+            {
+                last.push(' ');
+                last.push_str(word);
+            }
+            _ => words.push(word.to_string()),
+        }
+    }
+    for word in &words {
         let candidate = if line.is_empty() { word.to_string() } else { format!("{line} {word}") };
         if text_width(&candidate, size, bold) <= width || line.is_empty() {
             line = candidate;

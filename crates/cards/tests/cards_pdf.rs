@@ -61,9 +61,9 @@ fn every_card_holds_its_label_lengths_and_square_figures() {
             assert!(all.contains(&overall), "overall {overall} of {}", member.label);
         }
         // The 6 in 12 plumb line is set 12 and 6 on the square (trade.md
-        // section 2, common practice); the hip's plumb 17 (16.97) and 6.
+        // section 2, common practice); the hip's plumb 16.97 and 6, read 17 and 6.
         assert!(all.contains("top plumb cut: 12 & 6"), "common plumb figures");
-        assert!(all.contains("16.97 & 6"), "hip plumb figures");
+        assert!(all.contains("17 & 6"), "hip plumb figures");
         assert!(all.contains("WARNING: seat notch"));
         assert!(all.contains("licensed professionals"));
         // Cover (one page for this small job), then each card at least in
