@@ -12,6 +12,7 @@ use pitchframe_geometry::Plan;
 
 use super::ViewPreset;
 use super::camera::OrbitCamera;
+use super::camera_glide::CameraGlide;
 use super::command::{Command, Layout, shortcut_commands};
 use super::derived::Derived;
 use super::desktop_open::{desktop_opener, open_in_desktop};
@@ -28,13 +29,15 @@ use super::file_dialog::{
 };
 use super::files::ConfigDir;
 use super::history::History;
+use super::joint_panel::{member_joints_ui, picked_joint_ui};
+use super::joints::joint_at;
 use super::menu::{MenuState, menu_bar_ui};
 use super::pick::pick;
 use super::plan_view::{PlanViewInput, PlanViewState, plan_view_ui};
 use super::side_panel::side_panel_ui;
 use super::toolbar::{ToolbarState, toolbar_ui};
 use super::units::DisplayUnits;
-use super::viewport::{Renderer, ViewStyle, viewport_ui};
+use super::viewport::{JointMarks, Renderer, ViewStyle, viewport_ui};
 use super::wall_list::{WallListState, wall_list_ui};
 
 /// Seconds between autosaves while there are unsaved changes.
@@ -84,6 +87,10 @@ pub struct AppState {
     pub style: ViewStyle,
     /// The label of the member picked in the 3D view.
     pub picked: Option<String>,
+    /// The joint picked (an index into the scene's joints).
+    pub picked_joint: Option<usize>,
+    /// The camera on its way to a new aim.
+    pub glide: Option<CameraGlide>,
     /// The selected wall (global index).
     pub selected_wall: Option<usize>,
     /// The selected corner (the wall starting there).
@@ -160,6 +167,8 @@ impl AppState {
             camera,
             style: ViewStyle::default(),
             picked: None,
+            picked_joint: None,
+            glide: None,
             selected_wall: None,
             selected_corner: None,
             layout: Layout::default(),
@@ -197,6 +206,16 @@ impl AppState {
         self.derived.scene.pieces.iter().position(|piece| piece.label == label)
     }
 
+    /// The joints marked in the 3D view: those of the picked member (in
+    /// the framing view only).
+    pub fn shown_joints(&self) -> Vec<usize> {
+        let Some(label) = self.picked.as_deref().filter(|_| !self.style.client_view) else {
+            return Vec::new();
+        };
+        let joints = &self.derived.scene.joints;
+        (0..joints.len()).filter(|&index| joints[index].involves(label)).collect()
+    }
+
     /// The whole window for one frame; the 3D view is drawn when a
     /// renderer is given, else a plain note stands in its place.
     pub fn ui(&mut self, ui: &mut egui::Ui, renderer: Option<&Arc<Mutex<Renderer>>>) {
@@ -206,6 +225,15 @@ impl AppState {
             set_style(&ctx, self.theme);
         }
         self.commands.extend(shortcut_commands(&ctx));
+        if let Some(glide) = self.glide {
+            let (camera, arrived) = glide.at(ctx.input(|input| input.time));
+            self.camera = camera;
+            if arrived {
+                self.glide = None;
+            } else {
+                ctx.request_repaint();
+            }
+        }
         self.watch_close(&ctx);
         let unsaved_mark = if self.document.unsaved() { " (unsaved)" } else { "" };
         let title = format!("{}{unsaved_mark} - Pitchframe", self.document.title());
@@ -285,7 +313,19 @@ impl AppState {
             ),
             SideTab::Numbers => {
                 let picked = self.picked_piece().and_then(|index| self.derived.scene.pieces.get(index));
-                side_panel_ui(ui, &self.document, &self.derived, self.units, picked);
+                let scene = Arc::clone(&self.derived.scene);
+                let (units, picked_joint) = (self.units, self.picked_joint);
+                let label = self.picked.clone();
+                let commands = &mut self.commands;
+                side_panel_ui(
+                    ui,
+                    &self.document,
+                    &self.derived,
+                    units,
+                    picked,
+                    |ui| picked_joint_ui(ui, &scene, units, picked_joint),
+                    |ui| member_joints_ui(ui, &scene, units, label.as_deref(), picked_joint, commands),
+                );
             }
         }
     }
@@ -322,8 +362,20 @@ impl AppState {
                 Some(renderer) => {
                     let picked = self.picked_piece();
                     let scene = Arc::clone(&self.derived.scene);
-                    let input =
-                        viewport_ui(&mut view_ui, renderer, &scene, &mut self.camera, self.style, picked);
+                    let marks = JointMarks { shown: self.shown_joints(), picked: self.picked_joint };
+                    let input = viewport_ui(
+                        &mut view_ui,
+                        renderer,
+                        &scene,
+                        &mut self.camera,
+                        self.style,
+                        picked,
+                        &marks,
+                    );
+                    if input.moved_camera {
+                        // The user took the camera: stop gliding it.
+                        self.glide = None;
+                    }
                     // The client view hides the frame, so there is nothing to pick.
                     if let Some(at) = input.clicked_at.filter(|_| !self.style.client_view) {
                         self.commands.push(Command::PickAt { at, view_size: input.view_size });
@@ -381,16 +433,28 @@ impl AppState {
                 }
             }
             Command::SelectCorner(corner) => self.selected_corner = corner,
-            Command::SetView(view) => self.camera.set_view(view),
+            Command::SetView(view) => {
+                self.glide = None;
+                self.camera.set_view(view);
+            }
             Command::FocusPicked => {
                 let piece = self.picked_piece().and_then(|index| self.derived.scene.pieces.get(index));
                 if let Some((min, max)) = piece.and_then(|piece| piece.triangles.bounds()) {
+                    self.glide = None;
                     self.camera.focus(min, max);
                 }
             }
             Command::SetClientView(on) => self.style.client_view = on,
             Command::ToggleClientView => self.style.client_view = !self.style.client_view,
+            Command::PickJoint(index) => self.pick_joint(ctx, index),
             Command::PickAt { at, view_size } => {
+                let shown = self.shown_joints();
+                if let Some(index) = joint_at(&self.derived.scene.joints, &shown, &self.camera, at, view_size)
+                {
+                    self.pick_joint(ctx, index);
+                    return;
+                }
+                self.picked_joint = None;
                 let ray = self.camera.ray(at, view_size);
                 let scene = &self.derived.scene;
                 self.picked =
@@ -419,6 +483,19 @@ impl AppState {
                 }
             }
         }
+    }
+
+    /// Picks a joint: its cut member is picked too, and the camera glides
+    /// in close on it.
+    fn pick_joint(&mut self, ctx: &egui::Context, index: usize) {
+        let Some(joint) = self.derived.scene.joints.get(index) else { return };
+        self.picked_joint = Some(index);
+        self.picked = Some(joint.joint.members[0].clone());
+        self.side_tab = SideTab::Numbers;
+        let (min, max) = joint.view_box();
+        let mut goal = self.camera;
+        goal.focus(min, max);
+        self.glide = Some(CameraGlide::new(self.camera, goal, ctx.input(|input| input.time)));
     }
 
     /// Acts on the answer to the dialog in front, and closes it.
@@ -600,6 +677,8 @@ impl AppState {
         self.camera =
             OrbitCamera::framing(self.derived.scene.min, self.derived.scene.max, ViewPreset::Corner);
         self.picked = None;
+        self.picked_joint = None;
+        self.glide = None;
         self.selected_wall = None;
         self.selected_corner = None;
         self.wall_list.clear();
@@ -626,6 +705,8 @@ impl AppState {
 
     fn set_plan(&mut self, plan: Plan) {
         self.document.plan = plan;
+        // The joints are numbered afresh with the new frame.
+        self.picked_joint = None;
         let had_nothing = self.derived.scene.parts.is_empty();
         self.derived.update(&self.document.plan);
         if had_nothing && !self.derived.scene.parts.is_empty() {

@@ -73,6 +73,8 @@ pub enum Command {
         /// The view's size.
         view_size: DVec2,
     },
+    /// Pick this joint (an index into the scene's joints) and close in on it.
+    PickJoint(usize),
     /// Share the middle of the window this way.
     SetLayout(Layout),
     /// Show lengths in these units.

@@ -14,11 +14,14 @@
 //! `viewport` draws those with three-d inside an egui paint callback,
 //! `side_panel` shows the numbers, `window` is the eframe app holding the
 //! GL renderer, and `picture` saves a screenshot for `--picture`.
-//! `export` writes the cut cards, lists, model and pictures of the view on
+//! `joints` places the frame's joints in the 3D view (the fit is the
+//! geometry crate's check), `joint_panel` shows them, and `camera_glide`
+//! closes the camera in on a picked one. `export` writes the cut cards, lists, model and pictures of the view on
 //! threads of their own; `desktop_open` opens what was written.
 
 mod app;
 mod camera;
+mod camera_glide;
 mod command;
 mod derived;
 mod desktop_open;
@@ -30,6 +33,8 @@ mod file_dialog;
 mod files;
 mod frame_timer;
 mod history;
+mod joint_panel;
+mod joints;
 mod menu;
 mod palette;
 mod pick;

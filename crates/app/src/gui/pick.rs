@@ -132,6 +132,7 @@ mod tests {
             frame: None,
             frame_error: None,
             pieces: vec![boxed("LOW", 0.0), boxed("HIGH", 20.0)],
+            joints: Vec::new(),
             min: DVec3::ZERO,
             max: DVec3::ONE,
         }

@@ -8,6 +8,7 @@ use pitchframe_geometry::{
     Frame, FramingSettings, MemberKind, Outline, Roof, RoofError, RoofLineKind, frame_roof,
 };
 
+use super::joints::{SceneJoint, scene_joints};
 pub use super::triangles::Triangles;
 use super::walls::wall_triangles;
 
@@ -75,6 +76,8 @@ pub struct Scene {
     pub frame_error: Option<String>,
     /// Every framing piece, in the frame's order.
     pub pieces: Vec<ScenePiece>,
+    /// Every joint of the frame, placed in the view.
+    pub joints: Vec<SceneJoint>,
     /// Lowest corner of the box holding every part.
     pub min: DVec3,
     /// Highest corner of that box.
@@ -116,8 +119,9 @@ impl Scene {
         let pieces: Vec<ScenePiece> =
             frame.iter().flat_map(|frame| &frame.pieces).map(|piece| scene_piece(piece, lift)).collect();
         parts.extend(member_parts(&pieces));
+        let joints = frame.as_ref().map(|frame| scene_joints(frame, lift)).unwrap_or_default();
         let (min, max) = bounds(&parts);
-        Self { parts, roof, roof_error, frame, frame_error, pieces, min, max }
+        Self { parts, roof, roof_error, frame, frame_error, pieces, joints, min, max }
     }
 
     /// A scene with nothing in it, for a plan whose outline never checked.
@@ -129,6 +133,7 @@ impl Scene {
             frame: None,
             frame_error: None,
             pieces: Vec::new(),
+            joints: Vec::new(),
             min: DVec3::ZERO,
             max: DVec3::splat(1.0),
         }

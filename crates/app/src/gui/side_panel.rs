@@ -15,13 +15,17 @@ use super::units::DisplayUnits;
 /// enough to read at arm's length from a laptop on a sawhorse.
 const FIGURE_SIZE: f32 = 22.0;
 
-/// Shows the house, the picked member, the rafter table and the legend.
+/// Shows the house, what `joint_ui` shows of the picked joint, the picked
+/// member, what `joints_ui` shows of its joints, the rafter table and the
+/// legend.
 pub fn side_panel_ui(
     ui: &mut egui::Ui,
     document: &Document,
     derived: &Derived,
     units: DisplayUnits,
     picked: Option<&ScenePiece>,
+    joint_ui: impl FnOnce(&mut egui::Ui),
+    joints_ui: impl FnOnce(&mut egui::Ui),
 ) {
     let scene = &derived.scene;
     egui::ScrollArea::vertical().show(ui, |ui| {
@@ -53,6 +57,7 @@ pub fn side_panel_ui(
             );
         }
         ui.separator();
+        joint_ui(ui);
         match picked {
             Some(piece) => {
                 let member = scene
@@ -71,6 +76,7 @@ pub fn side_panel_ui(
             }
         }
         ui.separator();
+        joints_ui(ui);
         for (index, pitch) in pitches_in(&document.plan).into_iter().enumerate() {
             let table = RafterTable::for_pitch(pitch);
             let title =
@@ -311,8 +317,9 @@ mod tests {
         // The demo's roof pitch (its west end is steeper, at 9 in 12).
         assert_eq!(document.plan.default_pitch.rise_in_12(), 6.0);
         let derived = Derived::new(&document.plan);
-        let harness =
-            Harness::new_ui(|ui| side_panel_ui(ui, &document, &derived, DisplayUnits::FeetInches, None));
+        let harness = Harness::new_ui(|ui| {
+            side_panel_ui(ui, &document, &derived, DisplayUnits::FeetInches, None, |_| {}, |_| {})
+        });
         // Common practice (the rafter table stamped on a framing square,
         // 6 in 12 column): 13.42, 18.00, 17-7/8, 26-13/16, 10-3/4, 11-5/16;
         // the side cuts show to two places, 10.73 and 11.31.
@@ -329,7 +336,7 @@ mod tests {
         let derived = Derived::new(&document.plan);
         let piece = derived.scene.pieces.iter().find(|piece| piece.label == "HJ1").unwrap();
         let harness = Harness::new_ui(|ui| {
-            side_panel_ui(ui, &document, &derived, DisplayUnits::FeetInches, Some(piece));
+            side_panel_ui(ui, &document, &derived, DisplayUnits::FeetInches, Some(piece), |_| {}, |_| {});
         });
         let _ = harness.get_by_label("HJ1  Hip jack");
         let _ = harness.get_by_label("Long point length");

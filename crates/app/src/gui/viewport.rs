@@ -386,11 +386,22 @@ struct FrameInput {
     picked: Option<usize>,
 }
 
+/// The joints marked over the 3D view.
+#[derive(Debug, Clone, Default, PartialEq)]
+pub struct JointMarks {
+    /// Indices into the scene's joints of those marked.
+    pub shown: Vec<usize>,
+    /// The picked joint, drawn larger.
+    pub picked: Option<usize>,
+}
+
 /// What the user did in the 3D view this frame.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ViewportInput {
     /// Where a click landed, from the view's top-left, in points.
     pub clicked_at: Option<DVec2>,
+    /// Whether the user turned, moved or zoomed the camera.
+    pub moved_camera: bool,
     /// The view's size, in points.
     pub view_size: DVec2,
 }
@@ -404,19 +415,24 @@ pub fn viewport_ui(
     camera: &mut OrbitCamera,
     style: ViewStyle,
     picked: Option<usize>,
+    marks: &JointMarks,
 ) -> ViewportInput {
     let (rect, response) = ui.allocate_exact_size(ui.available_size(), Sense::click_and_drag());
     let delta = response.drag_delta();
     let delta = DVec2::new(f64::from(delta.x), f64::from(delta.y));
+    let mut moved_camera = false;
     if response.dragged_by(PointerButton::Primary) {
         camera.orbit(delta);
+        moved_camera = true;
     } else if response.dragged_by(PointerButton::Secondary) || response.dragged_by(PointerButton::Middle) {
         camera.pan(delta, f64::from(rect.height()));
+        moved_camera = true;
     }
     if response.hovered() {
         let scroll = ui.input(|input| input.smooth_scroll_delta.y);
         if scroll != 0.0 {
             camera.zoom(f64::from(scroll));
+            moved_camera = true;
         }
     }
     let clicked_at = response
@@ -453,8 +469,29 @@ pub fn viewport_ui(
     ui.painter().add(egui::PaintCallback { rect, callback: Arc::new(callback) });
     if !style.client_view {
         labels_ui(ui, rect, scene, camera, picked);
+        joint_marks_ui(ui, rect, scene, camera, marks);
     }
-    ViewportInput { clicked_at, view_size: DVec2::new(f64::from(rect.width()), f64::from(rect.height())) }
+    let view_size = DVec2::new(f64::from(rect.width()), f64::from(rect.height()));
+    ViewportInput { clicked_at, moved_camera, view_size }
+}
+
+/// A ring at each marked joint: green when it fits within 1/64 in, red
+/// when not; the picked joint larger.
+fn joint_marks_ui(ui: &egui::Ui, rect: egui::Rect, scene: &Scene, camera: &OrbitCamera, marks: &JointMarks) {
+    let size = DVec2::new(f64::from(rect.width()), f64::from(rect.height()));
+    let painter = ui.painter_at(rect);
+    for &index in &marks.shown {
+        let Some(joint) = scene.joints.get(index) else { continue };
+        let Some(at) = camera.project(joint.at, size) else { continue };
+        let centre = rect.min + egui::vec2(at.x as f32, at.y as f32);
+        let fill = if joint.tight() {
+            egui::Color32::from_rgb(20, 150, 50)
+        } else {
+            egui::Color32::from_rgb(220, 30, 30)
+        };
+        let radius = if marks.picked == Some(index) { 9.0 } else { 6.0 };
+        painter.circle(centre, radius, fill, egui::Stroke::new(2.0, egui::Color32::WHITE));
+    }
 }
 
 /// Member labels over the 3D view, skipping any that would overlap one

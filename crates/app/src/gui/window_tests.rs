@@ -531,3 +531,99 @@ fn a_picture_of_the_view_asks_its_size_and_rejects_one_that_is_not_a_number() {
     assert_eq!(request.size_px, [1920, 1080]);
     assert_eq!(request.path, path);
 }
+
+/// Frames enough for the camera's glide (under half a second) to end.
+fn let_the_camera_glide(harness: &mut Harness<'_, AppState>) {
+    harness.run_steps(40);
+    harness.run();
+}
+
+/// The demo window with `label` picked and the numbers showing.
+fn demo_window_picking(folder: &TempFolder, label: &str) -> Harness<'static, AppState> {
+    let mut harness = demo_window(folder);
+    harness.state_mut().picked = Some(label.to_owned());
+    harness.state_mut().side_tab = super::app::SideTab::Numbers;
+    harness.run();
+    harness
+}
+
+#[test]
+fn a_joint_clicked_in_the_side_panel_brings_the_camera_in_and_shows_its_fit() {
+    let folder = TempFolder::new("joint-panel");
+    let scene = Document::demo().map(|d| super::derived::Derived::new(&d.plan)).unwrap().scene;
+    // The geometry crate's joint check on the demo frame: take its first
+    // joint and the members it joins.
+    let first = scene.joints.first().expect("the demo frame has joints").clone();
+    let [cut, bearing] = first.joint.members.clone();
+    let mut harness = demo_window_picking(&folder, &cut);
+    let far = harness.state().camera.distance_in;
+
+    harness.get_by_label(&format!("{cut} on {bearing}")).click();
+    let_the_camera_glide(&mut harness);
+    let picked = harness.state().picked_joint.expect("a joint is picked");
+    let joint = harness.state().derived.scene.joints[picked].clone();
+    assert_eq!(joint.joint.members, [cut.clone(), bearing.clone()]);
+    // The worst of that pair's joints is the one shown.
+    let worst = scene
+        .joints
+        .iter()
+        .filter(|j| j.joint.members == joint.joint.members)
+        .map(|j| j.joint.max_gap.max(j.joint.max_overlap))
+        .fold(0.0, f64::max);
+    assert_eq!(joint.joint.max_gap.max(joint.joint.max_overlap), worst);
+    // The camera has glided in on the joint.
+    assert!(harness.state().glide.is_none(), "the glide ended");
+    assert!((harness.state().camera.target - joint.at).length() < 1e-9);
+    assert!(harness.state().camera.distance_in < far / 4.0);
+
+    let _ = harness.get_by_label(&format!("Joint: {cut} on {bearing}"));
+    let gap = super::joint_panel::fit_text(harness.state().units, joint.joint.max_gap);
+    let overlap = super::joint_panel::fit_text(harness.state().units, joint.joint.max_overlap);
+    assert!(!harness.query_all_by_label(&gap).collect::<Vec<_>>().is_empty(), "{gap} is not shown");
+    assert!(!harness.query_all_by_label(&overlap).collect::<Vec<_>>().is_empty(), "{overlap} is not shown");
+    // 1/64 in is the joint tolerance (common practice, no source).
+    let tight = joint.joint.max_gap <= 1.0 / 64.0 && joint.joint.max_overlap <= 1.0 / 64.0;
+    assert_eq!(harness.query_by_label("Within 1/64 in").is_some(), tight);
+}
+
+#[test]
+fn a_click_on_a_joints_mark_in_the_3d_view_picks_that_joint() {
+    let folder = TempFolder::new("joint-mark");
+    let scene = Document::demo().map(|d| super::derived::Derived::new(&d.plan)).unwrap().scene;
+    let last = scene.joints.last().expect("the demo frame has joints").clone();
+    let mut harness = demo_window_picking(&folder, &last.joint.members[1]);
+    let view_size = DVec2::new(700.0, 780.0);
+    let camera = harness.state().camera;
+    let at = camera.project(last.at, view_size).expect("the joint is in view");
+    let shown = harness.state().shown_joints();
+    // A click a few points off the mark still finds it.
+    let click = at + DVec2::new(3.0, -2.0);
+    harness.state_mut().push(Command::PickAt { at: click, view_size });
+    let_the_camera_glide(&mut harness);
+    let picked = harness.state().picked_joint.expect("the click picked a joint");
+    let joints = &harness.state().derived.scene.joints;
+    // Measured from the camera the click was made with: the picked mark is
+    // within the 12 pt pick radius, and no other marked joint is nearer.
+    let distance = |index: usize| camera.project(joints[index].at, view_size).unwrap().distance(click);
+    assert!(distance(picked) <= 12.0);
+    assert!(shown.contains(&picked));
+    assert!(shown.iter().all(|&other| distance(other) >= distance(picked)));
+    assert_eq!(harness.state().picked.as_deref(), Some(joints[picked].joint.members[0].as_str()));
+    let _ = harness.get_by_label("Largest gap");
+}
+
+#[test]
+fn a_joint_open_by_more_than_a_64th_says_so_in_red() {
+    let folder = TempFolder::new("joint-open");
+    let mut harness = demo_window(&folder);
+    let mut scene = (*harness.state().derived.scene).clone();
+    let label = scene.joints[0].joint.members[0].clone();
+    // 0.05 in is over 1/64 in = 0.0156 in.
+    scene.joints[0].joint.max_gap = 0.05;
+    harness.state_mut().derived.scene = std::sync::Arc::new(scene);
+    harness.state_mut().picked = Some(label);
+    harness.state_mut().push(Command::PickJoint(0));
+    let_the_camera_glide(&mut harness);
+    let _ = harness.get_by_label("Off by more than 1/64 in: check this joint before cutting");
+    let _ = harness.get_by_label("0.050 in");
+}
