@@ -10,8 +10,8 @@ use glam::DVec2;
 use pitchframe_geometry::LengthStyle;
 
 use crate::drawing::{
-    Area, Fit, SquareHold, bounds, dimension, framing_square, length_text, member_view, roof_plan,
-    square_figures, square_hold,
+    Area, Fit, SquareHold, bounds, dimension, framing_square, length_text, member_view, member_view_avoiding,
+    roof_plan, square_figures, square_hold,
 };
 use crate::pdf_page::{BLACK, Forms, GREY, Page, RED, text_width, wrap};
 use crate::square_figure::{degrees_text, figure_unit_in, square_figure_text, square_pair_text};
@@ -526,8 +526,22 @@ fn side_elevation(page: &mut Page, member: &MemberCard, area: Area, style: Lengt
         area.size.y - base * 2.8 - HEADING_PT * 1.3 - base * 3.2,
     );
     let fit = Fit::into_area(low, high, drawing);
-    member_view(page, view, fit, MIN_TEXT_PT);
     let bottom = fit.at(low).y;
+    let top_y = fit.at(DVec2::new(0.0, member.depth_in)).y.max(fit.at(high).y);
+    // Tags stay off the bands above and below the board where the
+    // dimensions are written.
+    let right = area.corner.x + area.size.x;
+    let far = 1e4;
+    let blocked = vec![
+        (DVec2::new(area.corner.x, top_y + 0.5), DVec2::new(right, area.top())),
+        (area.corner, DVec2::new(right, bottom - 0.5)),
+        // Outside the block altogether.
+        (DVec2::new(-far, area.top()), DVec2::splat(far)),
+        (DVec2::splat(-far), DVec2::new(far, area.corner.y)),
+        (DVec2::splat(-far), DVec2::new(area.corner.x, far)),
+        (DVec2::new(right, -far), DVec2::splat(far)),
+    ];
+    member_view_avoiding(page, view, fit, MIN_TEXT_PT, blocked);
     dimension(
         page,
         DVec2::new(fit.at(low).x, bottom),
@@ -547,7 +561,6 @@ fn side_elevation(page: &mut Page, member: &MemberCard, area: Area, style: Lengt
         let t = (top_edge - mark.edge_point.y) / mark.into_board.y;
         Some(fit.at(mark.edge_point + mark.into_board * t).x)
     };
-    let top_y = fit.at(DVec2::new(0.0, top_edge)).y.max(fit.at(high).y);
     let Some(heel_x) = on_top(CutFace::Heel) else { return };
     if let (Some(top_x), Some(seat_to_top)) = (on_top(CutFace::TopPlumb), member.lengths.seat_to_top_cut_in) {
         dimension(
@@ -581,14 +594,20 @@ fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: 
     page.stroke_colour(GREY);
     page.rect(area.corner, area.size, None, true);
     let face = hold.cut.face;
-    let caption = format!(
-        "[{}] {}: {}",
-        face.tag(),
-        face.name(),
-        square_pair_text(hold.hold.other_figure, hold.hold.mark_figure, style)
-    );
-    page.fill_colour(BLACK);
-    page.text(DVec2::new(area.corner.x + 2.0, area.top() - HEADING_PT - 1.0), HEADING_PT, true, &caption);
+    let name = format!("[{}] {}:", face.tag(), face.name());
+    let pair = square_pair_text(hold.hold.other_figure, hold.hold.mark_figure, style);
+    let text_w = area.size.x - 4.0;
+    // The figures stay together: on the name's line when they fit, else
+    // on their own line below it.
+    let one_line = format!("{name} {pair}");
+    let top_lines = if text_width(&one_line, HEADING_PT, true) <= text_w {
+        para(&one_line, HEADING_PT, true, BLACK, 0.0, text_w)
+    } else {
+        let mut lines = para(&name, HEADING_PT, true, BLACK, 0.0, text_w);
+        lines.extend(para(&pair, HEADING_PT, true, BLACK, 0.0, text_w));
+        lines
+    };
+    let top_h = draw_lines(page, &top_lines, area.corner.x + 2.0, area.top() - 1.0);
     let h = &hold.hold;
     let edge_words = if hold.on_top {
         "on the top edge, from above"
@@ -597,14 +616,11 @@ fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: 
     } else {
         "held on the bottom edge (bold)"
     };
-    page.text(
-        DVec2::new(area.corner.x + 2.0, area.corner.y + 2.5 + MIN_TEXT_PT * LEADING),
-        MIN_TEXT_PT,
-        true,
-        edge_words,
-    );
     let hint = format!("mark along the {} arm (red)", square_figure_text(h.mark_figure, style));
-    page.text(DVec2::new(area.corner.x + 2.0, area.corner.y + 2.5), MIN_TEXT_PT, false, &hint);
+    let mut bottom_lines = para(edge_words, MIN_TEXT_PT, true, BLACK, 0.0, text_w);
+    bottom_lines.extend(para(&hint, MIN_TEXT_PT, false, BLACK, 0.0, text_w));
+    let bottom_h = column_height(&bottom_lines);
+    draw_lines(page, &bottom_lines, area.corner.x + 2.0, area.corner.y + 1.0 + bottom_h);
     let view: &MemberView = if hold.on_top {
         match &member.top_view {
             Some(top) => top,
@@ -613,15 +629,19 @@ fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: 
     } else {
         &member.side_view
     };
-    let Some((low, high)) = bounds(&[h.heel, h.mark_point, h.other_point]) else { return };
-    let pad = DVec2::splat(2.5);
     let drawing = Area::new(
         area.corner.x + 2.0,
-        area.corner.y + MIN_TEXT_PT * LEADING * 2.0 + 3.0,
+        area.corner.y + bottom_h + 2.0,
         area.size.x - 4.0,
-        area.size.y - MIN_TEXT_PT * LEADING * 2.0 - 3.0 - HEADING_PT * 1.5,
+        (area.size.y - bottom_h - top_h - 4.0).max(1.0),
     );
-    let fit = Fit::into_area(low - pad, high + pad, drawing);
+    let fit = if hold.on_top {
+        top_close_up_fit(view, h, drawing)
+    } else {
+        let Some((low, high)) = bounds(&[h.heel, h.mark_point, h.other_point]) else { return };
+        let pad = DVec2::splat(2.5);
+        Fit::into_area(low - pad, high + pad, drawing)
+    };
     page.save();
     page.clip_rect(drawing.corner, drawing.size);
     // The stock runs on past the cut until it is made: its edges dashed
@@ -634,16 +654,40 @@ fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: 
         page.line(DVec2::new(drawing.corner.x, y), DVec2::new(drawing.corner.x + drawing.size.x, y));
     }
     page.dash(&[]);
-    member_view(page, view, fit, MIN_TEXT_PT);
+    // No face tags here: the caption names the cut, and tags would crowd
+    // the square's figures.
+    member_view(page, view, fit, 0.0);
     // The edge the square is held on, bold.
     let edge_y = fit.at(h.mark_point).y;
     page.line_width(1.8);
     page.stroke_colour(BLACK);
     page.line(DVec2::new(drawing.corner.x, edge_y), DVec2::new(drawing.corner.x + drawing.size.x, edge_y));
-    framing_square(page, h, fit, HEADING_PT);
+    framing_square(page, h, fit, hold.on_top);
     page.restore();
-    // The figures outside the clip, so none is cut off at the box's edge.
-    square_figures(page, h, fit, HEADING_PT, style);
+    // The figures inside the drawing's box, where their arms leave it when
+    // the figure's end lies beyond.
+    square_figures(page, h, fit, HEADING_PT, style, drawing);
+}
+
+/// How many times the member's width the top close-up shows across: the
+/// 1-1/2 in top face then takes a third of the box's height, so the cheek
+/// line's angle reads; the square's arms run on out of the box.
+const TOP_CLOSE_UP_WIDTHS: f64 = 3.0;
+
+/// The fit for a cheek cut's close-up from above: centred on the cheek
+/// line across the top face, the face a third of the box's height.
+fn top_close_up_fit(view: &MemberView, hold: &SquareHold, drawing: Area) -> Fit {
+    let (low_y, high_y) = (view_low_y(view), view_high_y(view));
+    let width = (high_y - low_y).max(1e-6);
+    let into = -hold.mark_arm;
+    // Where the marked line crosses the middle of the top face.
+    let across =
+        if into.y.abs() > 1e-6 { (0.5 * (low_y + high_y) - hold.mark_point.y) / into.y } else { 0.0 };
+    let centre = DVec2::new((hold.mark_point + into * across).x, 0.5 * (low_y + high_y));
+    let shown_h = width * TOP_CLOSE_UP_WIDTHS;
+    let shown_w = shown_h * drawing.size.x / drawing.size.y.max(1e-6);
+    let half = DVec2::new(shown_w, shown_h) * 0.5;
+    Fit::into_area(centre - half, centre + half, drawing)
 }
 
 fn view_low_y(view: &MemberView) -> f64 {

@@ -329,7 +329,12 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
     page.line_width(0.5);
     page.stroke_colour(GREY);
     page.rect(plan_area.corner, plan_area.size, None, true);
-    roof_plan(&mut page, None, deck, plan_area.inset(8.0), None, true);
+    // The key runs along the box's foot, below the drawing.
+    let drawing = plan_area.inset(8.0);
+    let key_h = MIN_TEXT_PT * 1.6;
+    let drawing =
+        Area::new(drawing.corner.x, drawing.corner.y + key_h, drawing.size.x, drawing.size.y - key_h);
+    roof_plan(&mut page, None, deck, drawing, None, true);
     page.fill_colour(GREY);
     page.text(
         DVec2::new(plan_area.corner.x + 4.0, plan_area.corner.y + 4.0),

@@ -97,8 +97,21 @@ pub(crate) fn tag(page: &mut Page, at: DVec2, size: f64, text: &str) {
 
 /// Draws a member view fitted by `fit`: outline, then each cut face filled
 /// in its colour, hatched and tagged (edge-on faces as a thick coloured
-/// line with its tag).
+/// line with its tag); no tags when `tag_size` is zero.
 pub(crate) fn member_view(page: &mut Page, view: &MemberView, fit: Fit, tag_size: f64) {
+    member_view_avoiding(page, view, fit, tag_size, Vec::new());
+}
+
+/// As [`member_view`], with tags kept off the boxes in `blocked` (page
+/// points, low and high corners) where another place near their face is
+/// clear: the room kept for dimensions.
+pub(crate) fn member_view_avoiding(
+    page: &mut Page,
+    view: &MemberView,
+    fit: Fit,
+    tag_size: f64,
+    blocked: Vec<(DVec2, DVec2)>,
+) {
     let wood = [0.97, 0.94, 0.86];
     if view.parts.is_empty() {
         page.line_width(0.9);
@@ -146,7 +159,8 @@ pub(crate) fn member_view(page: &mut Page, view: &MemberView, fit: Fit, tag_size
             }
         }
     }
-    let mut tags: Vec<(DVec2, DVec2)> = Vec::new();
+    let mut tags = blocked;
+    let mut anchors = Vec::new();
     for face in &view.faces {
         let points = fit.all(&face.outline);
         let colour = face.face.colour();
@@ -169,7 +183,15 @@ pub(crate) fn member_view(page: &mut Page, view: &MemberView, fit: Fit, tag_size
             page.polyline(&points);
             page.dash(&[]);
         }
-        place_tag(page, &mut tags, centre, tag_size, face.face.tag());
+        // One tag for the faces of one cut seen together (a solid's parts
+        // each carry their piece of the face).
+        let seen = anchors.iter().any(|(kind, anchor): &(crate::CutFace, DVec2)| {
+            *kind == face.face && anchor.distance(centre) < 3.0 * tag_size
+        });
+        if tag_size > 0.0 && !seen {
+            anchors.push((face.face, centre));
+            place_tag(page, &mut tags, centre, tag_size, face.face.tag());
+        }
     }
 }
 
@@ -185,15 +207,18 @@ fn place_tag(page: &mut Page, placed: &mut Vec<(DVec2, DVec2)>, at: DVec2, size:
                 || centre.y - half.y >= high.y
         })
     };
-    let step = 2.0 * half.y + 1.0;
-    let offsets = [0.0, 1.0, -1.0, 2.0, -2.0, 3.0, -3.0].map(|k| DVec2::new(0.0, k * step));
-    let sideways = [1.0, -1.0, 2.0, -2.0].map(|k| DVec2::new(k * (2.0 * half.x + 1.0), 0.0));
-    let chosen = offsets
-        .into_iter()
-        .chain(sideways)
-        .map(|offset| at + offset)
-        .find(|centre| clear(*centre, placed))
-        .unwrap_or(at);
+    let step = DVec2::new(2.0 * half.x + 1.0, 2.0 * half.y + 1.0);
+    // Places on a grid around the face, nearest first.
+    let mut offsets: Vec<DVec2> = (-4..=4_i32)
+        .flat_map(|i| (-3..=3_i32).map(move |j| DVec2::new(f64::from(i) * step.x, f64::from(j) * step.y)))
+        .collect();
+    offsets.sort_by(|a, b| a.length_squared().total_cmp(&b.length_squared()));
+    // With no clear place the tag is left off: the face's colour and
+    // hatching still name it, and a tag over a tag reads as neither.
+    let Some(chosen) = offsets.into_iter().map(|offset| at + offset).find(|centre| clear(*centre, placed))
+    else {
+        return;
+    };
     if chosen.distance(at) > 0.5 {
         page.line_width(0.4);
         page.stroke_colour(BLACK);
@@ -282,7 +307,9 @@ pub(crate) fn square_hold(mark: &CutMark, square: &SquareSetting, unit_in: f64) 
 
 /// Draws the square held for a cut (in view coordinates mapped by `fit`)
 /// with its two figures written where they meet the edge.
-pub(crate) fn framing_square(page: &mut Page, hold: &SquareHold, fit: Fit, text_size: f64) {
+/// With `see_through` the square is drawn in outline only, so the board it
+/// lies on shows through.
+pub(crate) fn framing_square(page: &mut Page, hold: &SquareHold, fit: Fit, see_through: bool) {
     // A steel square: body 24 x 2 in, tongue 16 x 1-1/2 in; the body carries
     // the larger figure.
     let (mark_len, mark_width, other_len, other_width) =
@@ -298,41 +325,77 @@ pub(crate) fn framing_square(page: &mut Page, hold: &SquareHold, fit: Fit, text_
     ];
     page.line_width(0.5);
     page.stroke_colour(GREY);
-    page.polygon(&fit.all(&shape), Some([0.82, 0.84, 0.88]), true);
+    let fill = if see_through { None } else { Some([0.82, 0.84, 0.88]) };
+    page.polygon(&fit.all(&shape), fill, true);
     page.stroke_colour(RED);
     page.line_width(1.2);
     page.line(fit.at(hold.mark_point), fit.at(h));
     for point in [hold.mark_point, hold.other_point] {
         page.polygon(&circle(fit.at(point), 1.8), Some(RED), false);
     }
-    let _ = text_size;
 }
 
 /// The two figures of a held square, written beside the points where they
-/// meet the edge, on the side away from the square's heel.
+/// meet the edge, on the side away from the square's heel, each kept
+/// inside `window` (page points): where a figure's point lies outside, at
+/// the place its arm leaves the window.
 pub(crate) fn square_figures(
     page: &mut Page,
     hold: &SquareHold,
     fit: Fit,
     text_size: f64,
     style: LengthStyle,
+    window: Area,
 ) {
     let heel = fit.at(hold.heel);
+    let (low, high) = (window.corner, window.corner + window.size);
     for (point, figure) in [(hold.mark_point, hold.mark_figure), (hold.other_point, hold.other_figure)] {
-        let at = fit.at(point);
-        let away = (at - heel).try_normalize().unwrap_or(DVec2::Y);
+        let end = fit.at(point);
+        let inside = |p: DVec2| p.cmpge(low).all() && p.cmple(high).all();
+        let at = if inside(end) {
+            end
+        } else {
+            match last_inside(heel, end, low, high) {
+                Some(at) => at,
+                None => continue,
+            }
+        };
+        let away = (end - heel).try_normalize().unwrap_or(DVec2::Y);
         let words = crate::square_figure_text(figure, style);
         let width = text_width(&words, text_size, true);
+        let half = DVec2::new(width / 2.0 + 1.0, text_size * 0.55);
         let centre = at + away * (text_size * 0.9 + 0.25 * width);
+        let centre = centre.clamp(low + half, (high - half).max(low + half));
         page.rect(
-            centre - DVec2::new(width / 2.0 + 1.0, text_size * 0.45),
-            DVec2::new(width + 2.0, text_size * 1.05),
+            centre - half + DVec2::new(0.0, 0.05 * text_size),
+            half * 2.0 - DVec2::new(0.0, 0.1 * text_size),
             Some([1.0, 1.0, 1.0]),
             false,
         );
         page.fill_colour(BLACK);
         page.text_centred(centre - DVec2::new(0.0, text_size * 0.35), text_size, true, &words);
     }
+}
+
+/// The point of the segment `from`..`to` nearest `to` that lies inside the
+/// box `low`..`high`, or `None` when the segment misses the box.
+fn last_inside(from: DVec2, to: DVec2, low: DVec2, high: DVec2) -> Option<DVec2> {
+    // Clip the segment's parameter range to each slab of the box.
+    let d = to - from;
+    let (mut t0, mut t1) = (0.0_f64, 1.0_f64);
+    for axis in 0..2 {
+        let (start, delta, lo, hi) = (from[axis], d[axis], low[axis], high[axis]);
+        if delta.abs() < 1e-12 {
+            if start < lo || start > hi {
+                return None;
+            }
+            continue;
+        }
+        let (a, b) = ((lo - start) / delta, (hi - start) / delta);
+        t0 = t0.max(a.min(b));
+        t1 = t1.min(a.max(b));
+    }
+    (t0 <= t1).then(|| from + d * t1)
 }
 
 fn circle(centre: DVec2, radius: f64) -> Vec<DVec2> {
@@ -427,8 +490,12 @@ fn plan_background(page: &mut Page, deck: &CardDeck, fit: Fit, label_all: bool, 
     }
     if label_all {
         // Each label runs along its piece, reading left to right or bottom
-        // to top, so labels of close parallel pieces stay apart.
+        // to top, so labels of close parallel pieces stay apart; a label
+        // that would run into one already written slides along its piece,
+        // and is left off a piece only where no place on it is clear (the
+        // member's other pieces carry it).
         page.fill_colour(BLACK);
+        let mut placed: Vec<[DVec2; 4]> = Vec::new();
         for member in &deck.members {
             for place in &member.places {
                 let (from, to) = (fit.at(place[0]), fit.at(place[1]));
@@ -437,9 +504,46 @@ fn plan_background(page: &mut Page, deck: &CardDeck, fit: Fit, label_all: bool, 
                     along = -along;
                 }
                 let width = text_width(&member.label, label_size, false);
-                let start = 0.5 * (from + to) - along * (width / 2.0) - along.perp() * (label_size * 0.35);
-                page.text_rotated(start, label_size, false, &member.label, along.y.atan2(along.x));
+                let label_box = |start: DVec2| {
+                    let (low, high) = (
+                        start - along.perp() * (0.21 * label_size),
+                        start + along.perp() * (0.72 * label_size),
+                    );
+                    [low, low + along * width, high + along * width, high]
+                };
+                let chosen = [0.5, 0.35, 0.65, 0.2, 0.8].into_iter().find_map(|t| {
+                    let start = from.lerp(to, t) - along * (width / 2.0) - along.perp() * (label_size * 0.35);
+                    let corners = label_box(start);
+                    placed.iter().all(|other| !quads_overlap(&corners, other)).then_some((start, corners))
+                });
+                if let Some((start, corners)) = chosen {
+                    placed.push(corners);
+                    // On a white ground, so the piece's line under it does
+                    // not strike the label through.
+                    page.polygon(&corners, Some([1.0, 1.0, 1.0]), false);
+                    page.fill_colour(BLACK);
+                    page.text_rotated(start, label_size, false, &member.label, along.y.atan2(along.x));
+                }
             }
         }
     }
+}
+
+/// Whether two convex quadrilaterals (page points) overlap, by the
+/// separating axis test on their edges' normals.
+fn quads_overlap(a: &[DVec2; 4], b: &[DVec2; 4]) -> bool {
+    let edges = a.iter().zip(a.iter().cycle().skip(1)).chain(b.iter().zip(b.iter().cycle().skip(1)));
+    for (p, q) in edges {
+        let Some(axis) = (*q - *p).perp().try_normalize() else { continue };
+        let span = |quad: &[DVec2; 4]| {
+            quad.iter()
+                .map(|corner| corner.dot(axis))
+                .fold((f64::INFINITY, f64::NEG_INFINITY), |(low, high), v| (low.min(v), high.max(v)))
+        };
+        let ((a_low, a_high), (b_low, b_high)) = (span(a), span(b));
+        if a_high <= b_low || b_high <= a_low {
+            return false;
+        }
+    }
+    true
 }

@@ -1,0 +1,83 @@
+//! The cut cards' layout on the demo house and both example plans, at
+//! every paper and cards-a-page setting: no text runs over other text, and
+//! pages are filled in order without blank slots left behind.
+
+// Test helpers may unwrap: a panic there is a failed test.
+#![allow(clippy::unwrap_used, clippy::expect_used)]
+
+mod plans;
+
+use pitchframe_cards::{CardOptions, Paper, render_cards};
+
+fn layouts() -> Vec<CardOptions> {
+    let mut out = Vec::new();
+    for paper in [Paper::Letter, Paper::A4] {
+        for per_page in [1, 2, 4] {
+            out.push(CardOptions { paper, per_page, templates: vec![] });
+        }
+    }
+    out
+}
+
+/// Writes each rendered deck to `PITCHFRAME_CARDS_DIR` when it is set, to
+/// look at the pages.
+fn keep(title: &str, options: &CardOptions, pdf: &[u8]) {
+    if let Ok(dir) = std::env::var("PITCHFRAME_CARDS_DIR") {
+        let name = format!("{dir}/{title}-{:?}-{}.pdf", options.paper, options.per_page);
+        std::fs::write(name, pdf).unwrap();
+    }
+}
+
+#[test]
+fn no_text_runs_over_other_text() {
+    let mut faults = Vec::new();
+    for deck in plans::all_decks() {
+        for options in layouts() {
+            let pdf = render_cards(&deck, &options).unwrap();
+            keep(&deck.title, &options, &pdf);
+            for (page, runs) in plans::text_runs(&pdf).iter().enumerate() {
+                for (index, a) in runs.iter().enumerate() {
+                    for b in runs.iter().skip(index + 1) {
+                        // A quarter point of slack: touching lines of one
+                        // paragraph are not an overlap.
+                        if plans::overlap(&a.corners, &b.corners, 0.25) {
+                            faults.push(format!(
+                                "{} {:?} {} a page, page {}: {:?} over {:?}",
+                                deck.title,
+                                options.paper,
+                                options.per_page,
+                                page + 1,
+                                a.text,
+                                b.text
+                            ));
+                        }
+                    }
+                }
+            }
+        }
+    }
+    assert!(faults.is_empty(), "{} overlaps:\n{}", faults.len(), faults[..faults.len().min(400)].join("\n"));
+}
+
+#[test]
+fn the_cover_plan_labels_every_member() {
+    for deck in plans::all_decks() {
+        for options in layouts() {
+            let pdf = render_cards(&deck, &options).unwrap();
+            let pages = plans::text_runs(&pdf);
+            let cover = pages.first().unwrap();
+            for member in &deck.members {
+                // The plan writes each label alone along its piece; the
+                // member list below writes "C1: common rafter ...".
+                assert!(
+                    cover.iter().any(|run| run.text == member.label),
+                    "{} {:?} {}: {} is not labelled on the plan",
+                    deck.title,
+                    options.paper,
+                    options.per_page,
+                    member.label
+                );
+            }
+        }
+    }
+}
