@@ -18,7 +18,7 @@ use super::derived::Derived;
 use super::desktop_open::{desktop_opener, open_in_desktop};
 use super::dialogs::{Answer, Dialog, PathPurpose, Pending, dialog_ui};
 use super::document::Document;
-use super::edit::{PlanEdit, wall_count};
+use super::edit::{EditError, PlanEdit, wall_count};
 use super::export::{
     CardChoice, ExportJob, ExportKind, ExportSpec, ExportWork, JobOutcome, PictureRequest, Pixels,
     parse_picture_side, with_extension,
@@ -28,6 +28,7 @@ use super::file_dialog::{
     with_toml_extension,
 };
 use super::files::ConfigDir;
+use super::framing_panel::{FramingPanelState, framing_panel_ui};
 use super::history::History;
 use super::joint_panel::{member_joints_ui, picked_joint_ui};
 use super::joints::joint_at;
@@ -53,6 +54,8 @@ pub enum SideTab {
     /// The roof and the wall list.
     #[default]
     Walls,
+    /// The framing settings.
+    Framing,
     /// The picked member's numbers, the rafter tables and the colours.
     Numbers,
 }
@@ -107,6 +110,8 @@ pub struct AppState {
     pub plan_view: PlanViewState,
     /// Text typed into the wall list.
     pub wall_list: WallListState,
+    /// Text typed into the framing settings.
+    pub framing_panel: FramingPanelState,
     /// Dialogs waiting, the first in front.
     pub dialogs: Vec<Dialog>,
     /// The message across the window.
@@ -176,6 +181,7 @@ impl AppState {
             side_tab: SideTab::default(),
             plan_view: PlanViewState::default(),
             wall_list: WallListState::default(),
+            framing_panel: FramingPanelState::default(),
             dialogs,
             notice: None,
             config,
@@ -293,7 +299,9 @@ impl AppState {
 
     fn side_ui(&mut self, ui: &mut egui::Ui) {
         ui.horizontal(|ui| {
-            for (tab, label) in [(SideTab::Walls, "Walls"), (SideTab::Numbers, "Numbers")] {
+            for (tab, label) in
+                [(SideTab::Walls, "Walls"), (SideTab::Framing, "Framing"), (SideTab::Numbers, "Numbers")]
+            {
                 let text = egui::RichText::new(label).size(18.0);
                 if ui.selectable_label(self.side_tab == tab, text).clicked() {
                     self.side_tab = tab;
@@ -309,6 +317,14 @@ impl AppState {
                 self.units,
                 self.selected_wall,
                 &mut self.wall_list,
+                &mut self.commands,
+            ),
+            SideTab::Framing => framing_panel_ui(
+                ui,
+                &self.document.plan,
+                self.units,
+                self.derived.scene.frame_error.as_deref().or(self.derived.settings_error.as_deref()),
+                &mut self.framing_panel,
                 &mut self.commands,
             ),
             SideTab::Numbers => {
@@ -682,33 +698,76 @@ impl AppState {
         self.selected_wall = None;
         self.selected_corner = None;
         self.wall_list.clear();
+        self.framing_panel.clear();
         self.autosaved = None;
     }
 
-    /// Makes `edit`, recording the plan before it for undo.
+    /// Makes `edit`, recording the plan before it for undo. A framing
+    /// setting the frame cannot be laid out with is turned away, so the
+    /// frame on screen and the plan stay as they were.
     fn edit(&mut self, edit: &PlanEdit, group: Option<u64>) {
-        match edit.apply(&self.document.plan) {
-            Ok(plan) if plan == self.document.plan => {}
-            Ok(plan) => {
-                self.history.record(&self.document.plan, group);
-                self.set_plan(plan);
+        let field = match edit {
+            PlanEdit::SetFraming { field, .. } => Some(*field),
+            _ => None,
+        };
+        let rejected = |state: &mut Self, err: EditError| {
+            let message = err.to_string();
+            if let EditError::FramingRejected { field, .. } = &err {
+                state.framing_panel.reject(*field, message.clone());
             }
-            Err(err) => self.notice = Some(Notice::Error(err.to_string())),
+            state.notice = Some(Notice::Error(message));
+        };
+        match edit.apply(&self.document.plan) {
+            Ok(plan) if plan == self.document.plan => {
+                if let Some(field) = field {
+                    self.framing_panel.accept(field);
+                }
+            }
+            Ok(plan) => {
+                let Some(field) = field else {
+                    self.history.record(&self.document.plan, group);
+                    self.set_plan(plan);
+                    return;
+                };
+                let mut trial = self.derived.clone();
+                trial.update(&plan);
+                let failed_now =
+                    trial.scene.frame_error.clone().filter(|_| self.derived.scene.frame_error.is_none());
+                if let Some(reason) = failed_now {
+                    rejected(self, EditError::FramingRejected { field, reason });
+                    return;
+                }
+                self.framing_panel.accept(field);
+                self.history.record(&self.document.plan, group);
+                self.derived = trial;
+                self.set_plan_worked_out(plan);
+            }
+            Err(err) => rejected(self, err),
         }
     }
 
     /// A plan from undo or redo: typed text no longer matches it.
     fn replace_plan(&mut self, plan: Plan) {
         self.wall_list.clear();
+        self.framing_panel.clear();
         self.set_plan(plan);
     }
 
     fn set_plan(&mut self, plan: Plan) {
+        let had_nothing = self.derived.scene.parts.is_empty();
+        self.derived.update(&plan);
+        self.after_new_plan(plan, had_nothing);
+    }
+
+    /// A plan whose derived state is already in `self.derived`.
+    fn set_plan_worked_out(&mut self, plan: Plan) {
+        self.after_new_plan(plan, false);
+    }
+
+    fn after_new_plan(&mut self, plan: Plan, had_nothing: bool) {
         self.document.plan = plan;
         // The joints are numbered afresh with the new frame.
         self.picked_joint = None;
-        let had_nothing = self.derived.scene.parts.is_empty();
-        self.derived.update(&self.document.plan);
         if had_nothing && !self.derived.scene.parts.is_empty() {
             // A plan opened invalid has just been fixed: aim at the house.
             self.camera =

@@ -3,7 +3,7 @@
 //! then each courtyard's, in file order); wall `i` starts at corner `i`.
 
 use glam::DVec2;
-use pitchframe_geometry::{Length, LengthUnit, Pitch, Plan, PlanWall};
+use pitchframe_geometry::{FramingInput, Length, LengthUnit, Pitch, Plan, PlanWall};
 
 /// A ring of walls needs at least this many corners.
 const MIN_RING_CORNERS: usize = 3;
@@ -71,6 +71,78 @@ pub enum PlanEdit {
     SetRoofPitch(Pitch),
     /// The overhang of every wall without its own.
     SetRoofOverhang(Length),
+    /// The `[framing]` table, changed in one setting.
+    SetFraming {
+        /// The setting changed, named in messages.
+        field: FramingField,
+        /// The whole table with the change.
+        framing: Box<FramingInput>,
+    },
+}
+
+/// One framing setting, as the window names it.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum FramingField {
+    /// Rafter spacing on centre.
+    Spacing,
+    /// The corner layout is measured from.
+    LayoutFrom,
+    /// Commons centred on the layout lines.
+    CentreCommons,
+    /// Rafter (common and jack) size.
+    Rafter,
+    /// Hip size.
+    Hip,
+    /// Valley size.
+    Valley,
+    /// Ridge board size.
+    Ridge,
+    /// Seat cut width.
+    Seat,
+    /// Heel height.
+    Heel,
+    /// How tails are cut.
+    Tail,
+    /// The plumb cut above a level soffit cut.
+    TailPlumb,
+    /// Backed or dropped hips.
+    Hips,
+}
+
+impl FramingField {
+    /// The setting's name as the window shows it.
+    pub fn name(self) -> &'static str {
+        match self {
+            FramingField::Spacing => "Rafter spacing",
+            FramingField::LayoutFrom => "Layout from corner",
+            FramingField::CentreCommons => "Centre commons on the layout",
+            FramingField::Rafter => "Rafter size",
+            FramingField::Hip => "Hip size",
+            FramingField::Valley => "Valley size",
+            FramingField::Ridge => "Ridge size",
+            FramingField::Seat => "Seat width",
+            FramingField::Heel => "Heel height",
+            FramingField::Tail => "Tail cut",
+            FramingField::TailPlumb => "Tail plumb cut",
+            FramingField::Hips => "Hips",
+        }
+    }
+
+    /// The shorter words beside the setting's field (its full name is the
+    /// field's own, for screen readers and messages).
+    pub fn shown(self) -> &'static str {
+        match self {
+            FramingField::Spacing => "Spacing on centre",
+            FramingField::Rafter => "Commons and jacks",
+            FramingField::Hip => "Hip",
+            FramingField::Valley => "Valley",
+            FramingField::Ridge => "Ridge board",
+            FramingField::Seat => "Seat (plate width)",
+            FramingField::Heel => "Heel, plumb at the wall",
+            FramingField::TailPlumb => "Plumb cut above the soffit",
+            other => other.name(),
+        }
+    }
 }
 
 /// Why an edit could not be made.
@@ -86,6 +158,13 @@ pub enum EditError {
     OverhangNegative,
     /// A wall of no length has no direction to keep or turn.
     NoDirection(usize),
+    /// A framing setting the frame cannot use, and why.
+    FramingRejected {
+        /// The setting.
+        field: FramingField,
+        /// Why, in the geometry crate's words.
+        reason: String,
+    },
 }
 
 // Written out rather than derived: the app crate does without thiserror.
@@ -103,6 +182,9 @@ impl std::fmt::Display for EditError {
             EditError::OverhangNegative => write!(f, "an overhang must be 0 or more"),
             EditError::NoDirection(wall) => {
                 write!(f, "wall {} has no length, so it has no direction to change", wall + 1)
+            }
+            EditError::FramingRejected { field, reason } => {
+                write!(f, "{}: {reason}; the setting was left as it was", field.name())
             }
         }
     }
@@ -246,6 +328,14 @@ impl PlanEdit {
                     return Err(EditError::OverhangNegative);
                 }
                 next.default_overhang = overhang;
+            }
+            PlanEdit::SetFraming { field, ref framing } => {
+                next.framing = (**framing).clone();
+                // The plan's own reader of the table, so the window accepts
+                // exactly what a plan file may hold.
+                if let Err(err) = next.framing_settings() {
+                    return Err(EditError::FramingRejected { field, reason: err.to_string() });
+                }
             }
         }
         Ok(next)

@@ -14,7 +14,7 @@
 //! `viewport` draws those with three-d inside an egui paint callback,
 //! `side_panel` shows the numbers, `window` is the eframe app holding the
 //! GL renderer, and `picture` saves a screenshot for `--picture`.
-//! `joints` places the frame's joints in the 3D view (the fit is the
+//! `framing_panel` edits the plan's `[framing]` settings. `joints` places the frame's joints in the 3D view (the fit is the
 //! geometry crate's check), `joint_panel` shows them, and `camera_glide`
 //! closes the camera in on a picked one. `export` writes the cut cards, lists, model and pictures of the view on
 //! threads of their own; `desktop_open` opens what was written.
@@ -32,6 +32,7 @@ mod export;
 mod file_dialog;
 mod files;
 mod frame_timer;
+mod framing_panel;
 mod history;
 mod joint_panel;
 mod joints;

@@ -627,3 +627,108 @@ fn a_joint_open_by_more_than_a_64th_says_so_in_red() {
     let _ = harness.get_by_label("Off by more than 1/64 in: check this joint before cutting");
     let _ = harness.get_by_label("0.050 in");
 }
+
+/// The demo window showing its framing settings.
+fn framing_window(folder: &TempFolder) -> Harness<'static, AppState> {
+    let mut harness = demo_window(folder);
+    harness.get_by_label("Framing").click();
+    harness.run();
+    harness
+}
+
+fn pieces_of(state: &AppState, kind: pitchframe_geometry::MemberKind) -> usize {
+    let frame = state.derived.scene.frame.as_ref().expect("the plan frames");
+    frame.pieces.iter().filter(|piece| piece.kind == kind).count()
+}
+
+#[test]
+fn rafter_spacing_typed_in_lays_the_frame_out_again_and_undo_takes_it_back() {
+    use pitchframe_geometry::MemberKind;
+    let folder = TempFolder::new("framing-spacing");
+    let mut harness = framing_window(&folder);
+    let commons_at_24 = pieces_of(harness.state(), MemberKind::Common);
+    let spacing_before = harness.state().document.plan.framing.spacing;
+    assert_eq!(harness.state().document.plan.framing_settings().unwrap().spacing_in, 24.0);
+    type_into(&mut harness, "Rafter spacing", "16");
+    let plan = harness.state().document.plan.clone();
+    assert_eq!(plan.framing.spacing.map(|s| s.inches()), Some(16.0));
+    // The frame on screen is the geometry crate's frame for the new settings.
+    let settings = plan.framing_settings().unwrap();
+    assert_eq!(settings.spacing_in, 16.0);
+    let outline = plan.outline().unwrap();
+    let roof = pitchframe_geometry::Roof::solve(&outline).unwrap();
+    let expected = pitchframe_geometry::frame_roof(&outline, &roof, &settings).unwrap();
+    assert_eq!(harness.state().derived.scene.frame.as_ref().unwrap().pieces.len(), expected.pieces.len());
+    // Derivation: commons along a wall number about its length over the
+    // spacing, so 16 in gives about 24/16 = 1.5 times those at 24 in.
+    let commons_at_16 = pieces_of(harness.state(), MemberKind::Common);
+    let ratio = commons_at_16 as f64 / commons_at_24 as f64;
+    assert!((1.3..1.7).contains(&ratio), "{commons_at_24} commons became {commons_at_16}");
+
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    harness.run();
+    assert_eq!(harness.state().document.plan.framing.spacing, spacing_before);
+    assert_eq!(pieces_of(harness.state(), MemberKind::Common), commons_at_24);
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::Y);
+    harness.run();
+    assert_eq!(pieces_of(harness.state(), MemberKind::Common), commons_at_16);
+}
+
+#[test]
+fn a_framing_value_that_cannot_be_used_names_its_field_and_changes_nothing() {
+    let folder = TempFolder::new("framing-bad");
+    let mut harness = framing_window(&folder);
+    let before = harness.state().document.plan.clone();
+    let frame_before = harness.state().derived.scene.frame.clone();
+
+    type_into(&mut harness, "Rafter spacing", "0");
+    let _ = harness.get_by_label("Rafter spacing: 0 must be more than zero");
+    type_into(&mut harness, "Rafter size", "two by eight");
+    let _ = harness.get_by_label_contains("Rafter size: ");
+    // Derivation: a 2x8 at 6 in 12 stands 7-1/4 / cos(26.57 deg) = 8.1 in
+    // plumb, so a 40 in heel leaves it no seat on the plate.
+    type_into(&mut harness, "Heel height", "40");
+    // Said beside the field and across the window.
+    let said = harness.query_all_by_label_contains("Heel height: a heel of 40 in leaves no seat").count();
+    assert!(said >= 1);
+
+    assert_eq!(harness.state().document.plan, before);
+    assert_eq!(harness.state().derived.scene.frame, frame_before, "the frame on screen stays");
+    assert!(!harness.state().history.can_undo(), "nothing was changed, so there is nothing to undo");
+    assert!(harness.state().framing_panel.has_errors());
+    // The typed text stays in its field for the framer to correct.
+    let field = harness.get_by_label("Heel height");
+    assert_eq!(field.value().as_deref(), Some("40"));
+}
+
+#[test]
+fn member_sizes_hips_tails_and_overhang_change_the_frame() {
+    use pitchframe_geometry::MemberKind;
+    use pitchframe_geometry::framing::{HipTop, TailCut};
+    let folder = TempFolder::new("framing-sizes");
+    let mut harness = framing_window(&folder);
+    type_into(&mut harness, "Hip size", "2x12");
+    let frame = harness.state().derived.scene.frame.clone().unwrap();
+    let hip = frame.members.iter().find(|m| m.kind == MemberKind::Hip).expect("the demo has hips");
+    // A dressed 2x12 is 1-1/2 x 11-1/4 in (American Softwood Lumber
+    // Standard PS 20, dry sizes).
+    assert_eq!((hip.size.thickness_in, hip.size.depth_in), (1.5, 11.25));
+
+    harness.get_by_label("Dropped").click();
+    harness.run();
+    harness.get_by_label("Plumb and level").click();
+    harness.run();
+    type_into(&mut harness, "Tail plumb cut", "4");
+    type_into(&mut harness, "Framing overhang", "1' 0\"");
+    let plan = &harness.state().document.plan;
+    let settings = plan.framing_settings().unwrap();
+    assert_eq!(settings.hip_top, HipTop::Dropped);
+    assert_eq!(settings.tail, TailCut::PlumbAndLevel { plumb_height_in: 4.0 });
+    assert_eq!(plan.default_overhang.inches(), 12.0);
+    // Five changes, five undos back to the demo as opened.
+    for _ in 0..5 {
+        harness.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+        harness.run();
+    }
+    assert!(!harness.state().document.unsaved());
+}
