@@ -127,20 +127,23 @@ enum Span {
     Page,
 }
 
-/// The card pages being filled, slot by slot.
+/// The card pages being filled, slot by slot. Every page stays open: a
+/// card goes into the first page with room for it, so a card that needs a
+/// whole page does not leave the slots before it blank (the cards after it
+/// fill them; each card keeps its number).
 struct Sheets {
     paper: DVec2,
     slots: Vec<Area>,
-    done: Vec<Page>,
-    page: Page,
-    used: Vec<bool>,
+    pages: Vec<Page>,
+    used: Vec<Vec<bool>>,
+    /// The page being drawn on.
+    current: usize,
 }
 
 impl Sheets {
     fn new(paper: DVec2, per_page: u8) -> Self {
         let slots = card_slots(paper, per_page);
-        let used = vec![false; slots.len()];
-        Self { paper, slots, done: Vec::new(), page: Page::new(paper.x, paper.y), used }
+        Self { paper, slots, pages: Vec::new(), used: Vec::new(), current: 0 }
     }
 
     /// The spans worth trying, smallest first.
@@ -167,58 +170,90 @@ impl Sheets {
         }
     }
 
-    /// The first free area of the span's shape on this page, and the slots
-    /// it covers.
-    fn free(&self, span: Span) -> Option<(Vec<usize>, Area)> {
+    /// The first free area of the span's shape on a page whose slots are
+    /// `used`, and the slots it covers.
+    fn free(&self, used: &[bool], span: Span) -> Option<(Vec<usize>, Area)> {
         match span {
             Span::One => {
-                let slot = self.used.iter().position(|used| !used)?;
+                // Down the left column first, so single cards leave a whole
+                // column free for a card that needs two slots.
+                let order: &[usize] = if used.len() == 4 { &[0, 2, 1, 3] } else { &[0, 1] };
+                let slot = order.iter().copied().find(|&slot| used.get(slot) == Some(&false))?;
                 Some((vec![slot], *self.slots.get(slot)?))
             }
             Span::Column => (0..2).find_map(|column| {
                 let (top, bottom) = (column, column + 2);
-                let both_free = !*self.used.get(top)? && !*self.used.get(bottom)?;
+                let both_free = !*used.get(top)? && !*used.get(bottom)?;
                 let (a, b) = (self.slots.get(top)?, self.slots.get(bottom)?);
                 both_free.then(|| {
                     (vec![top, bottom], Area::new(b.corner.x, b.corner.y, a.size.x, a.top() - b.corner.y))
                 })
             }),
             Span::Page => {
-                self.used.iter().all(|used| !used).then(|| ((0..self.used.len()).collect(), self.full_page()))
+                used.iter().all(|used| !used).then(|| ((0..used.len()).collect(), self.full_page()))
             }
         }
     }
 
-    /// Takes the first free area of the span's shape, starting a new page
-    /// when this one has none.
-    fn take(&mut self, span: Span) -> Area {
-        loop {
-            if let Some((taken, area)) = self.free(span) {
-                for slot in taken {
-                    if let Some(used) = self.used.get_mut(slot) {
-                        *used = true;
-                    }
+    /// Takes the first free area of the span's shape on the earliest page
+    /// with room (from page `from` on), starting a new page when none has;
+    /// makes that page the one drawn on.
+    fn take_from(&mut self, span: Span, from: usize) -> Area {
+        let found = self
+            .used
+            .iter()
+            .enumerate()
+            .skip(from)
+            .find_map(|(index, used)| self.free(used, span).map(|(taken, area)| (index, taken, area)));
+        let (index, taken, area) = match found {
+            Some(found) => found,
+            None => {
+                self.pages.push(Page::new(self.paper.x, self.paper.y));
+                self.used.push(vec![false; self.slots.len()]);
+                let index = self.pages.len() - 1;
+                let (taken, area) = self
+                    .free(&vec![false; self.slots.len()], span)
+                    .unwrap_or_else(|| (vec![], self.full_page()));
+                (index, taken, area)
+            }
+        };
+        if let Some(used) = self.used.get_mut(index) {
+            for slot in taken {
+                if let Some(used) = used.get_mut(slot) {
+                    *used = true;
                 }
-                return area;
             }
-            self.next_page();
         }
+        self.current = index;
+        area
     }
 
-    fn next_page(&mut self) {
-        let page = std::mem::replace(&mut self.page, Page::new(self.paper.x, self.paper.y));
-        self.done.push(page);
-        self.used.iter_mut().for_each(|used| *used = false);
+    /// A new whole page right after the current one, for a card's
+    /// continuation.
+    fn take_next_page(&mut self) -> Area {
+        let at = (self.current + 1).min(self.pages.len());
+        self.pages.insert(at, Page::new(self.paper.x, self.paper.y));
+        self.used.insert(at, vec![true; self.slots.len()]);
+        self.current = at;
+        self.full_page()
+    }
+
+    /// The page being drawn on.
+    fn page(&mut self) -> &mut Page {
+        if self.pages.is_empty() {
+            self.pages.push(Page::new(self.paper.x, self.paper.y));
+            self.used.push(vec![false; self.slots.len()]);
+        }
+        let last = self.pages.len() - 1;
+        let index = self.current.min(last);
+        &mut self.pages[index]
     }
 
     fn finish(mut self, deck: &CardDeck) -> Vec<Page> {
-        if self.used.iter().any(|used| *used) {
-            self.next_page();
-        }
-        for page in &mut self.done {
+        for page in &mut self.pages {
             footer(page, deck);
         }
-        self.done
+        self.pages
     }
 }
 
@@ -233,8 +268,8 @@ fn start_card_part(
     numbering: &str,
     continued: bool,
 ) -> (Area, f64) {
-    let area = sheets.take(span);
-    let page = &mut sheets.page;
+    let area = if continued { sheets.take_next_page() } else { sheets.take_from(span, 0) };
+    let page = sheets.page();
     page.line_width(0.8);
     page.stroke_colour(BLACK);
     page.rect(area.corner, area.size, None, true);
@@ -262,7 +297,7 @@ fn place_card(sheets: &mut Sheets, forms: &mut Forms, deck: &CardDeck, member: &
             in_this_part = 0;
         }
         let area = Area::new(inner.corner.x, y - height, inner.size.x, height);
-        card_page::draw_block(&mut sheets.page, forms, deck, member, &layout, index, area);
+        card_page::draw_block(sheets.page(), forms, deck, member, &layout, index, area);
         y -= height + card_page::BLOCK_GAP;
         in_this_part += 1;
     }

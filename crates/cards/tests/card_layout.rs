@@ -81,3 +81,41 @@ fn the_cover_plan_labels_every_member() {
         }
     }
 }
+
+#[test]
+fn no_card_page_is_left_with_room_a_later_card_could_use() {
+    for deck in plans::all_decks() {
+        for options in layouts() {
+            let pdf = render_cards(&deck, &options).unwrap();
+            let paper = options.paper.size_pt();
+            // The card area inside the margins (30 pt, and 10 pt more at
+            // the foot for the footer line).
+            let usable = (paper.x - 60.0) * (paper.y - 70.0);
+            let frames = plans::card_frames(&pdf);
+            let card_pages: Vec<&Vec<(f64, f64)>> =
+                frames.iter().filter(|frames| !frames.is_empty()).collect();
+            assert!(!card_pages.is_empty());
+            for (index, page) in card_pages.iter().enumerate() {
+                let filled = page.iter().map(|(w, h)| w * h).sum::<f64>() / usable;
+                // Slots leave 8 pt gaps between them: 4 a page on letter
+                // fill 97 % of the area. A page less full is only right
+                // when no card after it is small enough for its room.
+                let room = usable * (1.0 - filled);
+                let smallest_later = card_pages
+                    .iter()
+                    .skip(index + 1)
+                    .flat_map(|frames| frames.iter().map(|(w, h)| w * h))
+                    .fold(f64::INFINITY, f64::min);
+                assert!(
+                    filled > 0.95 || smallest_later > room,
+                    "{} {:?} {} a page: card page {} only {:.0} % filled, and a later card would fit",
+                    deck.title,
+                    options.paper,
+                    options.per_page,
+                    index + 1,
+                    filled * 100.0
+                );
+            }
+        }
+    }
+}

@@ -120,3 +120,31 @@ pub fn overlap(a: &[DVec2; 4], b: &[DVec2; 4], slack: f64) -> bool {
     }
     true
 }
+
+/// Every page's card frames: the rectangles stroked 0.8 pt wide, the
+/// width the cards' frames are drawn at (close-ups and the plan's box are
+/// thinner), as (width, height) in points.
+pub fn card_frames(pdf: &[u8]) -> Vec<Vec<(f64, f64)>> {
+    let doc = Document::load_mem(pdf).expect("the PDF parses");
+    doc.get_pages()
+        .values()
+        .map(|&page| {
+            let content = Content::decode(&doc.get_page_content(page)).unwrap();
+            let mut width = 1.0;
+            let mut frames = Vec::new();
+            for op in &content.operations {
+                match op.operator.as_str() {
+                    "w" => width = op.operands.first().map_or(1.0, number),
+                    "re" if (width - 0.8).abs() < 1e-6 => {
+                        frames.push((
+                            op.operands.get(2).map_or(0.0, number),
+                            op.operands.get(3).map_or(0.0, number),
+                        ));
+                    }
+                    _ => {}
+                }
+            }
+            frames
+        })
+        .collect()
+}
