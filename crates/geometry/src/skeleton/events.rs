@@ -88,7 +88,14 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
         return;
     }
     let (anchor, vel, t0, own) = (vx.anchor, vx.vel, vx.t0, [vx.in_line, vx.out_line]);
-    let mut found: Vec<(f64, usize)> = Vec::new();
+    // One buffer for every call: a fresh one as long as the wall count
+    // each time cost more in allocation than the search itself.
+    let mut found = std::mem::take(&mut wf.split_scratch);
+    found.clear();
+    // The earliest few heights so far, in order: a candidate later than
+    // the last of them can never be kept, so it is not even stored.
+    let mut earliest = [f64::INFINITY; SPLIT_CANDIDATES_KEPT];
+    let mut count = 0usize;
     // The packed line coefficients keep this loop, the solve's hottest, in cache.
     for (i, &[nx, ny, offset, speed]) in wf.packed_lines.iter().enumerate() {
         let d0 = nx * anchor.x + ny * anchor.y - offset - speed * t0;
@@ -103,24 +110,34 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
         if !t.is_finite() || t < after || (!inclusive && t <= after) {
             continue;
         }
+        count += 1;
+        if t > earliest[SPLIT_CANDIDATES_KEPT - 1] {
+            continue;
+        }
         found.push((t, i));
+        let mut k = SPLIT_CANDIDATES_KEPT - 1;
+        earliest[k] = t;
+        while k > 0 && earliest[k - 1] > t {
+            earliest.swap(k - 1, k);
+            k -= 1;
+        }
     }
     let mut truncated = false;
-    if found.len() > SPLIT_CANDIDATES_KEPT {
+    if count > SPLIT_CANDIDATES_KEPT {
         // Keep the earliest few plus every candidate tied with the last one
         // kept, so a recompute "strictly later" never skips one.
-        found.select_nth_unstable_by(SPLIT_CANDIDATES_KEPT - 1, |a, b| a.0.total_cmp(&b.0));
-        let limit = found.get(SPLIT_CANDIDATES_KEPT - 1).map_or(f64::INFINITY, |c| c.0);
-        let before = found.len();
+        let limit = earliest[SPLIT_CANDIDATES_KEPT - 1];
         found.retain(|c| c.0 <= limit);
-        truncated = found.len() < before;
+        truncated = found.len() < count;
     }
+    // Ties in height keep the lines' order, whatever the search kept.
     found.sort_by(|a, b| a.0.total_cmp(&b.0));
     found.reverse();
     if let Some(vx) = wf.vertices.get_mut(v) {
-        vx.splits = found;
+        vx.splits = found.clone();
         vx.splits_truncated = truncated;
     }
+    wf.split_scratch = found;
 }
 
 /// The next split candidate of `v` as an event, recomputing when the kept

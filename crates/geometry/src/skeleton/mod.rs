@@ -95,6 +95,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         wall_end_node: vec![0; n],
         batch_nodes: Vec::new(),
         tol,
+        split_scratch: Vec::new(),
     };
     let mut heap: BinaryHeap<Event> = BinaryHeap::new();
     let mut all_new: Vec<VertexId> = Vec::new();

@@ -113,6 +113,8 @@ pub(crate) struct Wavefront {
     pub batch_nodes: Vec<NodeId>,
     /// Tolerances.
     pub tol: Tolerance,
+    /// Scratch space for the split search, kept between calls.
+    pub split_scratch: Vec<(f64, usize)>,
 }
 
 /// Velocity and corner kind of the crossing of lines `a` (arriving) and `b` (leaving).
