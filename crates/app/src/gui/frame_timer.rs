@@ -30,6 +30,8 @@ pub struct FrameTimer {
     last: Option<Instant>,
     times_ms: Vec<f64>,
     seen: usize,
+    /// Each thread's CPU time when timing began.
+    cpu_at_start: Vec<(String, f64)>,
 }
 
 impl FrameTimer {
@@ -41,7 +43,15 @@ impl FrameTimer {
             None => (value.as_str(), false),
         };
         let frames = count.trim().parse().ok().filter(|&n: &usize| n > 0)?;
-        Some(Self { frames, moving: !still, start_corner: None, last: None, times_ms: Vec::new(), seen: 0 })
+        Some(Self {
+            frames,
+            moving: !still,
+            start_corner: None,
+            last: None,
+            times_ms: Vec::new(),
+            seen: 0,
+            cpu_at_start: Vec::new(),
+        })
     }
 
     /// Called once per frame, before the window is laid out.
@@ -51,6 +61,9 @@ impl FrameTimer {
         if self.times_ms.len() >= self.frames {
             // Reported already; the window is closing.
             return;
+        }
+        if self.seen == WARM_UP_FRAMES {
+            self.cpu_at_start = thread_cpu_ms();
         }
         if self.seen > WARM_UP_FRAMES
             && let Some(last) = self.last
@@ -91,5 +104,61 @@ impl FrameTimer {
             scene.frame.as_ref().map_or(0, |frame| frame.members.len()),
             scene.pieces.len(),
         );
+        // Wall-clock frame times depend on what else the machine runs; the
+        // CPU each frame took does not, so it is reported beside them.
+        let frames = sorted.len().max(1) as f64;
+        let used = cpu_used_ms(&self.cpu_at_start, &thread_cpu_ms());
+        if used.is_empty() {
+            println!("CPU time per frame: not measured on this system");
+        } else {
+            let total: f64 = used.iter().map(|(_, ms)| ms).sum();
+            let parts: Vec<String> =
+                used.iter().map(|(group, ms)| format!("{group} {:.1} ms", ms / frames)).collect();
+            println!("CPU time per frame: {:.1} ms in all ({})", total / frames, parts.join(", "));
+        }
     }
+}
+
+/// Clock ticks a second in `/proc` times (USER_HZ, 100 on Linux).
+const TICKS_PER_SECOND: f64 = 100.0;
+
+/// CPU time (user and system) used so far by each thread of this process,
+/// in milliseconds, with the thread's name; empty where `/proc` is missing.
+fn thread_cpu_ms() -> Vec<(String, f64)> {
+    let Ok(tasks) = std::fs::read_dir("/proc/self/task") else { return Vec::new() };
+    tasks
+        .filter_map(|task| {
+            let stat = std::fs::read_to_string(task.ok()?.path().join("stat")).ok()?;
+            // "tid (name) state ppid ...": the name may hold spaces or
+            // brackets, so the fields start after the last ')'.
+            let (head, rest) = stat.rsplit_once(')')?;
+            let name = head.split_once('(')?.1.to_string();
+            let fields: Vec<&str> = rest.split_whitespace().collect();
+            let utime: f64 = fields.get(11)?.parse().ok()?;
+            let stime: f64 = fields.get(12)?.parse().ok()?;
+            Some((name, (utime + stime) / TICKS_PER_SECOND * 1000.0))
+        })
+        .collect()
+}
+
+/// CPU time used between two readings, summed by kind of thread: the
+/// software rasterizer's threads, the window's own thread, and the rest.
+fn cpu_used_ms(before: &[(String, f64)], after: &[(String, f64)]) -> Vec<(&'static str, f64)> {
+    let mut groups: Vec<(&'static str, f64)> = Vec::new();
+    for (name, ms) in after {
+        let earlier: f64 = before.iter().filter(|(n, _)| n == name).map(|(_, ms)| ms).sum();
+        let group = if name.starts_with("llvmpipe") {
+            "rasterizer threads"
+        } else if name.starts_with("pitchframe") {
+            "window thread"
+        } else {
+            "other threads"
+        };
+        let used = (ms - earlier).max(0.0);
+        match groups.iter_mut().find(|(g, _)| *g == group) {
+            Some((_, total)) => *total += used,
+            None => groups.push((group, used)),
+        }
+    }
+    groups
 }

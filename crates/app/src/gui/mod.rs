@@ -43,6 +43,7 @@ mod picture;
 mod plan_view;
 mod safety;
 mod scene;
+mod shading;
 mod side_panel;
 mod snap;
 mod toolbar;

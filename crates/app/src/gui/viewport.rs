@@ -10,9 +10,9 @@ use std::sync::{Arc, Mutex};
 use egui::{PointerButton, Sense};
 use glam::{DVec2, DVec3};
 use three_d::{
-    AmbientLight, Camera, ClearState, ColorMaterial, Context, CpuMaterial, CpuMesh, DepthTexture2D,
-    DirectionalLight, Gm, Indices, Interpolation, Light, LightingModel, Mesh, Object, PhysicalMaterial,
-    Positions, RenderTarget, ScissorBox, Srgba, Texture2D, Vec3, Viewport, Wrapping, degrees,
+    Camera, ClearState, ColorMaterial, Context, CpuMaterial, CpuMesh, DepthTexture2D, Gm, Indices,
+    Interpolation, Mesh, Object, Positions, RenderTarget, ScissorBox, Srgba, Texture2D, Vec3, Viewport,
+    Wrapping, degrees,
 };
 
 use super::camera::OrbitCamera;
@@ -20,6 +20,7 @@ use super::export::{MAX_PICTURE_SIDE_PX, Pixels};
 use super::palette;
 use super::pick::pick;
 use super::scene::{PartKind, Scene, ScenePiece, Triangles, is_cut_face};
+use super::shading::ShadedMaterial;
 
 /// Opacity of the roof planes in the framing view: enough to see the
 /// planes' shape, little enough to see the frame through them.
@@ -58,7 +59,7 @@ impl ShownIn {
 /// One uploaded mesh with its material.
 struct Model {
     shown_in: ShownIn,
-    gm: Gm<Mesh, PhysicalMaterial>,
+    gm: Gm<Mesh, ShadedMaterial>,
 }
 
 /// The picked piece drawn over itself: a lit highlight for its board
@@ -67,11 +68,11 @@ struct Highlight {
     /// Which scene and piece this was built for.
     scene: Arc<Scene>,
     piece: usize,
-    body: Option<Gm<Mesh, PhysicalMaterial>>,
+    body: Option<Gm<Mesh, ShadedMaterial>>,
     cuts: Vec<Gm<Mesh, ColorMaterial>>,
     /// The other pieces cut to the same member, so the framer sees where
     /// each one goes.
-    siblings: Option<Gm<Mesh, PhysicalMaterial>>,
+    siblings: Option<Gm<Mesh, ShadedMaterial>>,
 }
 
 /// GL-side state for the 3D view, created once per window.
@@ -125,20 +126,16 @@ impl Renderer {
         Model { shown_in, gm: Gm::new(Mesh::new(&self.context, cpu), self.lit_material(rgb, alpha)) }
     }
 
-    fn lit_material(&self, [r, g, b]: [u8; 3], alpha: u8) -> PhysicalMaterial {
-        let description = CpuMaterial {
-            albedo: Srgba::new(r, g, b, alpha),
-            // Fully rough, not metal: plain diffuse shading, which reads
-            // best for painted or timber surfaces.
-            roughness: 1.0,
-            metallic: 0.0,
-            lighting_model: LightingModel::Phong,
-            ..Default::default()
-        };
-        if alpha == 255 {
-            PhysicalMaterial::new_opaque(&self.context, &description)
-        } else {
-            PhysicalMaterial::new_transparent(&self.context, &description)
+    fn lit_material(&self, [r, g, b]: [u8; 3], alpha: u8) -> ShadedMaterial {
+        ShadedMaterial::new(Srgba::new(r, g, b, alpha))
+    }
+
+    /// Points every lit material's light along `direction`.
+    fn set_light(&mut self, direction: Vec3) {
+        let highlight =
+            self.highlight.iter_mut().flat_map(|h| h.body.iter_mut().chain(h.siblings.iter_mut()));
+        for gm in self.models.iter_mut().map(|model| &mut model.gm).chain(highlight) {
+            gm.material.light_direction = direction;
         }
     }
 
@@ -219,13 +216,13 @@ impl Renderer {
             width: px(clip_px.width_px),
             height: px(clip_px.height_px),
         };
-        let lights = Lights::new(&self.context, &frame.camera);
+        self.set_light(light_direction(&frame.camera));
         let three_d_camera = three_d_camera(&frame.camera, viewport);
-        target.clear_partially(scissor, lights.clear_state()).render_partially(
+        target.clear_partially(scissor, clear_state()).render_partially(
             scissor,
             &three_d_camera,
             self.objects(frame.style),
-            &lights.all(),
+            &[],
         );
         // The framebuffer belongs to egui: hand it back rather than let the
         // render target delete it.
@@ -286,42 +283,26 @@ impl Renderer {
             Wrapping::ClampToEdge,
             Wrapping::ClampToEdge,
         );
-        let lights = Lights::new(&self.context, camera);
+        self.set_light(light_direction(camera));
         let three_d_camera = three_d_camera(camera, Viewport::new_at_origo(width, height));
         let rgba: Vec<[u8; 4]> = RenderTarget::new(colour.as_color_target(None), depth.as_depth_target())
-            .clear(lights.clear_state())
-            .render(&three_d_camera, self.objects(style), &lights.all())
+            .clear(clear_state())
+            .render(&three_d_camera, self.objects(style), &[])
             .read_color();
         Ok(Pixels { width, height, rgba: rgba.into_iter().flatten().collect() })
     }
 }
 
-/// The sun and sky the view is lit by.
-struct Lights {
-    sun: DirectionalLight,
-    sky: AmbientLight,
+/// The direction the view's light travels: from over the viewer's left
+/// shoulder, so the two wall faces seen from a corner view shade differently.
+fn light_direction(camera: &OrbitCamera) -> Vec3 {
+    vec3(-camera.right() * 0.5 - camera.up() * 0.3 - DVec3::Z * 0.8)
 }
 
-impl Lights {
-    fn new(context: &Context, camera: &OrbitCamera) -> Self {
-        // Light from over the viewer's left shoulder, so the two wall faces
-        // seen from a corner view shade differently.
-        let light_dir = vec3(-camera.right() * 0.5 - camera.up() * 0.3 - DVec3::Z * 0.8);
-        Self {
-            sun: DirectionalLight::new(context, 2.2, Srgba::WHITE, light_dir),
-            sky: AmbientLight::new(context, 0.45, Srgba::WHITE),
-        }
-    }
-
-    fn all(&self) -> [&dyn Light; 2] {
-        [&self.sun, &self.sky]
-    }
-
-    /// The background colour and a cleared depth buffer.
-    fn clear_state(&self) -> ClearState {
-        let [r, g, b] = palette::BACKGROUND.map(|c| f32::from(c) / 255.0);
-        ClearState::color_and_depth(r, g, b, 1.0, 1.0)
-    }
+/// The background colour and a cleared depth buffer.
+fn clear_state() -> ClearState {
+    let [r, g, b] = palette::BACKGROUND.map(|c| f32::from(c) / 255.0);
+    ClearState::color_and_depth(r, g, b, 1.0, 1.0)
 }
 
 /// three-d's camera for the orbit camera drawing into `viewport`.
