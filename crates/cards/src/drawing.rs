@@ -161,17 +161,31 @@ pub(crate) fn member_view_avoiding(
     }
     let mut tags = blocked;
     let mut anchors = Vec::new();
+    let view_middle_y = bounds(&view.outline).map_or(0.0, |(low, high)| fit.at(0.5 * (low + high)).y);
     for face in &view.faces {
         let points = fit.all(&face.outline);
         let colour = face.face.colour();
         let Some((low, high)) = bounds(&points) else { continue };
         let centre = 0.5 * (low + high);
-        if points.len() >= 3 && twice_area(&points).abs() > 8.0 {
-            page.polygon(&points, Some(colour), false);
-            page.line_width(0.3);
+        let area_pt2 = 0.5 * twice_area(&points).abs();
+        if points.len() >= 3 && area_pt2 > 4.0 {
+            // A light tint and thin lines in the face's own darker shade:
+            // faces tell apart by the hatching's angle in black and white
+            // without a large face (a hip's backing) printing near black.
+            page.polygon(&points, Some(tint(colour, FACE_TINT)), false);
+            page.line_width(0.25);
+            page.stroke_colour(shade(colour, 0.55));
+            let spacing = if area_pt2 > LARGE_FACE_PT2 { 4.5 } else { 2.5 };
+            let dashed = lower_backing(face, &points, view_middle_y);
+            if dashed {
+                page.dash(&[1.5, 1.5]);
+            }
+            page.hatch(&points, face.face.hatch_deg(), spacing);
+            if dashed {
+                page.dash(&[]);
+            }
+            page.line_width(0.5);
             page.stroke_colour(BLACK);
-            page.hatch(&points, face.face.hatch_deg(), 2.5);
-            page.line_width(0.6);
             page.polygon(&points, None, true);
         } else {
             page.line_width(2.6);
@@ -193,6 +207,28 @@ pub(crate) fn member_view_avoiding(
             place_tag(page, &mut tags, centre, tag_size, face.face.tag());
         }
     }
+}
+
+/// How much of a face's colour is mixed into white for its fill.
+const FACE_TINT: f32 = 0.45;
+/// A face larger than this (square points) is hatched more openly.
+const LARGE_FACE_PT2: f64 = 400.0;
+
+/// `colour` mixed into white: `amount` 1 is the colour, 0 white.
+fn tint(colour: [f32; 3], amount: f32) -> [f32; 3] {
+    colour.map(|part| 1.0 - amount * (1.0 - part))
+}
+
+/// `colour` darkened: `amount` 1 is the colour, 0 black.
+fn shade(colour: [f32; 3], amount: f32) -> [f32; 3] {
+    colour.map(|part| part * amount)
+}
+
+/// Whether a face is the lower-in-view of a hip's two backed sides; its
+/// hatching is dashed so the two sides read as two faces.
+fn lower_backing(face: &crate::ViewFace, points: &[DVec2], middle_y_pt: f64) -> bool {
+    let centre_y = points.iter().map(|p| p.y).sum::<f64>() / points.len().max(1) as f64;
+    face.face == crate::CutFace::Backing && centre_y < middle_y_pt
 }
 
 /// A tag at `at`, or nudged clear of the tags already placed (with a
@@ -546,4 +582,63 @@ fn quads_overlap(a: &[DVec2; 4], b: &[DVec2; 4]) -> bool {
         }
     }
     true
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::{CutFace, ViewFace};
+
+    /// The grey a colour prints as (ITU-R BT.601 luma weights, the usual
+    /// conversion of RGB to grey).
+    fn grey(colour: [f64; 3]) -> f64 {
+        0.299 * colour[0] + 0.587 * colour[1] + 0.114 * colour[2]
+    }
+
+    fn numbers_before<'a>(ops: &'a str, operator: &str) -> Vec<Vec<f64>> {
+        ops.lines()
+            .filter(|line| line.ends_with(operator) && line.len() > operator.len())
+            .map(|line| line.split_whitespace().filter_map(|word| word.parse().ok()).collect())
+            .collect()
+    }
+
+    /// A backed hip's top seen from above: two backing faces, one each side
+    /// of the top's centre line, 100 x 10 points each.
+    fn backed_top() -> MemberView {
+        let rect = |y0: f64, y1: f64| {
+            vec![DVec2::new(0.0, y0), DVec2::new(100.0, y0), DVec2::new(100.0, y1), DVec2::new(0.0, y1)]
+        };
+        MemberView {
+            outline: rect(-10.0, 10.0),
+            parts: vec![],
+            faces: vec![
+                ViewFace { face: CutFace::Backing, outline: rect(0.0, 10.0) },
+                ViewFace { face: CutFace::Backing, outline: rect(-10.0, 0.0) },
+            ],
+        }
+    }
+
+    #[test]
+    fn faces_print_as_light_greys_with_open_coloured_hatching() {
+        for face in CutFace::ALL {
+            let fill = tint(face.colour(), FACE_TINT).map(f64::from);
+            // Light enough that black text and lines read over it in black
+            // and white (common practice, no source: 60 % grey or lighter).
+            assert!(grey(fill) >= 0.6, "{face:?} fill prints at {:.2}", grey(fill));
+        }
+        let mut page = Page::new(200.0, 100.0);
+        let fit = Fit { scale: 1.0, origin: DVec2::new(50.0, 50.0) };
+        member_view(&mut page, &backed_top(), fit, 0.0);
+        let ops = page.ops();
+        // Hatch lines in the face's own darker shade, never black.
+        let strokes = numbers_before(ops, " RG");
+        let shade = shade(CutFace::Backing.colour(), 0.55).map(f64::from);
+        assert!(strokes.iter().any(|c| c.iter().zip(shade).all(|(a, b)| (a - b).abs() < 1e-3)));
+        // Large faces hatched 4.5 pt apart: a 100 x 10 face takes no more
+        // than (100 + 10) / 4.5 + 3 lines each way round (derivation).
+        let lines = ops.lines().filter(|line| line.ends_with(" m")).count();
+        assert!(lines <= 2 * 30 + 8, "{lines} hatch lines");
+        // The two backed sides tell apart: one hatched dashed.
+        assert_eq!(ops.matches("[1.5 1.5] 0 d").count(), 1);
+    }
 }

@@ -321,6 +321,12 @@ impl Page {
         let _ = writeln!(self.ops, "/Fm{form} Do");
     }
 
+    /// The content stream written so far, for tests to read.
+    #[cfg(test)]
+    pub fn ops(&self) -> &str {
+        &self.ops
+    }
+
     fn into_content(self) -> Vec<u8> {
         // Text keeps its characters until here; the fonts read WinAnsi bytes.
         let mut bytes = Vec::with_capacity(self.ops.len());
