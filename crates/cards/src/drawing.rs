@@ -595,7 +595,7 @@ mod tests {
         0.299 * colour[0] + 0.587 * colour[1] + 0.114 * colour[2]
     }
 
-    fn numbers_before<'a>(ops: &'a str, operator: &str) -> Vec<Vec<f64>> {
+    fn numbers_before(ops: &str, operator: &str) -> Vec<Vec<f64>> {
         ops.lines()
             .filter(|line| line.ends_with(operator) && line.len() > operator.len())
             .map(|line| line.split_whitespace().filter_map(|word| word.parse().ok()).collect())
