@@ -297,6 +297,39 @@ fn cheek_top_mark(
         .map(|(_, mark)| mark)
 }
 
+/// Which side of the member (looking up it) each of a double-cheek tail's
+/// two faces lies on, from the tail lines seen from above: the pairing of
+/// faces to sides whose lines' angles from square best match the faces'
+/// top-edge angles (the top view's +y side is the left). Faces cut alike
+/// (a regular hip's) pair either way. `None` when the top view does not
+/// show a tail line on each side.
+fn tail_face_hands(top: &MemberView, faces: &[FaceAngles]) -> Option<[Hand; 2]> {
+    let lines: Vec<(f64, bool)> = top
+        .faces
+        .iter()
+        .filter(|view_face| view_face.face == CutFace::TailPlumb)
+        .filter_map(|view_face| {
+            let (a, b) = face_ends(&view_face.outline)?;
+            let d = b - a;
+            Some((d.x.abs().atan2(d.y.abs()).to_degrees(), a.y + b.y > 0.0))
+        })
+        .collect();
+    let [first, second] = faces else { return None };
+    let cost = |face: &FaceAngles, left: bool| {
+        lines
+            .iter()
+            .filter(|(_, on_left)| *on_left == left)
+            .map(|(angle, _)| (angle - face.top_edge_angle_deg).abs())
+            .fold(f64::INFINITY, f64::min)
+    };
+    let first_left = cost(first, true) + cost(second, false);
+    let first_right = cost(first, false) + cost(second, true);
+    if !first_left.is_finite() && !first_right.is_finite() {
+        return None;
+    }
+    Some(if first_left <= first_right { [Hand::Left, Hand::Right] } else { [Hand::Right, Hand::Left] })
+}
+
 fn cut_angles(face: &FaceAngles) -> CutAngles {
     CutAngles {
         side_line_deg: face.side_angle_deg,
@@ -505,19 +538,50 @@ fn card_cuts(
                     notes,
                 });
             }
-            Cut::Tail { style: tail_style, square, faces, .. } => cuts.push(CardCut {
-                face: CutFace::TailPlumb,
-                place: match tail_style {
-                    TailCut::Square => "tail, square to the edge".into(),
-                    _ => "tail, plumb on the fascia line".into(),
-                },
-                square: Some(side_square(*square, MarkAlong::Figure, member, style)),
-                settings: faces.first().map(angle_settings).unwrap_or_default(),
-                angles: faces.first().map(cut_angles),
-                mark: edge_mark(side, CutFace::TailPlumb, depth_in),
-                top_mark: None,
-                notes: vec![],
-            }),
+            Cut::Tail { style: tail_style, square, faces, .. } => {
+                let place = match tail_style {
+                    TailCut::Square => "tail, square to the edge".to_string(),
+                    _ => "tail, plumb on the fascia line".to_string(),
+                };
+                if faces.len() < 2 {
+                    cuts.push(CardCut {
+                        face: CutFace::TailPlumb,
+                        place,
+                        square: Some(side_square(*square, MarkAlong::Figure, member, style)),
+                        settings: faces.first().map(angle_settings).unwrap_or_default(),
+                        angles: faces.first().map(cut_angles),
+                        mark: edge_mark(side, CutFace::TailPlumb, depth_in),
+                        top_mark: None,
+                        notes: vec![],
+                    });
+                } else {
+                    // A hip's tail: a double cheek, one face parallel to each
+                    // fascia, each with its own saw settings. The first
+                    // face's card carries the square's close-up.
+                    let hands = top.and_then(|top| tail_face_hands(top, faces));
+                    for (index, face) in faces.iter().enumerate() {
+                        let which = match hands.as_ref().and_then(|hands| hands.get(index)) {
+                            Some(Hand::Left) => "left face".to_string(),
+                            Some(Hand::Right) => "right face".to_string(),
+                            None => format!("face {} of {}", index + 1, faces.len()),
+                        };
+                        cuts.push(CardCut {
+                            face: CutFace::TailPlumb,
+                            place: format!("{place}, {which} of a double cheek"),
+                            square: Some(side_square(face.plumb_square, MarkAlong::Figure, member, style)),
+                            settings: angle_settings(face),
+                            angles: Some(cut_angles(face)),
+                            mark: if index == 0 {
+                                edge_mark(side, CutFace::TailPlumb, depth_in)
+                            } else {
+                                None
+                            },
+                            top_mark: None,
+                            notes: vec![],
+                        });
+                    }
+                }
+            }
             Cut::Soffit { square, length_in, .. } => cuts.push(CardCut {
                 face: CutFace::TailLevel,
                 place: "tail, level soffit cut".into(),
