@@ -347,9 +347,55 @@ fn paragraph(text: impl Into<String>, relative: f64, bold: bool) -> Paragraph {
     Paragraph { text: text.into(), relative, bold, colour: BLACK }
 }
 
+/// An area for people: square feet on inch plans, square metres on
+/// metric ones.
+fn area_text(sq_in: f64, style: LengthStyle) -> String {
+    if style == LengthStyle::Millimetres {
+        format!("{:.1} sq m", sq_in * 0.0254 * 0.0254)
+    } else {
+        format!("{:.1} sq ft", sq_in / 144.0)
+    }
+}
+
+/// The frame's and the members' warnings, each written once with every
+/// label it is on ("HJ1, HJ4: the upper end cut needs ..."), in the order
+/// they first appear.
+fn grouped_warnings(deck: &CardDeck) -> Vec<String> {
+    let mut groups: Vec<(String, Vec<String>)> = Vec::new();
+    let mut add = |label: &str, text: &str| match groups.iter_mut().find(|(words, _)| words == text) {
+        Some((_, labels)) => {
+            if !labels.iter().any(|known| known == label) {
+                labels.push(label.to_string());
+            }
+        }
+        None => groups.push((text.to_string(), vec![label.to_string()])),
+    };
+    for warning in &deck.warnings {
+        // Frame warnings are written "LABEL: words".
+        match warning.split_once(": ") {
+            Some((label, text)) if !label.contains(' ') => add(label, text),
+            _ => add("", warning),
+        }
+    }
+    for member in &deck.members {
+        for warning in &member.warnings {
+            add(&member.label, warning);
+        }
+    }
+    groups
+        .into_iter()
+        .map(|(text, labels)| {
+            let labels: Vec<String> = labels.into_iter().filter(|label| !label.is_empty()).collect();
+            if labels.is_empty() { text } else { format!("{}: {text}", labels.join(", ")) }
+        })
+        .collect()
+}
+
 /// The cover sheet and, when it runs over, its following pages.
 fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
     let style = deck.length_style;
+    // Short lengths (kerf, trim) in inches alone, or millimetres.
+    let short_style = if style == LengthStyle::Millimetres { style } else { LengthStyle::Inches };
     let mut page = Page::new(paper.x, paper.y);
     let width = paper.x - 2.0 * MARGIN;
     page.fill_colour(BLACK);
@@ -378,7 +424,11 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
         "Plan: wall lines bold, eaves grey, ridges solid, hips dashed, valleys dotted; every piece with its label.",
     );
 
-    let mut lines: Vec<Paragraph> = Vec::new();
+    // The cautions first, where every crew member reads them.
+    let mut lines: Vec<Paragraph> = vec![paragraph("CAUTIONS", 1.2, true)];
+    for caution in CAUTIONS {
+        lines.push(paragraph(format!("\u{2022} {caution}"), 1.0, false));
+    }
     let summary = deck.roof_summary();
     lines.push(paragraph("ROOF", 1.2, true));
     lines.push(paragraph(
@@ -395,6 +445,7 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
         false,
     ));
     let total_area: f64 = summary.planes.iter().map(|plane| plane.eave_area_sq_in).sum();
+    let area = |sq_in: f64| area_text(sq_in, style);
     for plane in &summary.planes {
         let pitch = if style == LengthStyle::Millimetres {
             crate::square_figure::degrees_text(plane.rise_in_12.atan2(12.0).to_degrees())
@@ -403,20 +454,16 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
         };
         lines.push(paragraph(
             format!(
-                "Plane on wall {}: {pitch}, {:.1} sq ft to the wall line, {:.1} sq ft with the overhang",
+                "Plane on wall {}: {pitch}, {} to the wall line, {} with the overhang",
                 plane.wall_number,
-                plane.area_sq_in / 144.0,
-                plane.eave_area_sq_in / 144.0
+                area(plane.area_sq_in),
+                area(plane.eave_area_sq_in)
             ),
             1.0,
             false,
         ));
     }
-    lines.push(paragraph(
-        format!("Roof area with overhangs: {:.1} sq ft (sloped).", total_area / 144.0),
-        1.0,
-        false,
-    ));
+    lines.push(paragraph(format!("Roof area with overhangs: {} (sloped).", area(total_area)), 1.0, false));
     for (index, height) in summary.ridge_heights_in.iter().enumerate() {
         lines.push(paragraph(
             format!(
@@ -428,34 +475,10 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
             false,
         ));
     }
-    lines.push(paragraph("MEMBERS", 1.2, true));
-    for member in &deck.members {
-        lines.push(paragraph(
-            format!(
-                "{}: {} x{}, {}, overall {}",
-                member.label,
-                member.kind,
-                member.count,
-                member.size,
-                length_text(member.lengths.overall_in, style)
-            ),
-            1.0,
-            false,
-        ));
-    }
-    let warnings: Vec<String> = deck
-        .warnings
-        .iter()
-        .cloned()
-        .chain(
-            deck.members
-                .iter()
-                .flat_map(|member| member.warnings.iter().map(move |w| format!("{}: {w}", member.label))),
-        )
-        .collect();
     let mut head = paragraph("WARNINGS", 1.2, true);
     head.colour = RED;
     lines.push(head);
+    let warnings = grouped_warnings(deck);
     if warnings.is_empty() {
         lines.push(paragraph("None.", 1.0, false));
     }
@@ -476,10 +499,11 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
                     .collect();
                 lines.push(paragraph(
                     format!(
-                        "{}: {} ({} boards); waste {:.1} %, no order could waste less than {:.1} % ({}).",
+                        "{}: {} ({} board{}); waste {:.1} %, no order could waste less than {:.1} % ({}).",
                         size.size,
                         counts.join(", "),
                         size.boards.len(),
+                        if size.boards.len() == 1 { "" } else { "s" },
                         size.waste_percent(),
                         size.lower_bound_waste_percent(),
                         match size.method {
@@ -510,17 +534,29 @@ fn cover_pages(deck: &CardDeck, paper: DVec2) -> Vec<Page> {
             lines.push(paragraph(
                 format!(
                     "Allowing a {} saw kerf and {} trim on every piece.",
-                    length_text(order.settings.kerf_in, LengthStyle::Inches),
-                    length_text(order.settings.trim_in, LengthStyle::Inches)
+                    length_text(order.settings.kerf_in, short_style),
+                    length_text(order.settings.trim_in, short_style)
                 ),
                 1.0,
                 false,
             ));
         }
     }
-    lines.push(paragraph("CAUTIONS", 1.2, true));
-    for caution in CAUTIONS {
-        lines.push(paragraph(format!("\u{2022} {caution}"), 1.0, false));
+
+    lines.push(paragraph("MEMBERS", 1.2, true));
+    for member in &deck.members {
+        lines.push(paragraph(
+            format!(
+                "{}: {} x{}, {}, overall {}",
+                member.label,
+                member.kind,
+                member.count,
+                member.size,
+                length_text(member.lengths.overall_in, style)
+            ),
+            1.0,
+            false,
+        ));
     }
 
     // Flow the words under the plan, then onto as many pages as they need.

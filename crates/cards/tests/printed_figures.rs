@@ -43,7 +43,7 @@ fn misread_figures(text: &str) -> Vec<String> {
             !(after.starts_with(" deg")
                 || after.starts_with(" sq ft")
                 || after.starts_with(" %")
-                || after.starts_with(" m2"))
+                || after.starts_with(" sq m"))
         })
         .map(|(number, after)| format!("{number}{after}"))
         .collect()
