@@ -114,6 +114,71 @@ impl Ctx<'_> {
             .fold(f64::INFINITY, f64::min)
     }
 
+    /// How far ridge `li` (unit direction `dir`) runs past its end at
+    /// `node`: negative where it butts against an earlier ridge's side.
+    ///
+    /// Where an earlier ridge meets this one at an angle, this one butts
+    /// against its side; otherwise a hip end runs half a rafter past the
+    /// node, flush with the side kings' faces.
+    pub fn ridge_end_offset(&self, li: usize, dir: DVec2, node: DVec2) -> f64 {
+        let hip_end =
+            self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3);
+        let butt =
+            self.lines.iter().take(li).filter(|l| l.kind == RoofLineKind::Ridge && l.touches(node)).find_map(
+                |l| {
+                    let other = (l.to - l.from).try_normalize()?;
+                    let sin = other.perp_dot(dir).abs();
+                    (sin > 1e-6).then(|| self.settings.ridge.thickness_in / 2.0 / sin)
+                },
+            );
+        match butt {
+            Some(back) => -back,
+            None if hip_end => self.settings.rafter.thickness_in / 2.0,
+            None => 0.0,
+        }
+    }
+
+    /// The face of ridge `li` that a hip or valley leaving `node` along
+    /// unit plan direction `away` bears on, keeping the member's side
+    /// (`toward` is a point of it). Where the ridge ends at the node and the
+    /// member leaves it behind, that is the ridge's end; otherwise its side.
+    pub fn ridge_face_at(
+        &self,
+        li: usize,
+        node: DVec2,
+        away: DVec2,
+        toward: DVec2,
+        end: CutEnd,
+    ) -> Option<HalfSpace> {
+        let ridge = self.lines.get(li)?;
+        let t = self.settings.ridge.thickness_in;
+        let dir = (ridge.to - ridge.from).try_normalize()?;
+        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
+        let into = if near(ridge.from) {
+            Some(dir)
+        } else if near(ridge.to) {
+            Some(-dir)
+        } else {
+            None
+        };
+        let side = || side_face(ridge.from, ridge.to, t, toward, FaceTag::Cheek, end);
+        let Some(into) = into else { return side() };
+        let leaving = away.dot(into);
+        if leaving >= -1e-9 {
+            return side();
+        }
+        // The member's centre line leaves the ridge's box through the face
+        // it crosses first: the end (at s_end) or the side (at s_side).
+        let e = self.ridge_end_offset(li, dir, node);
+        let s_end = -e / leaving;
+        let across = away.perp_dot(dir).abs();
+        let s_side = if across > 1e-12 { t / 2.0 / across } else { f64::INFINITY };
+        if e > 0.0 && s_end > s_side {
+            return side();
+        }
+        HalfSpace::through((node - into * e).extend(0.0), into.extend(0.0), FaceTag::Cheek, Some(end))
+    }
+
     /// The ridge's pieces, split so none is longer than the longest stock,
     /// splices on common-rafter lines where they fall right.
     pub fn ridge_specs(&self, li: usize, line: &PlanLine) -> Vec<PieceSpec> {
@@ -121,27 +186,7 @@ impl Ctx<'_> {
             return Vec::new();
         };
         let len = line.from.distance(line.to);
-        let half_rafter = self.settings.rafter.thickness_in / 2.0;
-        let hip_end = |node: DVec2| {
-            self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3)
-        };
-        // Where an earlier ridge meets this one at an angle, this one butts
-        // against its side; otherwise a hip end runs half a rafter past the
-        // node, flush with the side kings' faces.
-        let butt = |node: DVec2| -> Option<f64> {
-            self.lines.iter().take(li).filter(|l| l.kind == RoofLineKind::Ridge && l.touches(node)).find_map(
-                |l| {
-                    let other = (l.to - l.from).try_normalize()?;
-                    let sin = other.perp_dot(dir).abs();
-                    (sin > 1e-6).then(|| self.settings.ridge.thickness_in / 2.0 / sin)
-                },
-            )
-        };
-        let end_offset = |node: DVec2| match butt(node) {
-            Some(back) => -back,
-            None if hip_end(node) => half_rafter,
-            None => 0.0,
-        };
+        let end_offset = |node: DVec2| self.ridge_end_offset(li, dir, node);
         let start = -end_offset(line.from);
         let end = len + end_offset(line.to);
         let top = self.ridge_top(line);
@@ -403,6 +448,7 @@ impl Ctx<'_> {
         };
         let frame = BoardFrame { origin: line.from.extend(line.from_z + self.heel - drop_in), ..probe };
         let mid = (line.from + line.to) / 2.0;
+        let up_dir = probe.along.truncate().normalize_or_zero();
         let mut upper_cuts = Vec::new();
         let mut bearings = Vec::new();
         let mut peak_without_ridge = false;
@@ -426,14 +472,17 @@ impl Ctx<'_> {
                 if !meets || std::ptr::eq(other, line) {
                     continue;
                 }
-                let thickness = match other.kind {
-                    RoofLineKind::Ridge => self.settings.ridge.thickness_in,
-                    RoofLineKind::Hip => self.settings.hip.thickness_in,
-                    RoofLineKind::Valley => self.settings.valley.thickness_in,
-                };
-                let Some(mut h) =
-                    side_face(other.from, other.to, thickness, mid, FaceTag::Cheek, CutEnd::Bottom)
-                else {
+                let Some(mut h) = (match other.kind {
+                    RoofLineKind::Ridge => self.ridge_face_at(k, line.from, up_dir, mid, CutEnd::Bottom),
+                    _ => side_face(
+                        other.from,
+                        other.to,
+                        self.settings.valley.thickness_in,
+                        mid,
+                        FaceTag::Cheek,
+                        CutEnd::Bottom,
+                    ),
+                }) else {
                     continue;
                 };
                 h.tag = cut_tag(&h, &frame);
@@ -477,6 +526,20 @@ impl Ctx<'_> {
                     }
                 }
                 None => peak_without_ridge = true,
+            }
+        }
+        if upper_cuts.is_empty() {
+            // A ridge starting where this hip ends (another hip rising on
+            // from the node): the top keeps clear of it and bears on it.
+            for (k, other) in self.lines.iter().enumerate() {
+                if other.kind != RoofLineKind::Ridge || !other.touches(line.to) {
+                    continue;
+                }
+                if let Some(mut h) = self.ridge_face_at(k, line.to, -up_dir, mid, CutEnd::Top) {
+                    h.tag = cut_tag(&h, &frame);
+                    upper_cuts.push(h);
+                    bearings.push((Bearing::Line(k), h));
+                }
             }
         }
         if upper_cuts.is_empty() {
@@ -563,8 +626,8 @@ impl Ctx<'_> {
             if r.kind != RoofLineKind::Ridge || !r.touches(line.to) {
                 continue;
             }
-            let mut h =
-                side_face(r.from, r.to, self.settings.ridge.thickness_in, mid, FaceTag::Cheek, CutEnd::Top)?;
+            let down = (line.from - line.to).normalize_or_zero();
+            let Some(mut h) = self.ridge_face_at(ri, line.to, down, mid, CutEnd::Top) else { continue };
             h.tag = cut_tag(&h, &frame);
             upper_cuts.push(h);
             ridges.push((ri, h));

@@ -3,6 +3,7 @@
 use glam::DVec2;
 use serde::Serialize;
 
+use super::bearing_stretch::lands_on_bearing;
 use super::board::PieceSpec;
 use super::builders::{Bearing, Ctx};
 use super::checks::piece_checks;
@@ -128,7 +129,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         let first = specs.len();
         for (k, spec) in pieces.into_iter().enumerate() {
             if k > 0
-                && let Some(mating) = spec.upper_cuts.first().copied()
+                && let Some(mating) = spec.lower_cuts.first().copied()
             {
                 // The splice: the earlier piece's end face against this one.
                 let flipped = HalfSpace { normal: -mating.normal, offset: -mating.offset, ..mating };
@@ -229,8 +230,22 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         specs.iter().zip(&solids).map(|(s, solid)| measure(s, solid, settings)).collect();
     // A piece its cuts leave nothing of (a layout line squeezed out at a
     // crowded node) is not cut at all: drop it and the joints naming it.
+    // A jack whose cheek falls where its hip or valley is cut away at a
+    // node or notched over a plate has nothing to bear on: left out.
+    let mut off_bearing = vec![false; specs.len()];
+    for j in &joint_specs {
+        let jack = matches!(
+            specs[j.cut].kind,
+            MemberKind::HipJack | MemberKind::ValleyJack | MemberKind::CrippleJack
+        );
+        let on_line = matches!(specs[j.bearing].kind, MemberKind::Hip | MemberKind::Valley);
+        if jack && on_line && !lands_on_bearing(&solids[j.cut], &j.mating, &specs[j.bearing]) {
+            off_bearing[j.cut] = true;
+        }
+    }
     let usable = |i: usize| {
-        solids[i].volume() > 1e-6
+        !off_bearing[i]
+            && solids[i].volume() > 1e-6
             && [measured[i].overall_length, measured[i].long_point_length, measured[i].short_point_length]
                 .iter()
                 .all(|x| x.is_finite())
@@ -275,8 +290,16 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             .flat_map(|(_, solid)| solid.parts.iter().cloned())
             .collect(),
     };
+    // A cut another cut overrides leaves no face (a hip's foot cut back
+    // past a ridge's end by the valley beside it): no joint there.
+    let has_face = |j: &ResolvedJoint| {
+        solids[j.cut].faces().any(|f| {
+            f.normal.dot(j.mating.normal) > 1.0 - 1e-9 && j.mating.distance(f.vertices[0]).abs() < 1e-5
+        })
+    };
     let joints: Vec<(Joint, f64)> = joint_specs
         .iter()
+        .filter(|j| has_face(j))
         .map(|j| {
             let splice = specs[j.cut].kind == MemberKind::Ridge;
             let bearing = if specs[j.bearing].kind == MemberKind::Ridge && !splice {

@@ -5,6 +5,7 @@
 //! read off that solid, so the numbers and the 3D view come from one
 //! geometry.
 
+mod bearing_stretch;
 mod board;
 mod builders;
 mod checks;
