@@ -32,6 +32,8 @@ pub struct FrameTimer {
     seen: usize,
     /// Each thread's CPU time when timing began.
     cpu_at_start: Vec<(String, f64)>,
+    /// How long after the process started the first frame had been drawn.
+    first_frame_ms: Option<f64>,
 }
 
 impl FrameTimer {
@@ -51,6 +53,7 @@ impl FrameTimer {
             times_ms: Vec::new(),
             seen: 0,
             cpu_at_start: Vec::new(),
+            first_frame_ms: None,
         })
     }
 
@@ -61,6 +64,10 @@ impl FrameTimer {
         if self.times_ms.len() >= self.frames {
             // Reported already; the window is closing.
             return;
+        }
+        if self.seen == 2 {
+            // The second frame begins once the first has been drawn.
+            self.first_frame_ms = since_process_start_ms();
         }
         if self.seen == WARM_UP_FRAMES {
             self.cpu_at_start = thread_cpu_ms();
@@ -104,6 +111,10 @@ impl FrameTimer {
             scene.frame.as_ref().map_or(0, |frame| frame.members.len()),
             scene.pieces.len(),
         );
+        match self.first_frame_ms {
+            Some(ms) => println!("first frame drawn {ms:.0} ms after the program started"),
+            None => println!("first frame drawn: time since start not measured on this system"),
+        }
         // Wall-clock frame times depend on what else the machine runs; the
         // CPU each frame took does not, so it is reported beside them.
         let frames = sorted.len().max(1) as f64;
@@ -139,6 +150,17 @@ fn thread_cpu_ms() -> Vec<(String, f64)> {
             Some((name, (utime + stime) / TICKS_PER_SECOND * 1000.0))
         })
         .collect()
+}
+
+/// Time since this process started, from `/proc` (to 10 ms).
+fn since_process_start_ms() -> Option<f64> {
+    let stat = std::fs::read_to_string("/proc/self/stat").ok()?;
+    let fields: Vec<&str> = stat.rsplit_once(')')?.1.split_whitespace().collect();
+    // Field 22 of the whole line, the start time in ticks after boot.
+    let started_ticks: f64 = fields.get(19)?.parse().ok()?;
+    let uptime = std::fs::read_to_string("/proc/uptime").ok()?;
+    let up_s: f64 = uptime.split_whitespace().next()?.parse().ok()?;
+    Some((up_s - started_ticks / TICKS_PER_SECOND) * 1000.0)
 }
 
 /// CPU time used between two readings, summed by kind of thread: the
