@@ -14,8 +14,11 @@ use crate::drawing::{
     roof_plan, square_figures, square_hold,
 };
 use crate::pdf_page::{BLACK, Forms, GREY, Page, RED, text_width, wrap};
-use crate::square_figure::{degrees_text, figure_unit_in, square_figure_text, square_pair_text};
+use crate::square_figure::{
+    SquareUse, degrees_text, figure_unit_in, square_figure_text, square_pair_text, square_setting,
+};
 use crate::{CardCut, CardDeck, CutAngles, CutFace, MemberCard, MemberView};
+use pitchframe_geometry::MarkAlong;
 
 /// The smallest type printed anywhere on the cards, points: about the
 /// smallest a framer reads at arm's length in daylight (common practice,
@@ -322,7 +325,7 @@ const SUMMARY_PT: f64 = 9.0;
 
 /// The line naming the member, wrapped to the room beside the label
 /// (the numbering's corner kept clear).
-fn summary_lines(member: &MemberCard, width: f64, continued: bool) -> Vec<String> {
+fn summary_lines(member: &MemberCard, width: f64, continued: bool, style: LengthStyle) -> Vec<String> {
     let label_w = text_width(&member.label, LABEL_PT, true) + 10.0;
     let summary = if continued {
         format!("{} (continued)", member.kind)
@@ -332,18 +335,38 @@ fn summary_lines(member: &MemberCard, width: f64, continued: bool) -> Vec<String
             member.kind,
             member.count,
             member.size,
-            degrees_text(member.pitch_rad.to_degrees())
+            pitch_words(member, style)
         )
     };
     let room = width - label_w - text_width("card 00 of 00", MIN_TEXT_PT, false) - 6.0;
     wrap(&summary, room.max(60.0), SUMMARY_PT, true)
 }
 
+/// A member's pitch as the square reads it on inch plans ("6 in 12", a
+/// regular hip "6 in 17"), with its angle; on metric plans the angle.
+fn pitch_words(member: &MemberCard, style: LengthStyle) -> String {
+    let degrees = degrees_text(member.pitch_rad.to_degrees());
+    if style == LengthStyle::Millimetres || member.pitch_rad.abs() < 1e-9 {
+        return degrees;
+    }
+    let use_ =
+        if member.kind == "hip" || member.kind == "valley" { SquareUse::HipPlumb } else { SquareUse::Plain };
+    let square =
+        square_setting([12.0, 12.0 * member.pitch_rad.tan()], MarkAlong::Figure, use_, style, |_, _, _| {
+            String::new()
+        });
+    format!(
+        "{} in {} ({degrees})",
+        square_figure_text(square.figure, style),
+        square_figure_text(square.against, style)
+    )
+}
+
 /// Where the label and the length cells go in the header, and its height.
 fn header_cells(member: &MemberCard, style: LengthStyle, width: f64) -> (Vec<(DVec2, String, String)>, f64) {
     let label_w = text_width(&member.label, LABEL_PT, true) + 10.0;
     let row_h = MIN_TEXT_PT * LEADING + VALUE_PT * 1.1 + 2.0;
-    let top_line = summary_lines(member, width, false).len() as f64 * SUMMARY_PT * LEADING + 2.0;
+    let top_line = summary_lines(member, width, false, style).len() as f64 * SUMMARY_PT * LEADING + 2.0;
     let mut x = label_w;
     let mut y = top_line;
     let mut placed = Vec::new();
@@ -418,7 +441,7 @@ pub(crate) fn draw_header(
     );
     let label_w = text_width(&member.label, LABEL_PT, true) + 10.0;
     page.fill_colour(BLACK);
-    let summary = summary_lines(member, inner.size.x, continued);
+    let summary = summary_lines(member, inner.size.x, continued, style);
     for (index, line) in summary.iter().enumerate() {
         let y = top - SUMMARY_PT - index as f64 * SUMMARY_PT * LEADING;
         page.text(DVec2::new(inner.corner.x + label_w, y), SUMMARY_PT, true, line);

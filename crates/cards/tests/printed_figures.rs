@@ -99,3 +99,19 @@ fn metric_squares_read_in_millimetres_against_300() {
     // Timber 2020 Yearbook p. 169 gives edge cuts as 300:269).
     assert!(table.contains("hold 300 mm and 173 mm on the same edge; mark along the 173 mm arm"), "{table}");
 }
+
+#[test]
+fn cards_give_the_pitch_as_the_square_reads_it() {
+    let decks = plans::all_decks();
+    let words = |deck: &pitchframe_cards::CardDeck| {
+        let pdf = render_cards(deck, &CardOptions::default()).unwrap();
+        plans::text_runs(&pdf).into_iter().flatten().map(|run| run.text).collect::<Vec<_>>().join(" ")
+    };
+    let demo = words(&decks[0]);
+    // 6 in 12 is atan(6/12) = 26.57 deg; a regular hip rises 6 in 16.97,
+    // held 6 in 17, atan(6/16.97) = 19.47 deg (trade.md section 2).
+    assert!(demo.contains("pitch 6 in 12 (26.6 deg)"), "common pitch");
+    assert!(demo.contains("pitch 6 in 17 (19.5 deg)"), "hip pitch");
+    // Metric plans give the angle (the bungalow's commons are at 30 deg).
+    assert!(words(&decks[2]).contains("pitch 30 deg"), "metric pitch");
+}
