@@ -263,6 +263,14 @@ impl Page {
             low = low.min(*point);
             high = high.max(*point);
         }
+        // Only the part on the page is hatched: a full-size template shows
+        // a few inches of a member many feet long.
+        low = low.max(DVec2::ZERO);
+        high = high.min(DVec2::new(self.width, self.height));
+        if low.x >= high.x || low.y >= high.y {
+            self.op("Q");
+            return;
+        }
         let centre = 0.5 * (low + high);
         let reach = 0.5 * (high - low).length() + spacing;
         let along = DVec2::from_angle(angle_deg.to_radians());
