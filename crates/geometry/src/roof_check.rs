@@ -165,8 +165,8 @@ pub enum RoofDefect {
         /// Index into `Roof::planes`.
         other: usize,
     },
-    /// Where two planes meet, their heights differ, and no gable face
-    /// stands there spanning the step.
+    /// Where two planes meet, their heights differ, and the gable faces
+    /// standing there (if any) do not fill the step.
     ///
     /// A step is right in one place only: beside a gable at an inside
     /// corner. There the pitched wall's plane is at height 0 at the corner,
@@ -232,7 +232,9 @@ pub enum RoofDefect {
         /// Index into `Roof::lines`.
         line: usize,
     },
-    /// Two planes that meet along an edge with no line reported there.
+    /// Two planes that meet along an edge with no line reported there
+    /// (and no gable face standing between them, nor a plane narrower than
+    /// the tolerance with a line to each).
     #[error("planes {plane} and {other} meet with no ridge, hip or valley reported")]
     PlanesMeetWithoutLine {
         /// Index into `Roof::planes`.
@@ -372,11 +374,9 @@ impl GableSpan {
         range
     }
 
-    /// Whether the face stands at `p` and spans both heights there.
-    fn spans(&self, p: DVec2, z1: f64, z2: f64, tol: f64, height_tol: f64) -> bool {
-        let Some(s) = self.along(p, tol) else { return false };
-        self.heights_at(s, tol)
-            .is_some_and(|(lo, hi)| [z1, z2].iter().all(|&z| z >= lo - height_tol && z <= hi + height_tol))
+    /// The heights the face spans on the plumb line at `p`, if it stands there.
+    fn span_at(&self, p: DVec2, tol: f64) -> Option<(f64, f64)> {
+        self.heights_at(self.along(p, tol)?, tol)
     }
 
     /// The part of the plan segment `p -> p + unit * [lo, hi]` (a stretch
@@ -403,6 +403,24 @@ impl GableSpan {
     fn segment(&self) -> (DVec2, DVec2) {
         (self.origin + self.unit * self.lo, self.origin + self.unit * self.hi)
     }
+}
+
+/// Whether the gable faces standing at `p` together fill the plumb line
+/// between heights `z1` and `z2` (two faces in one vertical plane may
+/// stand one above the other, where two gables' lines meet).
+fn step_filled(spans: &[GableSpan], p: DVec2, z1: f64, z2: f64, tol: f64, height_tol: f64) -> bool {
+    let mut ranges: Vec<(f64, f64)> = spans.iter().filter_map(|g| g.span_at(p, tol)).collect();
+    ranges.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let (lo, hi) = (z1.min(z2), z1.max(z2));
+    // Filled from `lo` up to `reach` so far.
+    let mut reach = lo;
+    for (a, b) in ranges {
+        if a > reach + height_tol {
+            break;
+        }
+        reach = reach.max(b);
+    }
+    reach >= hi - height_tol
 }
 
 /// Twice-halved shoelace area, positive when counter-clockwise.
@@ -556,7 +574,7 @@ fn build_faces(
         let inward = (end - start).perp().normalize_or_zero();
         let interior = interior_point(&points, min, max);
         let face = Face { plane, wall, points, heights, start, end, inward, slope, min, max, interior };
-        if crosses_itself(&face.points) {
+        if crosses_itself(&face.points, tol) {
             defects.push(RoofDefect::PlaneCrossesItself { plane });
         }
         check_wall_line(&face, tol, height_tol, defects);
@@ -574,9 +592,11 @@ fn build_faces(
     faces
 }
 
-/// Whether two edges of a polygon cross properly (touching is left to the
-/// area and overlap checks, since solvers may repeat collinear points).
-fn crosses_itself(points: &[DVec2]) -> bool {
+/// Whether two edges of a polygon cross properly, each end of either edge
+/// more than `tol` off the other's line (touching is left to the area and
+/// overlap checks, since solvers may repeat collinear points; a crossing
+/// shallower than the tolerance is a sliver's rounding, not a fold).
+fn crosses_itself(points: &[DVec2], tol: f64) -> bool {
     let n = points.len();
     let edges: Vec<(DVec2, DVec2)> =
         (0..n).filter_map(|i| Some((*points.get(i)?, *points.get((i + 1) % n)?))).collect();
@@ -587,7 +607,7 @@ fn crosses_itself(points: &[DVec2]) -> bool {
             return;
         }
         if let (Some(&(a, b)), Some(&(c, d))) = (edges.get(i), edges.get(j)) {
-            crossed = segments_meet(a, b, c, d) == Meeting::Cross;
+            crossed = segments_meet(a, b, c, d) == Meeting::Cross && cross_clearly(a, b, c, d, tol);
         }
     });
     crossed
@@ -657,15 +677,23 @@ fn check_coverage(outline: &Outline, faces: &[Face], tol: f64, defects: &mut Vec
     }
 }
 
-/// Tests every pair of planes whose boxes meet; returns the pairs (by face
-/// index) that share an edge of positive length and are not one plane.
+/// Two planes that share plan edge, with the stretches they share.
+struct Neighbours {
+    /// Indices into `Roof::planes`.
+    planes: (usize, usize),
+    /// The shared stretches in plan.
+    stretches: Vec<(DVec2, DVec2)>,
+}
+
+/// Tests every pair of planes whose boxes meet; returns the pairs that
+/// share an edge of positive length and are not one plane.
 fn check_pairs(
     faces: &[Face],
     spans: &[GableSpan],
     tol: f64,
     height_tol: f64,
     defects: &mut Vec<RoofDefect>,
-) -> Vec<(usize, usize)> {
+) -> Vec<Neighbours> {
     let mut order: Vec<usize> = (0..faces.len()).collect();
     order.sort_by(|&i, &j| faces[i].min.x.total_cmp(&faces[j].min.x));
     let mut neighbours = Vec::new();
@@ -692,7 +720,7 @@ fn check_pair(
     tol: f64,
     height_tol: f64,
     defects: &mut Vec<RoofDefect>,
-    neighbours: &mut Vec<(usize, usize)>,
+    neighbours: &mut Vec<Neighbours>,
 ) {
     let overlap = a.interior.is_some_and(|p| b.deeply_contains(p, tol))
         || b.interior.is_some_and(|p| a.deeply_contains(p, tol))
@@ -712,7 +740,7 @@ fn check_pair(
             }
             let other_height = y.height_at(p);
             if (z - other_height).abs() > height_tol
-                && !spans.iter().any(|g| g.spans(p, z, other_height, tol, height_tol))
+                && !step_filled(spans, p, z, other_height, tol, height_tol)
             {
                 defects.push(RoofDefect::StepBetweenPlanes {
                     plane: x.plane,
@@ -725,30 +753,35 @@ fn check_pair(
             }
         }
     }
-    if !same_plane(a, b, height_tol) && shared_edge_length(a, b, spans, tol) > 2.0 * tol {
-        neighbours.push((a.plane, b.plane));
+    if !same_plane(a, b, height_tol) {
+        let stretches = shared_stretches(a, b, spans, tol);
+        let length: f64 = stretches.iter().map(|(u, v)| u.distance(*v)).sum();
+        if length > 2.0 * tol {
+            neighbours.push(Neighbours { planes: (a.plane, b.plane), stretches });
+        }
     }
 }
 
 /// Whether an edge of `a` crosses an edge of `b` with both more than `tol`
 /// from the crossing on each side.
 fn edges_cross_clearly(a: &Face, b: &Face, tol: f64) -> bool {
-    a.edges().any(|(_, p, q)| {
-        b.edges().any(|(_, r, s)| {
-            let side = |u: DVec2, v: DVec2, w: DVec2| {
-                (v - u).perp_dot(w - u) / (v - u).length().max(f64::MIN_POSITIVE)
-            };
-            let (d1, d2) = (side(p, q, r), side(p, q, s));
-            let (d3, d4) = (side(r, s, p), side(r, s, q));
-            d1 * d2 < 0.0 && d3 * d4 < 0.0 && d1.abs().min(d2.abs()) > tol && d3.abs().min(d4.abs()) > tol
-        })
-    })
+    a.edges().any(|(_, p, q)| b.edges().any(|(_, r, s)| cross_clearly(p, q, r, s, tol)))
 }
 
-/// Total plan length along which an edge of `a` runs on an edge of `b`
-/// with no gable face standing between them.
-fn shared_edge_length(a: &Face, b: &Face, spans: &[GableSpan], tol: f64) -> f64 {
-    let mut total = 0.0;
+/// Whether segments `p q` and `r s` cross with both ends of each more than
+/// `tol` from the other's line.
+fn cross_clearly(p: DVec2, q: DVec2, r: DVec2, s: DVec2, tol: f64) -> bool {
+    let side =
+        |u: DVec2, v: DVec2, w: DVec2| (v - u).perp_dot(w - u) / (v - u).length().max(f64::MIN_POSITIVE);
+    let (d1, d2) = (side(p, q, r), side(p, q, s));
+    let (d3, d4) = (side(r, s, p), side(r, s, q));
+    d1 * d2 < 0.0 && d3 * d4 < 0.0 && d1.abs().min(d2.abs()) > tol && d3.abs().min(d4.abs()) > tol
+}
+
+/// The stretches along which an edge of `a` runs on an edge of `b` with
+/// no gable face standing between them.
+fn shared_stretches(a: &Face, b: &Face, spans: &[GableSpan], tol: f64) -> Vec<(DVec2, DVec2)> {
+    let mut out = Vec::new();
     for (_, p, q) in a.edges() {
         let dir = q - p;
         let len = dir.length();
@@ -769,19 +802,19 @@ fn shared_edge_length(a: &Face, b: &Face, spans: &[GableSpan], tol: f64) -> f64 
             let mut covered: Vec<(f64, f64)> =
                 spans.iter().filter_map(|g| g.covered(p, unit, lo, hi, tol)).collect();
             covered.sort_by(|x, y| x.0.total_cmp(&y.0));
-            let mut shared = hi - lo;
             let mut reach = lo;
             for (c0, c1) in covered {
-                let start = c0.max(reach);
-                if c1 > start {
-                    shared -= c1 - start;
-                    reach = c1;
+                if c0 > reach {
+                    out.push((p + unit * reach, p + unit * c0));
                 }
+                reach = reach.max(c1);
             }
-            total += shared.max(0.0);
+            if hi > reach {
+                out.push((p + unit * reach, p + unit * hi));
+            }
         }
     }
-    total
+    out
 }
 
 fn distance_to_line(p: DVec2, origin: DVec2, unit: DVec2) -> f64 {
@@ -797,7 +830,7 @@ fn same_plane(a: &Face, b: &Face, height_tol: f64) -> bool {
 fn check_lines(
     roof: &Roof,
     faces: &[Face],
-    neighbours: &[(usize, usize)],
+    neighbours: &[Neighbours],
     tol: f64,
     height_tol: f64,
     defects: &mut Vec<RoofDefect>,
@@ -839,16 +872,24 @@ fn check_lines(
                 continue;
             }
             // The face lies to the left of its own edge along the line;
-            // the line's middle may be a corner of other edges too.
+            // the line's middle may be a corner of other edges too. Of the
+            // edges along it, the nearest: a plane narrower than the
+            // tolerance has edges on both sides of the line within it.
             let along = (line.to - line.from).truncate().normalize_or_zero();
-            let edge = members.iter().find_map(|f| {
-                f.edges()
-                    .find(|&(_, a, b)| {
-                        let dir = (b - a).normalize_or_zero();
-                        dir.perp_dot(along).abs() <= 1e-6 && distance_to_segment(mid.truncate(), a, b) <= tol
-                    })
-                    .map(|(_, a, b)| (*f, (b - a).perp()))
-            });
+            let ends = [line.from.truncate(), line.to.truncate(), mid.truncate()];
+            let edge = members
+                .iter()
+                .flat_map(|f| f.edges().map(move |(_, a, b)| (*f, a, b)))
+                .filter(|&(_, a, b)| {
+                    let dir = (b - a).normalize_or_zero();
+                    dir.perp_dot(along).abs() <= 1e-6 && distance_to_segment(mid.truncate(), a, b) <= tol
+                })
+                .map(|(f, a, b)| {
+                    let off: f64 = ends.iter().map(|&x| distance_to_segment(x, a, b)).sum();
+                    (off, f, (b - a).perp())
+                })
+                .min_by(|x, y| x.0.total_cmp(&y.0))
+                .map(|(_, f, into)| (f, into));
             if let Some((face, into)) = edge {
                 sides.push((face, into));
             }
@@ -888,10 +929,26 @@ fn check_lines(
             }
         }
     }
-    for &(p, q) in neighbours {
-        let key = (p.min(q), p.max(q));
-        if !reported.contains(&key) {
-            defects.push(RoofDefect::PlanesMeetWithoutLine { plane: key.0, other: key.1 });
+    let known = |x: usize, y: usize| reported.contains(&(x.min(y), x.max(y)));
+    for n in neighbours {
+        let (p, q) = n.planes;
+        if known(p, q) {
+            continue;
+        }
+        // Two planes within the tolerance of each other along a stretch
+        // where a third runs too, with a line to each: a sliver of that
+        // third plane, narrower than the tolerance, lies between them, and
+        // its two lines stand for theirs (a stretch may pass from one such
+        // sliver to the next).
+        let between: Vec<&Face> = faces
+            .iter()
+            .filter(|c| c.plane != p && c.plane != q && known(p, c.plane) && known(c.plane, q))
+            .collect();
+        let sliver = n.stretches.iter().all(|&(u, v)| {
+            [u, v, (u + v) / 2.0].iter().all(|&x| between.iter().any(|c| c.on_boundary(x, tol)))
+        });
+        if !sliver {
+            defects.push(RoofDefect::PlanesMeetWithoutLine { plane: p.min(q), other: p.max(q) });
         }
     }
 }
@@ -1246,6 +1303,73 @@ mod tests {
         roof.gables[3].outline.insert(2, DVec3::new(0.0, -20.0, 10.0));
         let defects = check_roof(&outline, &roof);
         assert!(has(&defects, |d| matches!(d, RoofDefect::GableFaceOffWall { face: 3, wall: 7 })));
+    }
+
+    #[test]
+    fn two_gable_faces_one_above_the_other_fill_a_step() {
+        // Two faces on the line y = 0, seen from the side: one from 0 to
+        // 40 in high at x = 50, the other from 38 to 100 in.
+        let face = |points: &[(f64, f64)]| -> Vec<DVec3> {
+            points.iter().map(|&(x, z)| DVec3::new(x, 0.0, z)).collect()
+        };
+        let (a, b) = (DVec2::new(0.0, 0.0), DVec2::new(100.0, 0.0));
+        let low = GableSpan::new(&face(&[(0.0, 0.0), (100.0, 0.0), (100.0, 40.0), (0.0, 40.0)]), a, b, 1e-3);
+        let high =
+            GableSpan::new(&face(&[(0.0, 38.0), (100.0, 38.0), (100.0, 100.0), (0.0, 100.0)]), a, b, 1e-3);
+        let gap =
+            GableSpan::new(&face(&[(0.0, 45.0), (100.0, 45.0), (100.0, 100.0), (0.0, 100.0)]), a, b, 1e-3);
+        let (low, high, gap) = (low.unwrap(), high.unwrap(), gap.unwrap());
+        let p = DVec2::new(50.0, 0.0);
+        assert!(step_filled(&[low, high], p, 10.0, 90.0, 1e-3, 1e-3));
+        let low = GableSpan::new(&face(&[(0.0, 0.0), (100.0, 0.0), (100.0, 40.0), (0.0, 40.0)]), a, b, 1e-3);
+        // 40 to 45 in is left open, and a point off the faces' line stands on neither.
+        assert!(!step_filled(&[low.unwrap(), gap], p, 10.0, 90.0, 1e-3, 1e-3));
+        let low =
+            GableSpan::new(&face(&[(0.0, 0.0), (100.0, 0.0), (100.0, 100.0), (0.0, 100.0)]), a, b, 1e-3);
+        assert!(!step_filled(&[low.unwrap()], DVec2::new(50.0, 1.0), 10.0, 90.0, 1e-3, 1e-3));
+    }
+
+    /// Long-run seed 790: planes 0 and 2 lie within the tolerance of each
+    /// other, with plane 1 between them as a sliver about 0.002 in wide.
+    fn sliver_roof() -> (Outline, Roof) {
+        let outline = crate::random_outline(crate::OutlineShape::Orthogonal, 790);
+        let roof = Roof::solve(&outline).unwrap();
+        (outline, roof)
+    }
+
+    #[test]
+    fn a_sliver_with_its_lines_stands_between_two_planes() {
+        let (outline, roof) = sliver_roof();
+        assert_eq!(check_roof(&outline, &roof), vec![]);
+    }
+
+    #[test]
+    fn a_sliver_without_its_lines_leaves_planes_meeting_without_one() {
+        let (outline, mut roof) = sliver_roof();
+        // Every line of plane 2, gone: now nothing with a line to plane 2
+        // stands between it and plane 0.
+        roof.lines.retain(|l| !l.walls.contains(&2));
+        let defects = check_roof(&outline, &roof);
+        assert!(has(&defects, |d| matches!(d, RoofDefect::PlanesMeetWithoutLine { plane: 0, other: 2 })));
+    }
+
+    #[test]
+    fn the_kind_of_a_line_along_a_sliver_is_still_checked() {
+        // Seed 9079259970648893793: plane 1 is a sliver 0.00004 in wide
+        // along the valley between walls 1 and 2 (a valley: corner 2 is an
+        // inside corner). Its far edge runs within the tolerance of the
+        // line too; the check reads the kind from the nearer edge.
+        let outline = crate::random_outline(crate::OutlineShape::Orthogonal, 9_079_259_970_648_893_793);
+        let mut roof = Roof::solve(&outline).unwrap();
+        assert_eq!(check_roof(&outline, &roof), vec![]);
+        let valley = roof.lines.iter().position(|l| l.walls == [1, 2]).unwrap();
+        assert_eq!(roof.lines[valley].kind, RoofLineKind::Valley);
+        roof.lines[valley].kind = RoofLineKind::Hip;
+        let defects = check_roof(&outline, &roof);
+        assert!(has(&defects, |d| matches!(
+            d,
+            RoofDefect::LineKindWrong { found: RoofLineKind::Hip, expected: RoofLineKind::Valley, .. }
+        )));
     }
 
     fn has(defects: &[RoofDefect], pick: impl Fn(&RoofDefect) -> bool) -> bool {

@@ -37,8 +37,24 @@ fn outline_polygon(outline: &Outline) -> Polygon<f64> {
     )
 }
 
+/// The plane as a geo polygon. A plane that flows all round a courtyard's
+/// island of steeper planes comes as one outline with each inner loop
+/// joined in by a cut (out from a point, round the loop, back to the same
+/// point); each such loop becomes a hole here, as geo counts a cut as the
+/// outline touching itself.
 fn plane_polygon(plane: &RoofPlane) -> Polygon<f64> {
-    Polygon::new(ring(plane.outline.iter().map(|p| p.truncate())), vec![])
+    let mut outer: Vec<DVec2> = plane.outline.iter().map(|p| p.truncate()).collect();
+    let mut holes = Vec::new();
+    // A cut: point `a` again at `c`, with the loop's first point at `a + 1`
+    // and again at `c - 1`.
+    while let Some((a, c)) = (0..outer.len()).find_map(|a| {
+        let c = (a + 3..outer.len()).find(|&c| outer[c] == outer[a] && outer[c - 1] == outer[a + 1])?;
+        Some((a, c))
+    }) {
+        holes.push(ring(outer[a + 1..c - 1].iter().copied()));
+        outer.drain(a + 1..=c);
+    }
+    Polygon::new(ring(outer), holes)
 }
 
 /// The outline as Rust, ready to paste into a regression test.
@@ -311,13 +327,12 @@ proptest! {
     }
 
     #[test]
-    #[ignore = "gables beside inside corners and walls just over the tolerance still fail; see roof_solver_cases.rs"]
     fn orthogonal_roofs_pass(seed in any::<u64>()) {
         solve_and_check(&random_outline(OutlineShape::Orthogonal, seed))?;
     }
 
     #[test]
-    #[ignore = "gables beside inside corners and walls just over the tolerance still fail; see roof_solver_cases.rs"]
+    #[ignore = "a plane a hair wide beside walls bent by a hair can fold over itself by less than the tolerance (seed 405384574561628889), which geo counts as crossing itself"]
     fn star_roofs_pass(seed in any::<u64>()) {
         solve_and_check(&random_outline(OutlineShape::Star, seed))?;
     }
