@@ -97,6 +97,11 @@ pub struct PieceSpec {
     pub has_tail: bool,
     /// Drop on the seat (hips).
     pub drop_in: f64,
+    /// The framing-square figures for the member's own plumb and level
+    /// lines, run arm first: 12 and the rise per foot for commons and
+    /// jacks; the hip's or valley's unit run and a common's rise for hips
+    /// and valleys (17 and 6 for a regular hip at 6/12).
+    pub plumb_square: [f64; 2],
 }
 
 impl PieceSpec {

@@ -45,6 +45,23 @@ pub fn cut_tag(h: &HalfSpace, frame: &BoardFrame) -> FaceTag {
     if h.normal.dot(frame.side).abs() < 1e-9 { FaceTag::Plumb } else { FaceTag::Cheek }
 }
 
+/// The framer's square for a hip or valley of rise per run `slope`
+/// between planes `a` and `b`: its unit run (its plan run while the
+/// flatter side's common runs 12), to the nearest sixteenth as the square
+/// is read, against that common's rise per foot.
+///
+/// A common rises R per 12 of its run, and the hip rises the same R over
+/// its own plan run u = R / slope (trade.md section 2: 16.97 for a regular
+/// hip, which the square reads as 17). The flatter side gives the smaller
+/// unit run, so both figures fit the square's arms.
+pub fn hip_square(slope: f64, a: &PlaneFrame, b: &PlaneFrame) -> [f64; 2] {
+    let rise = 12.0 * a.slope.min(b.slope);
+    if !(slope > 0.0 && slope.is_finite() && rise > 0.0) {
+        return [12.0, 12.0 * slope];
+    }
+    [(rise / slope * 16.0).round() / 16.0, rise]
+}
+
 /// What every builder needs.
 pub struct Ctx<'a> {
     /// Every roof plane with its wall's frame.
@@ -68,16 +85,13 @@ pub type Built = (PieceSpec, Vec<(Bearing, HalfSpace)>, bool);
 pub type LineBearing = Option<(usize, HalfSpace)>;
 
 impl Ctx<'_> {
-    /// The tail cuts of a rafter in plane `p` on board `frame`.
-    pub fn tail_cuts(&self, p: &PlaneFrame, frame: &BoardFrame) -> Vec<HalfSpace> {
+    /// The tail cuts of a rafter in plane `p`.
+    pub fn tail_cuts(&self, p: &PlaneFrame) -> Vec<HalfSpace> {
         let o = p.overhang_in;
         let mut cuts = Vec::new();
         match self.settings.tail {
             TailCut::Plumb => cuts.extend(p.wall_side(o, true, FaceTag::Tail, Some(CutEnd::Tail))),
-            TailCut::Square => {
-                let top = frame.origin + frame.along * (-o * (1.0 + p.slope * p.slope).sqrt());
-                cuts.extend(HalfSpace::through(top, -frame.along, FaceTag::Tail, Some(CutEnd::Tail)));
-            }
+            TailCut::Square => cuts.extend(self.square_tail(p)),
             TailCut::PlumbAndLevel { plumb_height_in } => {
                 cuts.extend(p.wall_side(o, true, FaceTag::Tail, Some(CutEnd::Tail)));
                 let z = self.heel - p.slope * o - plumb_height_in;
@@ -90,6 +104,29 @@ impl Ctx<'_> {
             }
         }
         cuts
+    }
+
+    /// Plane `p`'s square tail cut: square to the rafters' edges, through
+    /// the fascia line at their top. Every common of the plane ends on
+    /// this one plane, so a hip or valley cut to it on that side ends flush
+    /// with them.
+    pub fn square_tail(&self, p: &PlaneFrame) -> Option<HalfSpace> {
+        let o = p.overhang_in;
+        let top = (p.start - p.inward * o).extend(self.heel - p.slope * o);
+        let up_slope = p.inward.extend(p.slope);
+        HalfSpace::through(top, -up_slope, FaceTag::Tail, Some(CutEnd::Tail))
+    }
+
+    /// The tail cut of plane `p`'s side of a hip or valley: plumb on the
+    /// fascia line, or square to that plane's rafters where the tails are
+    /// cut square, so it meets the fascia as that plane's commons do.
+    pub fn fascia_side_tail(&self, p: &PlaneFrame) -> Option<HalfSpace> {
+        match self.settings.tail {
+            TailCut::Square => self.square_tail(p),
+            TailCut::Plumb | TailCut::PlumbAndLevel { .. } => {
+                p.wall_side(p.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail))
+            }
+        }
     }
 
     /// The inner face of plane `p`'s wall plate, one seat width in from
@@ -244,6 +281,7 @@ impl Ctx<'_> {
                     seat: Vec::new(),
                     has_tail: false,
                     drop_in: 0.0,
+                    plumb_square: [12.0, 0.0],
                 })
             })
             .collect()
@@ -318,7 +356,7 @@ impl Ctx<'_> {
                 plate_inner: None,
             });
             if has_tail {
-                lower_cuts.extend(self.tail_cuts(p, &frame));
+                lower_cuts.extend(self.tail_cuts(p));
                 // Tails fan in over an inside corner: near it they are cut
                 // back to the side of the valley's tail.
                 for l in self.lines.iter().filter(|l| l.kind == RoofLineKind::Valley) {
@@ -352,6 +390,7 @@ impl Ctx<'_> {
             seat,
             has_tail,
             drop_in: 0.0,
+            plumb_square: [12.0, 12.0 * p.slope],
         };
         Some((spec, Some((upper_line, upper_cut)), lower_bearing, also))
     }
@@ -562,8 +601,8 @@ impl Ctx<'_> {
         let has_tail = seated && pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
         let mut lower_cuts = foot_cuts;
         if has_tail {
-            lower_cuts.extend(pl.wall_side(pl.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
-            lower_cuts.extend(pr.wall_side(pr.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
+            lower_cuts.extend(self.fascia_side_tail(pl));
+            lower_cuts.extend(self.fascia_side_tail(pr));
             if let TailCut::PlumbAndLevel { plumb_height_in } = self.settings.tail {
                 let z = [pl, pr]
                     .iter()
@@ -605,6 +644,7 @@ impl Ctx<'_> {
             seat,
             has_tail,
             drop_in,
+            plumb_square: hip_square(slope, pl, pr),
         };
         Some((spec, bearings, peak_without_ridge || foot_without_ridge))
     }
@@ -645,7 +685,7 @@ impl Ctx<'_> {
         let half = |p: &PlaneFrame| -> Option<SeatWall> {
             let mut half_cuts = Vec::new();
             if has_tail {
-                half_cuts.extend(p.wall_side(p.overhang_in, true, FaceTag::Tail, Some(CutEnd::Tail)));
+                half_cuts.extend(self.fascia_side_tail(p));
                 if let TailCut::PlumbAndLevel { plumb_height_in } = self.settings.tail {
                     let z = self.heel - p.slope * p.overhang_in - plumb_height_in;
                     half_cuts.extend(HalfSpace::through(
@@ -675,6 +715,7 @@ impl Ctx<'_> {
             seat,
             has_tail,
             drop_in: 0.0,
+            plumb_square: hip_square(slope, pl, pr),
         };
         // Ridge bearings are resolved to pieces by the caller.
         let bearings = ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).collect();

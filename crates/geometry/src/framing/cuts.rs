@@ -87,7 +87,10 @@ pub enum Cut {
     Plumb {
         /// Which end.
         end: CutEnd,
-        /// Square figure of the plumb line on the side face.
+        /// Square figures of the plumb line on the side face, run arm
+        /// first (12 and the rise; a hip's or valley's unit run and a
+        /// common's rise where the line is its own plumb line, 17 and 6 on a
+        /// regular hip at 6/12).
         square: [f64; 2],
         /// The cut's angles and saw setups.
         face: CutFace,
@@ -134,7 +137,8 @@ pub enum Cut {
     Seat {
         /// Always the seat.
         end: CutEnd,
-        /// Square figure of the heel's plumb line (the seat is square to it).
+        /// Square figures of the heel's plumb line (the seat is square to
+        /// it), run arm first, as for a plumb cut.
         square: [f64; 2],
         /// Seat cut width, level, along the member's plan line.
         seat_width_in: f64,
@@ -151,7 +155,8 @@ pub enum Cut {
         end: CutEnd,
         /// How the tail is cut.
         style: TailCut,
-        /// Square figure of the line on the side face.
+        /// Square figures of the line on the side face, run arm first, as
+        /// for a plumb cut.
         square: [f64; 2],
         /// All angles and saw setups (one face per fascia side).
         faces: Vec<CutFace>,
@@ -160,7 +165,8 @@ pub enum Cut {
     Soffit {
         /// Always the tail.
         end: CutEnd,
-        /// Square figure of the level line on the side face.
+        /// Square figures of the level line on the side face, as for the
+        /// seat.
         square: [f64; 2],
         /// Length of the level cut along the side face.
         length_in: f64,

@@ -4,7 +4,7 @@ use glam::DVec3;
 
 use super::board::PieceSpec;
 use super::solid::ON_PLANE_IN;
-use super::{Cut, CutEnd, CutFace, FaceTag, FramingSettings, HalfSpace, Hand, MemberKind, Solid, TailCut};
+use super::{Cut, CutEnd, CutFace, FaceTag, FramingSettings, HalfSpace, Hand, MemberKind, Solid};
 
 /// What is read off one piece.
 #[derive(Debug, Clone, PartialEq)]
@@ -146,12 +146,14 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
                 let tail_faces = faces_of(solid, CutEnd::Tail, &[FaceTag::Tail]);
                 let normals = distinct_normals(&tail_faces);
                 let faces: Vec<CutFace> = normals.iter().map(|n| face_of(*n)).collect();
-                let style = match spec.kind {
-                    MemberKind::Hip | MemberKind::Valley => TailCut::Plumb,
-                    _ => settings.tail,
-                };
+                let style = settings.tail;
                 if let Some(first) = faces.first() {
-                    cuts.push(Cut::Tail { end: CutEnd::Tail, style, square: first.plumb_square, faces });
+                    cuts.push(Cut::Tail {
+                        end: CutEnd::Tail,
+                        style,
+                        square: own_plumb(spec, first.plumb_square),
+                        faces,
+                    });
                 }
                 let soffit: Vec<DVec3> = faces_of(solid, CutEnd::Tail, &[FaceTag::Soffit])
                     .iter()
@@ -161,11 +163,7 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
                     let level: Vec<f64> = soffit.iter().map(|p| p.truncate().dot(plan_dir)).collect();
                     let length_in = level.iter().copied().fold(f64::NEG_INFINITY, f64::max)
                         - level.iter().copied().fold(f64::INFINITY, f64::min);
-                    cuts.push(Cut::Soffit {
-                        end: CutEnd::Tail,
-                        square: [12.0, 12.0 * spec.slope],
-                        length_in,
-                    });
+                    cuts.push(Cut::Soffit { end: CutEnd::Tail, square: spec.plumb_square, length_in });
                 }
             }
         } else {
@@ -233,8 +231,13 @@ fn end_cut(
         [n] => {
             let face = face_of(*n);
             if n.dot(fr.side).abs() < 1e-9 {
-                let cut =
-                    Cut::Plumb { end, square: face.plumb_square, face, deduction_in, plan_deduction_in };
+                let cut = Cut::Plumb {
+                    end,
+                    square: own_plumb(spec, face.plumb_square),
+                    face,
+                    deduction_in,
+                    plan_deduction_in,
+                };
                 return (Some(cut), None);
             }
             // The long point is the top corner farthest along at the top,
@@ -280,6 +283,13 @@ fn end_cut(
     }
 }
 
+/// The member's own square figures where `square` (12 and x) marks its
+/// plumb line; any other line keeps its 12-and-x figures.
+fn own_plumb(spec: &PieceSpec, square: [f64; 2]) -> [f64; 2] {
+    let plumb = (square[1] / square[0] - spec.slope).abs() < 1e-9;
+    if plumb { spec.plumb_square } else { square }
+}
+
 /// The birdsmouth, read from the seat faces.
 fn seat_cut(spec: &PieceSpec, solid: &Solid) -> Cut {
     let fr = &spec.frame;
@@ -304,7 +314,7 @@ fn seat_cut(spec: &PieceSpec, solid: &Solid) -> Cut {
         .fold(0.0, f64::max);
     Cut::Seat {
         end: CutEnd::Seat,
-        square: [12.0, 12.0 * spec.slope],
+        square: spec.plumb_square,
         seat_width_in,
         heel_height_in: fr.origin.z,
         notch_depth_in: notch_depth(spec),
