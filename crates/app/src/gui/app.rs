@@ -119,6 +119,9 @@ pub struct AppState {
     /// The folder of the window's own files; `None` keeps nothing (as for
     /// `--picture`).
     pub config: Option<ConfigDir>,
+    /// The recent files, newest first, as last read from the config folder
+    /// (read when they change, not every frame).
+    recent: Vec<PathBuf>,
     /// Whether the desktop's file dialogs are used (else paths are typed).
     pub native_dialogs: bool,
     /// Files being written on their own threads.
@@ -164,6 +167,7 @@ impl AppState {
                 let _ = config.mark_safety_shown();
             }
         }
+        let recent = config.as_ref().map(ConfigDir::recent).unwrap_or_default();
         Self {
             units: DisplayUnits::for_plan_unit(document.plan.units),
             document,
@@ -185,6 +189,7 @@ impl AppState {
             dialogs,
             notice: None,
             config,
+            recent,
             native_dialogs: native_dialog_available(),
             jobs: Vec::new(),
             picture_request: None,
@@ -218,7 +223,7 @@ impl AppState {
         let Some(label) = self.picked.as_deref().filter(|_| !self.style.client_view) else {
             return Vec::new();
         };
-        let joints = &self.derived.scene.joints;
+        let joints = &self.derived.scene.joints();
         (0..joints.len()).filter(|&index| joints[index].involves(label)).collect()
     }
 
@@ -257,7 +262,7 @@ impl AppState {
             layout: self.layout,
             units: self.units,
             theme: self.theme,
-            recent: self.config.as_ref().map(ConfigDir::recent).unwrap_or_default(),
+            recent: self.recent.clone(),
         };
         egui::Panel::top("menu").show(ui, |ui| menu_bar_ui(ui, &menu_state, &mut self.commands));
         egui::Panel::top("toolbar").show(ui, |ui| {
@@ -465,7 +470,8 @@ impl AppState {
             Command::PickJoint(index) => self.pick_joint(ctx, index),
             Command::PickAt { at, view_size } => {
                 let shown = self.shown_joints();
-                if let Some(index) = joint_at(&self.derived.scene.joints, &shown, &self.camera, at, view_size)
+                if let Some(index) =
+                    joint_at(self.derived.scene.joints(), &shown, &self.camera, at, view_size)
                 {
                     self.pick_joint(ctx, index);
                     return;
@@ -504,7 +510,7 @@ impl AppState {
     /// Picks a joint: its cut member is picked too, and the camera glides
     /// in close on it.
     fn pick_joint(&mut self, ctx: &egui::Context, index: usize) {
-        let Some(joint) = self.derived.scene.joints.get(index) else { return };
+        let Some(joint) = self.derived.scene.joints().get(index) else { return };
         self.picked_joint = Some(index);
         self.picked = Some(joint.joint.members[0].clone());
         self.side_tab = SideTab::Numbers;
@@ -653,6 +659,7 @@ impl AppState {
                     config.clear_autosave(before.as_deref());
                     config.clear_autosave(Some(path));
                     let _ = config.add_recent(path);
+                    self.recent = config.recent();
                 }
                 self.autosaved = None;
                 self.notice = Some(Notice::Info(format!("Saved {}", path.display())));
@@ -672,6 +679,7 @@ impl AppState {
             Ok(document) => {
                 if let Some(config) = &self.config {
                     let _ = config.add_recent(path);
+                    self.recent = config.recent();
                 }
                 self.load(document);
                 self.notice = None;

@@ -18,6 +18,9 @@ pub const FRAME_TIMES_VARIABLE: &str = "PITCHFRAME_FRAME_TIMES";
 /// every plane touching it, little enough to keep any plan valid.
 const NUDGE_IN: f64 = 3.0;
 
+/// The window's size for a run, in points.
+const RUN_SIZE_PT: [f32; 2] = [1280.0, 800.0];
+
 /// Frames drawn before timing starts, while the first uploads settle.
 const WARM_UP_FRAMES: usize = 5;
 
@@ -61,6 +64,14 @@ impl FrameTimer {
     pub fn on_frame(&mut self, state: &mut AppState, ctx: &egui::Context) {
         let now = Instant::now();
         self.seen += 1;
+        if self.seen == 1 {
+            // Every run at one size, a common laptop screen's, whatever
+            // the window opened at.
+            ctx.send_viewport_cmd(egui::ViewportCommand::InnerSize(egui::vec2(
+                RUN_SIZE_PT[0],
+                RUN_SIZE_PT[1],
+            )));
+        }
         if self.times_ms.len() >= self.frames {
             // Reported already; the window is closing.
             return;
@@ -79,7 +90,7 @@ impl FrameTimer {
         }
         self.last = Some(now);
         if self.times_ms.len() == self.frames {
-            self.report(state);
+            self.report(state, ctx);
             ctx.send_viewport_cmd(egui::ViewportCommand::Close);
             return;
         }
@@ -97,7 +108,10 @@ impl FrameTimer {
         ctx.request_repaint();
     }
 
-    fn report(&self, state: &AppState) {
+    fn report(&self, state: &AppState, ctx: &egui::Context) {
+        let inner =
+            ctx.input(|input| input.viewport().inner_rect).map_or(egui::Vec2::ZERO, |rect| rect.size());
+        let window = [inner.x.round() as u32, inner.y.round() as u32];
         let mut sorted = self.times_ms.clone();
         sorted.sort_by(f64::total_cmp);
         let mean = sorted.iter().sum::<f64>() / sorted.len().max(1) as f64;
@@ -105,8 +119,10 @@ impl FrameTimer {
         let slowest = sorted.last().copied().unwrap_or(0.0);
         let scene = &state.derived.scene;
         println!(
-            "{} frames ({}), {} members in {} pieces: median {median:.1} ms, mean {mean:.1} ms, slowest {slowest:.1} ms a frame",
+            "{} frames at {} x {} ({}), {} members in {} pieces: median {median:.1} ms, mean {mean:.1} ms, slowest {slowest:.1} ms a frame",
             sorted.len(),
+            window[0],
+            window[1],
             if self.moving { "corner 1 moving every frame" } else { "nothing changing" },
             scene.frame.as_ref().map_or(0, |frame| frame.members.len()),
             scene.pieces.len(),

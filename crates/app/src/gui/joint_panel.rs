@@ -42,7 +42,7 @@ fn member_words(scene: &Scene, label: &str) -> String {
 
 /// The picked joint in large type, if one is picked.
 pub fn picked_joint_ui(ui: &mut egui::Ui, scene: &Scene, units: DisplayUnits, picked_joint: Option<usize>) {
-    if let Some(joint) = picked_joint.and_then(|index| scene.joints.get(index)) {
+    if let Some(joint) = picked_joint.and_then(|index| scene.joints().get(index)) {
         joint_ui(ui, scene, units, joint);
         ui.separator();
     }
@@ -61,12 +61,12 @@ pub fn member_joints_ui(
     // One row for each member the picked one meets, standing for all its
     // pieces' joints there: the worst of them, which a click goes to.
     let mut rows: Vec<(String, String, usize, usize)> = Vec::new();
-    for (index, joint) in scene.joints.iter().enumerate().filter(|(_, joint)| joint.involves(label)) {
+    for (index, joint) in scene.joints().iter().enumerate().filter(|(_, joint)| joint.involves(label)) {
         let [cut, bearing] = &joint.joint.members;
         match rows.iter_mut().find(|row| &row.0 == cut && &row.1 == bearing) {
             Some(row) => {
                 row.3 += 1;
-                if badness(joint) > scene.joints.get(row.2).map_or(f64::NEG_INFINITY, badness) {
+                if badness(joint) > scene.joints().get(row.2).map_or(f64::NEG_INFINITY, badness) {
                     row.2 = index;
                 }
             }
@@ -79,7 +79,7 @@ pub fn member_joints_ui(
     ui.label(RichText::new(format!("Joints of {label}")).strong());
     ui.label(RichText::new("Click one (or its mark in the 3D view) to see it close up.").weak());
     for (cut, bearing, worst, count) in rows {
-        let Some(joint) = scene.joints.get(worst) else { continue };
+        let Some(joint) = scene.joints().get(worst) else { continue };
         ui.horizontal(|ui| {
             let name = format!("{cut} on {bearing}");
             let button =

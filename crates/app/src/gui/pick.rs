@@ -125,17 +125,10 @@ mod tests {
                 label_at: hi,
             }
         };
-        Scene {
-            parts: Vec::new(),
-            roof: None,
-            roof_error: None,
-            frame: None,
-            frame_error: None,
-            pieces: vec![boxed("LOW", 0.0), boxed("HIGH", 20.0)],
-            joints: Vec::new(),
-            min: DVec3::ZERO,
-            max: DVec3::ONE,
-        }
+        let mut scene = Scene::empty();
+        scene.pieces = vec![boxed("LOW", 0.0), boxed("HIGH", 20.0)];
+        scene.max = DVec3::ONE;
+        scene
     }
 
     #[test]

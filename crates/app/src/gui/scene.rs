@@ -2,6 +2,8 @@
 //! the viewport can draw and the picker can hit. Lengths stay in f64 inches
 //! here; the viewport converts to f32 when it uploads.
 
+use std::sync::OnceLock;
+
 use glam::DVec3;
 use pitchframe_geometry::framing::{FaceTag, PlacedPiece};
 use pitchframe_geometry::{
@@ -76,8 +78,11 @@ pub struct Scene {
     pub frame_error: Option<String>,
     /// Every framing piece, in the frame's order.
     pub pieces: Vec<ScenePiece>,
-    /// Every joint of the frame, placed in the view.
-    pub joints: Vec<SceneJoint>,
+    /// Every joint of the frame, placed in the view when first asked for
+    /// (a drag re-frames every frame and seldom needs them).
+    joints: OnceLock<Vec<SceneJoint>>,
+    /// How far the frame is raised onto the walls.
+    lift: DVec3,
     /// Lowest corner of the box holding every part.
     pub min: DVec3,
     /// Highest corner of that box.
@@ -119,9 +124,8 @@ impl Scene {
         let pieces: Vec<ScenePiece> =
             frame.iter().flat_map(|frame| &frame.pieces).map(|piece| scene_piece(piece, lift)).collect();
         parts.extend(member_parts(&pieces));
-        let joints = frame.as_ref().map(|frame| scene_joints(frame, lift)).unwrap_or_default();
         let (min, max) = bounds(&parts);
-        Self { parts, roof, roof_error, frame, frame_error, pieces, joints, min, max }
+        Self { parts, roof, roof_error, frame, frame_error, pieces, joints: OnceLock::new(), lift, min, max }
     }
 
     /// A scene with nothing in it, for a plan whose outline never checked.
@@ -133,10 +137,28 @@ impl Scene {
             frame: None,
             frame_error: None,
             pieces: Vec::new(),
-            joints: Vec::new(),
+            joints: OnceLock::new(),
+            lift: DVec3::ZERO,
             min: DVec3::ZERO,
             max: DVec3::splat(1.0),
         }
+    }
+}
+
+impl Scene {
+    /// Every joint of the frame, placed in the view.
+    pub fn joints(&self) -> &[SceneJoint] {
+        self.joints.get_or_init(|| {
+            self.frame.as_ref().map(|frame| scene_joints(frame, self.lift)).unwrap_or_default()
+        })
+    }
+
+    /// The scene with these joints in place of the frame's (for tests of
+    /// how a joint is shown).
+    #[cfg(test)]
+    pub fn with_joints(mut self, joints: Vec<SceneJoint>) -> Self {
+        self.joints = OnceLock::from(joints);
+        self
     }
 }
 
@@ -146,9 +168,9 @@ fn scene_piece(piece: &PlacedPiece, lift: DVec3) -> ScenePiece {
     let mut face_tags = Vec::new();
     // Faces between a piece's convex parts lie inside it: nothing to see.
     for face in piece.solid.faces().filter(|face| face.tag != FaceTag::Interior) {
-        let points: Vec<DVec3> = face.vertices.iter().map(|&p| p + lift).collect();
         let before = triangles.len();
-        triangles.push_polygon(&points);
+        // Every face of a convex part is convex.
+        triangles.push_convex_polygon(&face.vertices, lift);
         face_tags.extend(std::iter::repeat_n(face.tag, triangles.len() - before));
     }
     let [low, high] = piece.axis;

@@ -3,16 +3,18 @@
 //! GL resources live in [`Renderer`], made once with the window's GL
 //! context and shared with the paint callback through a mutex. The
 //! document never holds GL objects; the renderer re-uploads meshes only
-//! when it is handed a scene (or a pick) it has not seen.
+//! when it is handed a scene (or a pick) it has not seen, and draws the
+//! scene again only when the scene, the camera, the style, the pick or the
+//! view's size changed: other frames copy the last drawing.
 
 use std::sync::{Arc, Mutex};
 
 use egui::{PointerButton, Sense};
 use glam::{DVec2, DVec3};
 use three_d::{
-    Camera, ClearState, ColorMaterial, Context, CpuMaterial, CpuMesh, DepthTexture2D, Gm, Indices,
-    Interpolation, Mesh, Object, Positions, RenderTarget, ScissorBox, Srgba, Texture2D, Vec3, Viewport,
-    Wrapping, degrees,
+    Blend, Camera, ClearState, ColorMaterial, ColorTexture, Context, CopyEffect, CpuMaterial, CpuMesh,
+    DepthTexture2D, Gm, Indices, Interpolation, Mesh, Object, Positions, RenderTarget, ScissorBox, Srgba,
+    Texture2D, Vec3, Viewport, Wrapping, WriteMask, degrees,
 };
 
 use super::camera::OrbitCamera;
@@ -82,6 +84,8 @@ pub struct Renderer {
     uploaded: Option<Arc<Scene>>,
     models: Vec<Model>,
     highlight: Option<Highlight>,
+    /// The last drawing of the view.
+    drawn: Option<DrawnView>,
 }
 
 impl Renderer {
@@ -92,6 +96,7 @@ impl Renderer {
             uploaded: None,
             models: Vec::new(),
             highlight: None,
+            drawn: None,
         })
     }
 
@@ -216,18 +221,88 @@ impl Renderer {
             width: px(clip_px.width_px),
             height: px(clip_px.height_px),
         };
-        self.set_light(light_direction(&frame.camera));
+        let key = ViewKey {
+            scene: Arc::as_ptr(&frame.scene) as usize,
+            camera: frame.camera,
+            style: frame.style,
+            picked,
+            size_px: [viewport.width, viewport.height],
+        };
+        let drawn = match self.drawn.take() {
+            Some(drawn) if drawn.key == key => drawn,
+            earlier => self.draw_view(key, earlier),
+        };
+        // Software GL spends most of a frame on the scene's triangles; a
+        // frame where only the panels changed copies the last drawing.
         let three_d_camera = three_d_camera(&frame.camera, viewport);
-        target.clear_partially(scissor, clear_state()).render_partially(
+        let copy = CopyEffect { write_mask: WriteMask::COLOR, blend: Blend::Disabled };
+        target.apply_screen_effect_partially(
             scissor,
+            &copy,
             &three_d_camera,
-            self.objects(frame.style),
             &[],
+            Some(ColorTexture::Single(&drawn.colour)),
+            None,
         );
+        self.drawn = Some(drawn);
         // The framebuffer belongs to egui: hand it back rather than let the
         // render target delete it.
         let _egui_framebuffer = target.into_framebuffer();
     }
+
+    /// Draws the scene as `key` says into a texture of the view's size,
+    /// reusing `earlier`'s textures when the size is the same.
+    fn draw_view(&mut self, key: ViewKey, earlier: Option<DrawnView>) -> DrawnView {
+        let [width, height] = key.size_px.map(|side| side.max(1));
+        let (colour, depth) = match earlier {
+            Some(drawn) if drawn.key.size_px == key.size_px => (drawn.colour, drawn.depth),
+            _ => (
+                Texture2D::new_empty::<[u8; 4]>(
+                    &self.context,
+                    width,
+                    height,
+                    Interpolation::Nearest,
+                    Interpolation::Nearest,
+                    None,
+                    Wrapping::ClampToEdge,
+                    Wrapping::ClampToEdge,
+                ),
+                DepthTexture2D::new::<f32>(
+                    &self.context,
+                    width,
+                    height,
+                    Wrapping::ClampToEdge,
+                    Wrapping::ClampToEdge,
+                ),
+            ),
+        };
+        self.set_light(light_direction(&key.camera));
+        let camera = three_d_camera(&key.camera, Viewport::new_at_origo(width, height));
+        RenderTarget::new(colour.as_color_target(None), depth.as_depth_target()).clear(clear_state()).render(
+            &camera,
+            self.objects(key.style),
+            &[],
+        );
+        DrawnView { key, colour, depth }
+    }
+}
+
+/// Everything that decides what the 3D view's drawing looks like.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct ViewKey {
+    /// The scene drawn (its address: a new scene is a new `Arc`).
+    scene: usize,
+    camera: OrbitCamera,
+    style: ViewStyle,
+    picked: Option<usize>,
+    size_px: [u32; 2],
+}
+
+/// The last drawing of the 3D view, kept to copy while nothing in it changes.
+struct DrawnView {
+    key: ViewKey,
+    colour: Texture2D,
+    depth: DepthTexture2D,
 }
 
 impl Renderer {
@@ -462,7 +537,7 @@ fn joint_marks_ui(ui: &egui::Ui, rect: egui::Rect, scene: &Scene, camera: &Orbit
     let size = DVec2::new(f64::from(rect.width()), f64::from(rect.height()));
     let painter = ui.painter_at(rect);
     for &index in &marks.shown {
-        let Some(joint) = scene.joints.get(index) else { continue };
+        let Some(joint) = scene.joints().get(index) else { continue };
         let Some(at) = camera.project(joint.at, size) else { continue };
         let centre = rect.min + egui::vec2(at.x as f32, at.y as f32);
         let fill = if joint.tight() {

@@ -553,7 +553,7 @@ fn a_joint_clicked_in_the_side_panel_brings_the_camera_in_and_shows_its_fit() {
     let scene = Document::demo().map(|d| super::derived::Derived::new(&d.plan)).unwrap().scene;
     // The geometry crate's joint check on the demo frame: take its first
     // joint and the members it joins.
-    let first = scene.joints.first().expect("the demo frame has joints").clone();
+    let first = scene.joints().first().expect("the demo frame has joints").clone();
     let [cut, bearing] = first.joint.members.clone();
     let mut harness = demo_window_picking(&folder, &cut);
     let far = harness.state().camera.distance_in;
@@ -561,11 +561,11 @@ fn a_joint_clicked_in_the_side_panel_brings_the_camera_in_and_shows_its_fit() {
     harness.get_by_label(&format!("{cut} on {bearing}")).click();
     let_the_camera_glide(&mut harness);
     let picked = harness.state().picked_joint.expect("a joint is picked");
-    let joint = harness.state().derived.scene.joints[picked].clone();
+    let joint = harness.state().derived.scene.joints()[picked].clone();
     assert_eq!(joint.joint.members, [cut.clone(), bearing.clone()]);
     // The worst of that pair's joints is the one shown.
     let worst = scene
-        .joints
+        .joints()
         .iter()
         .filter(|j| j.joint.members == joint.joint.members)
         .map(|j| j.joint.max_gap.max(j.joint.max_overlap))
@@ -590,7 +590,7 @@ fn a_joint_clicked_in_the_side_panel_brings_the_camera_in_and_shows_its_fit() {
 fn a_click_on_a_joints_mark_in_the_3d_view_picks_that_joint() {
     let folder = TempFolder::new("joint-mark");
     let scene = Document::demo().map(|d| super::derived::Derived::new(&d.plan)).unwrap().scene;
-    let last = scene.joints.last().expect("the demo frame has joints").clone();
+    let last = scene.joints().last().expect("the demo frame has joints").clone();
     let mut harness = demo_window_picking(&folder, &last.joint.members[1]);
     let view_size = DVec2::new(700.0, 780.0);
     let camera = harness.state().camera;
@@ -601,7 +601,7 @@ fn a_click_on_a_joints_mark_in_the_3d_view_picks_that_joint() {
     harness.state_mut().push(Command::PickAt { at: click, view_size });
     let_the_camera_glide(&mut harness);
     let picked = harness.state().picked_joint.expect("the click picked a joint");
-    let joints = &harness.state().derived.scene.joints;
+    let joints = harness.state().derived.scene.joints();
     // Measured from the camera the click was made with: the picked mark is
     // within the 12 pt pick radius, and no other marked joint is nearer.
     let distance = |index: usize| camera.project(joints[index].at, view_size).unwrap().distance(click);
@@ -616,11 +616,12 @@ fn a_click_on_a_joints_mark_in_the_3d_view_picks_that_joint() {
 fn a_joint_open_by_more_than_a_64th_says_so_in_red() {
     let folder = TempFolder::new("joint-open");
     let mut harness = demo_window(&folder);
-    let mut scene = (*harness.state().derived.scene).clone();
-    let label = scene.joints[0].joint.members[0].clone();
+    let scene = (*harness.state().derived.scene).clone();
+    let mut joints = scene.joints().to_vec();
+    let label = joints[0].joint.members[0].clone();
     // 0.05 in is over 1/64 in = 0.0156 in.
-    scene.joints[0].joint.max_gap = 0.05;
-    harness.state_mut().derived.scene = std::sync::Arc::new(scene);
+    joints[0].joint.max_gap = 0.05;
+    harness.state_mut().derived.scene = std::sync::Arc::new(scene.with_joints(joints));
     harness.state_mut().picked = Some(label);
     harness.state_mut().push(Command::PickJoint(0));
     let_the_camera_glide(&mut harness);
