@@ -686,10 +686,30 @@ fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: 
     page.stroke_colour(BLACK);
     page.line(DVec2::new(drawing.corner.x, edge_y), DVec2::new(drawing.corner.x + drawing.size.x, edge_y));
     framing_square(page, h, fit, hold.on_top);
+    if hold.on_top {
+        // The cheek line across the top, marked along the arm's edge.
+        let (low_y, high_y) = (view_low_y(view), view_high_y(view));
+        let middle_y = 0.5 * (low_y + high_y);
+        let across = if (middle_y - h.mark_point.y) * h.mark_arm.y > 0.0 { h.mark_arm } else { -h.mark_arm };
+        if across.y.abs() > 1e-6 {
+            let far = h.mark_point + across * ((high_y - low_y) / across.y.abs());
+            page.line_width(1.2);
+            page.stroke_colour(RED);
+            page.line(fit.at(h.mark_point), fit.at(far));
+        }
+    }
     page.restore();
     // The figures inside the drawing's box, where their arms leave it when
     // the figure's end lies beyond.
-    square_figures(page, h, fit, HEADING_PT, style, drawing);
+    let off_board = if hold.on_top {
+        let middle_y = 0.5 * (view_low_y(view) + view_high_y(view));
+        if h.mark_point.y >= middle_y { DVec2::Y } else { -DVec2::Y }
+    } else if h.mark_point.y > 0.5 * member.depth_in {
+        DVec2::Y
+    } else {
+        -DVec2::Y
+    };
+    square_figures(page, h, fit, HEADING_PT, style, drawing, off_board);
 }
 
 /// How many times the member's width the top close-up shows across: the

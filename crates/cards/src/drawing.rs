@@ -372,7 +372,8 @@ pub(crate) fn framing_square(page: &mut Page, hold: &SquareHold, fit: Fit, see_t
 }
 
 /// The two figures of a held square, written beside the points where they
-/// meet the edge, on the side away from the square's heel, each kept
+/// meet the edge, off the board (`off_board`, a unit page direction square
+/// to the edge) and apart from each other, each kept
 /// inside `window` (page points): where a figure's point lies outside, at
 /// the place its arm leaves the window.
 pub(crate) fn square_figures(
@@ -382,21 +383,31 @@ pub(crate) fn square_figures(
     text_size: f64,
     style: LengthStyle,
     window: Area,
+    off_board: DVec2,
 ) {
     let heel = fit.at(hold.heel);
     let (low, high) = (window.corner, window.corner + window.size);
-    for (point, figure) in [(hold.mark_point, hold.mark_figure), (hold.other_point, hold.other_figure)] {
+    let figures = [
+        (hold.mark_point, hold.mark_figure, hold.other_point),
+        (hold.other_point, hold.other_figure, hold.mark_point),
+    ];
+    for (point, figure, other) in figures {
         let end = fit.at(point);
         let inside = |p: DVec2| p.cmpge(low).all() && p.cmple(high).all();
+        // Beyond the box: where the arm leaves it, or else where the edge
+        // the figures sit on leaves it on the way to the figure's point.
+        let mark = fit.at(hold.mark_point);
         let at = if inside(end) {
             end
         } else {
-            match last_inside(heel, end, low, high) {
+            match last_inside(heel, end, low, high).or_else(|| last_inside(mark, end, low, high)) {
                 Some(at) => at,
                 None => continue,
             }
         };
-        let away = (end - heel).try_normalize().unwrap_or(DVec2::Y);
+        // Off the board, beside the edge, and away from the other figure.
+        let apart = (end - fit.at(other)).try_normalize().unwrap_or(DVec2::ZERO);
+        let away = (off_board + apart * 0.6).try_normalize().unwrap_or(DVec2::Y);
         let words = crate::square_figure_text(figure, style);
         let width = text_width(&words, text_size, true);
         let half = DVec2::new(width / 2.0 + 1.0, text_size * 0.55);

@@ -247,16 +247,19 @@ fn edge_mark(view: &MemberView, face: CutFace, edge_y: f64) -> Option<CutMark> {
 /// Where a cheek cut's line is marked on the top view: on the arris it
 /// meets, running across the top, with the square's other figure landing
 /// on the stock (the face of `square`'s cut nearest `top_line_deg` at the
-/// right end, not yet used by another cut).
+/// right end, not yet used by another cut). On a piece too short for the
+/// square's whole figures, `square` is changed to half or a quarter of
+/// each, with words saying so.
 fn cheek_top_mark(
     top: &MemberView,
     upper: bool,
     top_line_deg: f64,
-    square: &SquareSetting,
+    square: &mut SquareSetting,
     left: Option<bool>,
     used: &mut Vec<usize>,
-    unit_in: f64,
+    style: LengthStyle,
 ) -> Option<CutMark> {
+    let unit_in = figure_unit_in(style);
     let (low, high) = crate::drawing::bounds(&top.outline)?;
     let middle_x = 0.5 * (low.x + high.x);
     let on_arris = |p: DVec2| (p.y - low.y).abs() < 0.05 || (p.y - high.y).abs() < 0.05;
@@ -278,23 +281,75 @@ fn cheek_top_mark(
             off(x).total_cmp(&off(y))
         })?;
     used.push(index);
-    // Of the ends on an arris, the one whose square lands its other figure
-    // on the stock rather than past the member's end.
-    [(a, b), (b, a)]
+    // Of the ends on an arris, and of the square's heel across the board or
+    // off the near side (the marked arm's line is the cheek line either
+    // way), the one that lands the other figure on the stock rather than
+    // past the member's end: a figure is read where its arm crosses wood.
+    let candidates: Vec<CutMark> = [(a, b), (b, a)]
         .into_iter()
         .filter(|(edge, _)| on_arris(*edge))
-        .filter_map(|(edge, other)| {
-            let mark = CutMark {
-                edge_point: edge,
-                into_board: (other - edge).try_normalize()?,
-                edge_along: DVec2::X,
-            };
-            let hold = crate::drawing::square_hold(&mark, square, unit_in)?;
-            let past = (low.x - hold.other_point.x).max(hold.other_point.x - high.x).max(0.0);
-            Some((past, mark))
+        .map(|(edge, other)| (edge, along_square(other - edge, square)))
+        .flat_map(|(edge, line)| [(edge, line), (edge, -line)])
+        .filter_map(|(edge, toward_heel)| {
+            Some(CutMark { edge_point: edge, into_board: toward_heel.try_normalize()?, edge_along: DVec2::X })
         })
-        .min_by(|x, y| x.0.total_cmp(&y.0))
-        .map(|(_, mark)| mark)
+        .collect();
+    let best = |square: &SquareSetting| {
+        candidates
+            .iter()
+            .filter_map(|mark| {
+                let hold = crate::drawing::square_hold(mark, square, unit_in)?;
+                let past = (low.x - hold.other_point.x).max(hold.other_point.x - high.x).max(0.0);
+                Some((past, *mark))
+            })
+            .min_by(|x, y| x.0.total_cmp(&y.0))
+    };
+    // A piece too short for the whole figures takes half (or a quarter) of
+    // each: the same line, on the stock.
+    for (scale, words) in [(1.0, ""), (0.5, "half"), (0.25, "a quarter")] {
+        let scaled = SquareSetting {
+            figure: square.figure * scale,
+            against: square.against * scale,
+            mark_along: square.mark_along,
+            setup: square.setup.clone(),
+        };
+        if let Some((past, mark)) = best(&scaled)
+            && past < 1e-6
+        {
+            if scale < 1.0 {
+                let mark_figure = match scaled.mark_along {
+                    MarkAlong::Figure => scaled.figure,
+                    MarkAlong::Against => scaled.against,
+                };
+                let unit = if unit_in < 1.0 { " mm" } else { "" };
+                let text = |value: f64| format!("{}{unit}", crate::square_figure_text(value, style));
+                square.setup = format!(
+                    "{}; the piece is too short for those: hold {words} of each, {} and {}, mark along the {} arm",
+                    square.setup,
+                    text(scaled.against),
+                    text(scaled.figure),
+                    text(mark_figure)
+                );
+                square.figure = scaled.figure;
+                square.against = scaled.against;
+            }
+            return Some(mark);
+        }
+    }
+    best(square).map(|(_, mark)| mark)
+}
+
+/// The direction of the line `square` marks, in the quadrant of `line`
+/// (the cut's line seen from above): the marked arm meets the edge at
+/// tan = other figure / marked figure, exactly, where the drawn face's
+/// corners give it only roughly.
+fn along_square(line: DVec2, square: &SquareSetting) -> DVec2 {
+    let (mark, other) = match square.mark_along {
+        MarkAlong::Figure => (square.figure, square.against),
+        MarkAlong::Against => (square.against, square.figure),
+    };
+    let angle = other.atan2(mark);
+    DVec2::new(angle.cos() * line.x.signum(), angle.sin() * line.y.signum())
 }
 
 /// Which side of the member (looking up it) each of a double-cheek tail's
@@ -451,15 +506,16 @@ fn card_cuts(
                         )
                     },
                 );
+                let mut square = square;
                 let top_mark = top.and_then(|top| {
                     cheek_top_mark(
                         top,
                         *end != CutEnd::Tail && *end != CutEnd::Bottom,
                         face.top_edge_angle_deg,
-                        &square,
+                        &mut square,
                         None,
                         &mut used,
-                        figure_unit_in(style),
+                        style,
                     )
                 });
                 cuts.push(CardCut {
@@ -486,7 +542,8 @@ fn card_cuts(
                             )
                         })
                     });
-                    let top_mark = top.zip(square.as_ref()).and_then(|(top, square)| {
+                    let mut square = square;
+                    let top_mark = top.zip(square.as_mut()).and_then(|(top, square)| {
                         cheek_top_mark(
                             top,
                             *end != CutEnd::Tail && *end != CutEnd::Bottom,
@@ -494,7 +551,7 @@ fn card_cuts(
                             square,
                             Some(hand == "left"),
                             &mut used,
-                            figure_unit_in(style),
+                            style,
                         )
                     });
                     cuts.push(CardCut {

@@ -130,7 +130,9 @@ pub struct MemberLengths {
 pub struct CutMark {
     /// Where the marked line meets the edge the square is held on.
     pub edge_point: DVec2,
-    /// Unit direction of the marked line, from the edge into the board.
+    /// Unit direction of the marked line from the edge toward the square's
+    /// heel: into the board, or (on a cheek marked from above, where only
+    /// that way lands the other figure on the stock) away from it.
     pub into_board: DVec2,
     /// Unit direction of the edge the square is held on.
     pub edge_along: DVec2,
