@@ -213,3 +213,41 @@ fn no_display_is_reported_in_words_not_a_panic() {
     assert!(stderr.contains("could not create a GL context"), "unexpected message:\n{stderr}");
     assert!(!stderr.contains("panicked"), "pitchframe panicked:\n{stderr}");
 }
+
+#[test]
+fn a_picture_of_the_view_is_drawn_off_screen_at_the_size_asked() {
+    let display = VirtualDisplay::start();
+    let out = artifact("view-picture.png");
+    let _ = std::fs::remove_file(&out);
+    // The window's own files (the first-start cautions, recent files) go
+    // in a folder of the test's, not the user's.
+    let config = std::env::temp_dir().join(format!("pitchframe-view-picture-{}", std::process::id()));
+    let output = Command::new(env!("CARGO_BIN_EXE_pitchframe"))
+        .env("DISPLAY", &display.display)
+        .env("LIBGL_ALWAYS_SOFTWARE", "1")
+        .env_remove("WAYLAND_DISPLAY")
+        .env("XDG_CONFIG_HOME", &config)
+        .env("PITCHFRAME_VIEW_PICTURE", &out)
+        .env("PITCHFRAME_VIEW_PICTURE_SIZE", "640x480")
+        .output()
+        .expect("cannot start pitchframe");
+    let _ = std::fs::remove_dir_all(&config);
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert!(output.status.success(), "pitchframe failed:\n{stderr}");
+    assert!(stderr.contains("Wrote the picture (640 x 480 pixels)"), "{stderr}");
+    let picture = image::open(&out).expect("cannot read the picture").to_rgba8();
+    assert_eq!(picture.dimensions(), (640, 480));
+    // The corners are the view's background, exactly as the window clears
+    // it: the picture is drawn with the window's colours.
+    for (x, y) in [(0, 0), (639, 0), (0, 479), (639, 479)] {
+        assert!(
+            close(picture.get_pixel(x, y).0, BACKGROUND_RGB, 2),
+            "corner {x},{y}: {:?}",
+            picture.get_pixel(x, y)
+        );
+    }
+    // The house fills the middle, lit in more than one shade.
+    let middle = (160, 120, 480, 360);
+    let walls = count_in(&picture, middle, wall_coloured);
+    assert!(walls > 2000, "only {walls} pixels in the middle show the wall colour");
+}

@@ -17,7 +17,9 @@
 //! `framing_panel` edits the plan's `[framing]` settings. `joints` places the frame's joints in the 3D view (the fit is the
 //! geometry crate's check), `joint_panel` shows them, and `camera_glide`
 //! closes the camera in on a picked one. `export` writes the cut cards, lists, model and pictures of the view on
-//! threads of their own; `desktop_open` opens what was written.
+//! threads of their own; `desktop_open` opens what was written, and
+//! `view_picture_run` makes a picture of the view without a person (for
+//! the window tests).
 
 mod app;
 mod camera;
@@ -50,6 +52,7 @@ mod toolbar;
 mod triangles;
 mod triangulate;
 mod units;
+mod view_picture_run;
 mod viewport;
 mod wall_list;
 mod walls;

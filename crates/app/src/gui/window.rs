@@ -1,5 +1,5 @@
 //! The eframe app: the state, the GL renderer made once for the window,
-//! and the `--picture` job.
+//! the `--picture` job, and pictures of the 3D view drawn off screen.
 
 use std::sync::{Arc, Mutex};
 
@@ -9,6 +9,7 @@ use super::app::{AppState, SideTab};
 use super::command::{Command, Layout};
 use super::frame_timer::FrameTimer;
 use super::picture::PictureJob;
+use super::view_picture_run::ViewPictureRun;
 use super::viewport::Renderer;
 
 /// The running window.
@@ -17,6 +18,7 @@ pub struct PitchframeApp {
     renderer: Arc<Mutex<Renderer>>,
     picture: Option<PictureJob>,
     frame_timer: Option<FrameTimer>,
+    view_picture: Option<ViewPictureRun>,
 }
 
 impl PitchframeApp {
@@ -40,7 +42,8 @@ impl PitchframeApp {
             state.push(Command::FocusPicked);
         }
         let frame_timer = FrameTimer::from_env();
-        Ok(Self { state, renderer: Arc::new(Mutex::new(renderer)), picture, frame_timer })
+        let view_picture = ViewPictureRun::from_env();
+        Ok(Self { state, renderer: Arc::new(Mutex::new(renderer)), picture, frame_timer, view_picture })
     }
 }
 
@@ -51,6 +54,9 @@ impl eframe::App for PitchframeApp {
             timer.on_frame(&mut self.state, &ctx);
         }
         self.state.ui(ui, Some(&self.renderer));
+        if let Some(run) = &mut self.view_picture {
+            run.on_frame(&mut self.state, &ctx);
+        }
         if let Some(request) = self.state.picture_request.take() {
             // The window's GL context is current while the frame is built.
             let pixels = match self.renderer.lock() {
