@@ -9,6 +9,7 @@ use egui::RichText;
 use pitchframe_cards::Paper;
 use pitchframe_geometry::Plan;
 
+use super::choice_button::choice_button;
 use super::command::MENU_ENTRIES;
 use super::export::{CardChoice, ExportSpec, MAX_PICTURE_SIDE_PX};
 use super::file_dialog::NO_DIALOG_MESSAGE;
@@ -192,14 +193,17 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
                 ui.horizontal(|ui| {
                     ui.label(RichText::new("Paper").strong());
                     for (paper, name) in [(Paper::Letter, "Letter"), (Paper::A4, "A4")] {
-                        ui.selectable_value(&mut choice.paper, paper, RichText::new(name).size(18.0));
+                        if choice_button(ui, choice.paper == paper, name).clicked() {
+                            choice.paper = paper;
+                        }
                     }
                 });
                 ui.horizontal(|ui| {
                     ui.label(RichText::new("Cards a page").strong());
                     for per_page in [1u8, 2, 4] {
-                        let name = RichText::new(per_page.to_string()).size(18.0);
-                        ui.selectable_value(&mut choice.per_page, per_page, name);
+                        if choice_button(ui, choice.per_page == per_page, &per_page.to_string()).clicked() {
+                            choice.per_page = per_page;
+                        }
                     }
                 });
                 ui.horizontal(|ui| {

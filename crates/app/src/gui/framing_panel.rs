@@ -10,6 +10,7 @@ use std::collections::HashMap;
 use egui::{Color32, RichText};
 use pitchframe_geometry::{FramingInput, Length, MemberSize, Plan};
 
+use super::choice_button::choice_button;
 use super::command::Command;
 use super::edit::{FramingField, PlanEdit};
 use super::units::DisplayUnits;
@@ -215,7 +216,7 @@ pub fn framing_panel_ui(
             ui.label(FramingField::Tail.name());
             let tail = framing.tail.as_deref().unwrap_or("plumb");
             for (value, name) in [("plumb", "Plumb"), ("square", "Square"), ("plumb+level", "Plumb and level")] {
-                if ui.selectable_label(tail == value, RichText::new(name).size(18.0)).clicked() && tail != value {
+                if choice_button(ui, tail == value, name).clicked() && tail != value {
                     commands.push(framing_edit(plan, FramingField::Tail, |f| f.tail = Some(value.to_owned())));
                 }
             }
@@ -234,7 +235,7 @@ pub fn framing_panel_ui(
             ui.label(FramingField::Hips.name());
             let hips = framing.hips.as_deref().unwrap_or("backed");
             for (value, name) in [("backed", "Backed"), ("dropped", "Dropped")] {
-                if ui.selectable_label(hips == value, RichText::new(name).size(18.0)).clicked() && hips != value {
+                if choice_button(ui, hips == value, name).clicked() && hips != value {
                     commands.push(framing_edit(plan, FramingField::Hips, |f| f.hips = Some(value.to_owned())));
                 }
             }

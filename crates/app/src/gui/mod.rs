@@ -24,6 +24,7 @@
 mod app;
 mod camera;
 mod camera_glide;
+mod choice_button;
 mod command;
 mod derived;
 mod desktop_open;

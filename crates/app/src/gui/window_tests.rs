@@ -733,3 +733,23 @@ fn member_sizes_hips_tails_and_overhang_change_the_frame() {
     }
     assert!(!harness.state().document.unsaved());
 }
+
+#[test]
+fn a_plan_that_does_not_frame_says_why_before_asking_where_to_write() {
+    let folder = TempFolder::new("export-invalid");
+    let mut harness = demo_window_typing_paths(&folder);
+    // Corner 3 far past the house: its walls cross the ones opposite.
+    let to_in = DVec2::new(-5000.0, -5000.0);
+    harness.state_mut().push(Command::Edit { edit: PlanEdit::MoveCorner { wall: 2, to_in }, group: None });
+    harness.run();
+    let problem = harness.state().derived.problem.clone().expect("the outline is invalid");
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::P);
+    harness.run();
+    assert!(harness.state().dialogs.is_empty(), "no dialog asks where to write cards that cannot be made");
+    let _ = harness
+        .get_by_label(&format!("The cut cards cannot be made until the plan frames: {}", problem.message));
+    // A picture of what is on screen needs no frame.
+    harness.state_mut().push(Command::Export(super::export::ExportKind::Picture));
+    harness.run();
+    assert!(matches!(harness.state().dialogs.first(), Some(Dialog::PictureSize { .. })));
+}
