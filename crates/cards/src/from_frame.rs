@@ -258,8 +258,7 @@ fn cheek_top_mark(
     left: Option<bool>,
     used: &mut Vec<usize>,
     style: LengthStyle,
-) -> Option<CutMark> {
-    let unit_in = figure_unit_in(style);
+) -> Option<(CutMark, Option<String>)> {
     let (low, high) = crate::drawing::bounds(&top.outline)?;
     let middle_x = 0.5 * (low.x + high.x);
     let on_arris = |p: DVec2| (p.y - low.y).abs() < 0.05 || (p.y - high.y).abs() < 0.05;
@@ -294,18 +293,32 @@ fn cheek_top_mark(
             Some(CutMark { edge_point: edge, into_board: toward_heel.try_normalize()?, edge_along: DVec2::X })
         })
         .collect();
+    marks_on_stock(&candidates, square, low.x, high.x, style)
+}
+
+/// Of `candidates` (ways to hold `square` for one line), the first that
+/// lands both figures on the stock (x within `low_x..high_x`): at the whole
+/// figures, else at half or a quarter of each (the same line), changing
+/// `square` and returning a note that says so; else the one that lands
+/// nearest.
+fn marks_on_stock(
+    candidates: &[CutMark],
+    square: &mut SquareSetting,
+    low_x: f64,
+    high_x: f64,
+    style: LengthStyle,
+) -> Option<(CutMark, Option<String>)> {
+    let unit_in = figure_unit_in(style);
     let best = |square: &SquareSetting| {
         candidates
             .iter()
             .filter_map(|mark| {
                 let hold = crate::drawing::square_hold(mark, square, unit_in)?;
-                let past = (low.x - hold.other_point.x).max(hold.other_point.x - high.x).max(0.0);
+                let past = (low_x - hold.other_point.x).max(hold.other_point.x - high_x).max(0.0);
                 Some((past, *mark))
             })
             .min_by(|x, y| x.0.total_cmp(&y.0))
     };
-    // A piece too short for the whole figures takes half (or a quarter) of
-    // each: the same line, on the stock.
     for (scale, words) in [(1.0, ""), (0.5, "half"), (0.25, "a quarter")] {
         let scaled = SquareSetting {
             figure: square.figure * scale,
@@ -321,22 +334,42 @@ fn cheek_top_mark(
                     MarkAlong::Figure => scaled.figure,
                     MarkAlong::Against => scaled.against,
                 };
-                let unit = if unit_in < 1.0 { " mm" } else { "" };
+                let unit = if style == LengthStyle::Millimetres { " mm" } else { "" };
                 let text = |value: f64| format!("{}{unit}", crate::square_figure_text(value, style));
-                square.setup = format!(
-                    "{}; the piece is too short for those: hold {words} of each, {} and {}, mark along the {} arm",
-                    square.setup,
+                let note = format!(
+                    "square too long for this short piece at {} and {}: hold {words} of each, {} and {}, mark \
+                     along the {} arm",
+                    text(square.against),
+                    text(square.figure),
                     text(scaled.against),
                     text(scaled.figure),
                     text(mark_figure)
                 );
                 square.figure = scaled.figure;
                 square.against = scaled.against;
+                return Some((mark, Some(note)));
             }
-            return Some(mark);
+            return Some((mark, None));
         }
     }
-    best(square).map(|(_, mark)| mark)
+    best(square).map(|(_, mark)| (mark, None))
+}
+
+/// A side-face mark held so both of the square's figures meet the edge on
+/// the stock: the heel on the board as first drawn, or else off the edge
+/// (the marked arm runs on past its figure over the board, where the line
+/// is drawn along it; a tail plumb line held the first way puts its other
+/// figure past the tail's end), at half or a quarter of the figures on a
+/// piece too short for the whole ones (see `marks_on_stock`).
+fn side_mark_on_stock(
+    mark: CutMark,
+    square: &mut SquareSetting,
+    side: &MemberView,
+    style: LengthStyle,
+) -> (CutMark, Option<String>) {
+    let Some((low, high)) = crate::drawing::bounds(&side.outline) else { return (mark, None) };
+    let flipped = CutMark { into_board: -mark.into_board, ..mark };
+    marks_on_stock(&[mark, flipped], square, low.x, high.x, style).unwrap_or((mark, None))
 }
 
 /// The direction of the line `square` marks, in the quadrant of `line`
@@ -528,8 +561,13 @@ fn card_cuts(
                     settings: angle_settings(face),
                     angles: Some(cut_angles(face)),
                     mark: None,
-                    top_mark,
-                    notes: vec![format!("shortened {} from the theoretical end", length(*deduction_in))],
+                    top_mark: top_mark.as_ref().map(|(mark, _)| *mark),
+                    notes: std::iter::once(format!(
+                        "shortened {} from the theoretical end",
+                        length(*deduction_in)
+                    ))
+                    .chain(top_mark.and_then(|(_, note)| note))
+                    .collect(),
                 });
             }
             Cut::DoubleCheek { end, left, right, deduction_in, .. } => {
@@ -561,8 +599,13 @@ fn card_cuts(
                         settings: angle_settings(face),
                         angles: Some(cut_angles(face)),
                         mark: None,
-                        top_mark,
-                        notes: vec![format!("shortened {} from the theoretical end", length(*deduction_in))],
+                        top_mark: top_mark.as_ref().map(|(mark, _)| *mark),
+                        notes: std::iter::once(format!(
+                            "shortened {} from the theoretical end",
+                            length(*deduction_in)
+                        ))
+                        .chain(top_mark.and_then(|(_, note)| note))
+                        .collect(),
                     });
                 }
             }
@@ -684,6 +727,13 @@ fn card_cuts(
                 top_mark: None,
                 notes: vec!["square across".into()],
             }),
+        }
+    }
+    for cut in &mut cuts {
+        if let (Some(mark), Some(square)) = (cut.mark, cut.square.as_mut()) {
+            let (mark, note) = side_mark_on_stock(mark, square, side, style);
+            cut.mark = Some(mark);
+            cut.notes.extend(note);
         }
     }
     cuts
