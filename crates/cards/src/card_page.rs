@@ -686,9 +686,11 @@ fn square_close_up(page: &mut Page, member: &MemberCard, hold: &Hold<'_>, area: 
     page.stroke_colour(BLACK);
     page.line(DVec2::new(drawing.corner.x, edge_y), DVec2::new(drawing.corner.x + drawing.size.x, edge_y));
     framing_square(page, h, fit, hold.on_top);
-    if hold.on_top {
-        // The cheek line across the top, marked along the arm's edge.
-        let (low_y, high_y) = (view_low_y(view), view_high_y(view));
+    let (low_y, high_y) = (view_low_y(view), view_high_y(view));
+    if hold.on_top || h.heel.y < low_y || h.heel.y > high_y {
+        // With the heel off the board, the line is drawn on along the
+        // arm's edge across the board: the cheek line across the top, or a
+        // tail's plumb line down the side.
         let middle_y = 0.5 * (low_y + high_y);
         let across = if (middle_y - h.mark_point.y) * h.mark_arm.y > 0.0 { h.mark_arm } else { -h.mark_arm };
         if across.y.abs() > 1e-6 {
