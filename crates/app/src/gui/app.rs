@@ -223,8 +223,8 @@ impl AppState {
         let Some(label) = self.picked.as_deref().filter(|_| !self.style.client_view) else {
             return Vec::new();
         };
-        let joints = &self.derived.scene.joints();
-        (0..joints.len()).filter(|&index| joints[index].involves(label)).collect()
+        let joints = self.derived.scene.joints().iter().enumerate();
+        joints.filter(|(_, joint)| joint.involves(label)).map(|(index, _)| index).collect()
     }
 
     /// The whole window for one frame; the 3D view is drawn when a

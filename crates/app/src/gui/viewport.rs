@@ -19,6 +19,7 @@ use three_d::{
 
 use super::camera::OrbitCamera;
 use super::export::{MAX_PICTURE_SIDE_PX, Pixels};
+use super::joints::joint_at;
 use super::palette;
 use super::pick::pick;
 use super::scene::{PartKind, Scene, ScenePiece, Triangles, is_cut_face};
@@ -508,7 +509,21 @@ pub fn viewport_ui(
             pick(scene, &camera.ray(at, size))
         })
         .and_then(|hit| scene.pieces.get(hit.piece));
-    if let Some(piece) = hovered {
+    // A joint's mark under the pointer says which joint a click checks.
+    let hovered_joint =
+        response.hover_pos().filter(|_| !style.client_view && !response.dragged()).and_then(|pos| {
+            let at = DVec2::new(f64::from(pos.x - rect.left()), f64::from(pos.y - rect.top()));
+            let size = DVec2::new(f64::from(rect.width()), f64::from(rect.height()));
+            joint_at(scene.joints(), &marks.shown, camera, at, size)
+                .and_then(|index| scene.joints().get(index))
+        });
+    if let Some(joint) = hovered_joint {
+        let [cut, bearing] = &joint.joint.members;
+        let fit = if joint.tight() { "fits within 1/64 in" } else { "off by more than 1/64 in" };
+        response
+            .clone()
+            .on_hover_text_at_pointer(format!("Joint {cut} on {bearing}, {fit}: click to check it"));
+    } else if let Some(piece) = hovered {
         let text = format!("{}  {}", piece.label, palette::member_name(piece.kind));
         response.clone().on_hover_text_at_pointer(text);
     }
