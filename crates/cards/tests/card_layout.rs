@@ -125,3 +125,47 @@ fn no_card_page_is_left_with_room_a_later_card_could_use() {
         }
     }
 }
+
+#[test]
+fn every_text_on_a_card_page_stays_inside_its_card() {
+    let mut faults = Vec::new();
+    for deck in plans::all_decks() {
+        for options in layouts() {
+            let pdf = render_cards(&deck, &options).unwrap();
+            let frames = plans::card_frame_boxes(&pdf);
+            for (page, (runs, frames)) in plans::text_runs(&pdf).iter().zip(&frames).enumerate() {
+                if frames.is_empty() {
+                    continue;
+                }
+                for run in runs {
+                    // The footer line under the cards is the one text
+                    // outside them.
+                    if run.text.starts_with(&deck.title) {
+                        continue;
+                    }
+                    let inside = frames.iter().any(|[x, y, w, h]| {
+                        run.corners.iter().all(|c| {
+                            c.x >= x - 0.25 && c.x <= x + w + 0.25 && c.y >= y - 0.25 && c.y <= y + h + 0.25
+                        })
+                    });
+                    if !inside {
+                        faults.push(format!(
+                            "{} {:?} {} a page, page {}: {:?}",
+                            deck.title,
+                            options.paper,
+                            options.per_page,
+                            page + 1,
+                            run.text
+                        ));
+                    }
+                }
+            }
+        }
+    }
+    assert!(
+        faults.is_empty(),
+        "{} texts outside their card:\n{}",
+        faults.len(),
+        faults[..faults.len().min(30)].join("\n")
+    );
+}

@@ -125,6 +125,14 @@ pub fn overlap(a: &[DVec2; 4], b: &[DVec2; 4], slack: f64) -> bool {
 /// width the cards' frames are drawn at (close-ups and the plan's box are
 /// thinner), as (width, height) in points.
 pub fn card_frames(pdf: &[u8]) -> Vec<Vec<(f64, f64)>> {
+    card_frame_boxes(pdf)
+        .into_iter()
+        .map(|frames| frames.into_iter().map(|[_, _, w, h]| (w, h)).collect())
+        .collect()
+}
+
+/// Every page's card frames as `[x, y, width, height]`, points.
+pub fn card_frame_boxes(pdf: &[u8]) -> Vec<Vec<[f64; 4]>> {
     let doc = Document::load_mem(pdf).expect("the PDF parses");
     doc.get_pages()
         .values()
@@ -136,10 +144,8 @@ pub fn card_frames(pdf: &[u8]) -> Vec<Vec<(f64, f64)>> {
                 match op.operator.as_str() {
                     "w" => width = op.operands.first().map_or(1.0, number),
                     "re" if (width - 0.8).abs() < 1e-6 => {
-                        frames.push((
-                            op.operands.get(2).map_or(0.0, number),
-                            op.operands.get(3).map_or(0.0, number),
-                        ));
+                        let at = |index: usize| op.operands.get(index).map_or(0.0, number);
+                        frames.push([at(0), at(1), at(2), at(3)]);
                     }
                     _ => {}
                 }
