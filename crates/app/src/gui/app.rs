@@ -94,6 +94,8 @@ pub struct AppState {
     pub picked_joint: Option<usize>,
     /// The camera on its way to a new aim.
     pub glide: Option<CameraGlide>,
+    /// Whether the side panel is to scroll to the picked joint.
+    scroll_to_joint: bool,
     /// The selected wall (global index).
     pub selected_wall: Option<usize>,
     /// The selected corner (the wall starting there).
@@ -178,6 +180,7 @@ impl AppState {
             picked: None,
             picked_joint: None,
             glide: None,
+            scroll_to_joint: false,
             selected_wall: None,
             selected_corner: None,
             layout: Layout::default(),
@@ -336,6 +339,7 @@ impl AppState {
                 let picked = self.picked_piece().and_then(|index| self.derived.scene.pieces.get(index));
                 let scene = Arc::clone(&self.derived.scene);
                 let (units, picked_joint) = (self.units, self.picked_joint);
+                let scroll = std::mem::take(&mut self.scroll_to_joint);
                 let label = self.picked.clone();
                 let commands = &mut self.commands;
                 side_panel_ui(
@@ -344,7 +348,7 @@ impl AppState {
                     &self.derived,
                     units,
                     picked,
-                    |ui| picked_joint_ui(ui, &scene, units, picked_joint),
+                    |ui| picked_joint_ui(ui, &scene, units, picked_joint, scroll),
                     |ui| member_joints_ui(ui, &scene, units, label.as_deref(), picked_joint, commands),
                 );
             }
@@ -512,6 +516,7 @@ impl AppState {
     fn pick_joint(&mut self, ctx: &egui::Context, index: usize) {
         let Some(joint) = self.derived.scene.joints().get(index) else { return };
         self.picked_joint = Some(index);
+        self.scroll_to_joint = true;
         self.picked = Some(joint.joint.members[0].clone());
         self.side_tab = SideTab::Numbers;
         let (min, max) = joint.view_box();

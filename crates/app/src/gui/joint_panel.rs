@@ -40,10 +40,21 @@ fn member_words(scene: &Scene, label: &str) -> String {
     }
 }
 
-/// The picked joint in large type, if one is picked.
-pub fn picked_joint_ui(ui: &mut egui::Ui, scene: &Scene, units: DisplayUnits, picked_joint: Option<usize>) {
+/// The picked joint in large type, if one is picked; `bring_into_view`
+/// scrolls the panel to it (it was just picked, maybe from a row below).
+pub fn picked_joint_ui(
+    ui: &mut egui::Ui,
+    scene: &Scene,
+    units: DisplayUnits,
+    picked_joint: Option<usize>,
+    bring_into_view: bool,
+) {
     if let Some(joint) = picked_joint.and_then(|index| scene.joints().get(index)) {
+        let top = egui::Rect::from_min_size(ui.cursor().min, egui::vec2(ui.available_width().max(1.0), 1.0));
         joint_ui(ui, scene, units, joint);
+        if bring_into_view {
+            ui.scroll_to_rect(top, Some(egui::Align::TOP));
+        }
         ui.separator();
     }
 }
@@ -77,7 +88,10 @@ pub fn member_joints_ui(
         return;
     }
     ui.label(RichText::new(format!("Joints of {label}")).strong());
-    ui.label(RichText::new("Click one (or its mark in the 3D view) to see it close up.").weak());
+    ui.label(
+        RichText::new("Each row gives the worst of those joints. Click one (or a mark in the 3D view) to see it close up.")
+            .weak(),
+    );
     for (cut, bearing, worst, count) in rows {
         let Some(joint) = scene.joints().get(worst) else { continue };
         ui.horizontal(|ui| {
@@ -87,7 +101,7 @@ pub fn member_joints_ui(
             if ui.add(button).clicked() {
                 commands.push(Command::PickJoint(worst));
             }
-            let times = if count > 1 { format!("{count} joints, worst ") } else { String::new() };
+            let times = if count > 1 { format!("{count} joints: ") } else { String::new() };
             let (mark, colour) = if joint.tight() { ("fits", TIGHT) } else { ("check", LOOSE) };
             ui.label(format!(
                 "{times}gap {}, overlap {}",
