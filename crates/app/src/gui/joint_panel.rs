@@ -142,3 +142,16 @@ fn joint_ui(ui: &mut egui::Ui, scene: &Scene, units: DisplayUnits, joint: &Scene
         );
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn fits_read_in_thousandths_of_an_inch_or_hundredths_of_a_millimetre() {
+        // Derivation: 1/64 in = 0.015625 in = 0.396875 mm (25.4 mm to the inch, exact).
+        assert_eq!(fit_text(DisplayUnits::FeetInches, JOINT_TOLERANCE_IN), "0.016 in");
+        assert_eq!(fit_text(DisplayUnits::Millimetres, JOINT_TOLERANCE_IN), "0.40 mm");
+        assert_eq!(tolerance_text(DisplayUnits::Millimetres), "1/64 in (0.40 mm)");
+    }
+}

@@ -753,3 +753,23 @@ fn a_plan_that_does_not_frame_says_why_before_asking_where_to_write() {
     harness.run();
     assert!(matches!(harness.state().dialogs.first(), Some(Dialog::PictureSize { .. })));
 }
+
+#[test]
+fn a_millimetre_plan_takes_its_framing_in_millimetres() {
+    let folder = TempFolder::new("framing-mm");
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("../../examples/metric-bungalow.toml");
+    let config = ConfigDir::at(folder.0.join("config"));
+    config.mark_safety_shown().unwrap();
+    let mut harness = window(AppState::new(Document::open(&path).unwrap(), Some(config), ViewPreset::Corner));
+    harness.get_by_label("Framing").click();
+    harness.run();
+    type_into(&mut harness, "Rafter spacing", "400");
+    type_into(&mut harness, "Rafter size", "45x170");
+    let settings = harness.state().document.plan.framing_settings().unwrap();
+    // Derivation: plain numbers on a millimetre plan are millimetres;
+    // 400 mm / 25.4 = 15.748 in, 45 mm = 1.772 in, 170 mm = 6.693 in.
+    assert!((settings.spacing_in - 400.0 / 25.4).abs() < 1e-9);
+    assert!((settings.rafter.thickness_in - 45.0 / 25.4).abs() < 1e-9);
+    assert!((settings.rafter.depth_in - 170.0 / 25.4).abs() < 1e-9);
+    assert!(harness.state().derived.scene.frame.is_some(), "the bungalow frames at 400 mm centres");
+}
