@@ -742,3 +742,48 @@ fn view_low_y(view: &MemberView) -> f64 {
 fn view_high_y(view: &MemberView) -> f64 {
     view.outline.iter().map(|p| p.y).fold(f64::NEG_INFINITY, f64::max)
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::ViewFace;
+
+    #[test]
+    fn a_cheek_seen_from_above_fills_a_third_of_its_close_up() {
+        // A 1-1/2 in top face, 100 in long, its cheek line at the upper end
+        // 46.7 deg from square (a regular hip's at 6 in 12, trade.md
+        // section 2).
+        let top = MemberView {
+            outline: vec![
+                DVec2::new(0.0, -0.75),
+                DVec2::new(100.0, -0.75),
+                DVec2::new(100.0, 0.75),
+                DVec2::new(0.0, 0.75),
+            ],
+            parts: vec![],
+            faces: vec![ViewFace {
+                face: CutFace::Cheek,
+                outline: vec![DVec2::new(99.0, 0.75), DVec2::new(100.0, -0.75)],
+            }],
+        };
+        let from_axis = (90.0_f64 - 46.7).to_radians();
+        let into = DVec2::new(from_axis.cos(), -from_axis.sin());
+        let hold = SquareHold {
+            heel: DVec2::new(99.0, 0.75) + into * 12.0,
+            mark_point: DVec2::new(99.0, 0.75),
+            other_point: DVec2::new(99.0 + 16.5, 0.75),
+            mark_arm: -into,
+            other_arm: into.perp(),
+            mark_figure: 12.0,
+            other_figure: 11.3125,
+        };
+        let drawing = Area::new(0.0, 0.0, 96.0, 50.0);
+        let fit = top_close_up_fit(&top, &hold, drawing);
+        // The top face drawn a third of the box's height: 16.7 pt, where
+        // fitting the whole square (16.5 in across) drew it under 5 pt.
+        assert!((fit.scale * 1.5 - 50.0 / 3.0).abs() < 1e-6, "top face {} pt", fit.scale * 1.5);
+        // Centred on where the cheek line crosses the face's middle.
+        let crossing = fit.at(DVec2::new(99.0 + 0.75 * from_axis.cos() / from_axis.sin(), 0.0));
+        assert!((crossing - DVec2::new(48.0, 25.0)).length() < 1e-6, "{crossing}");
+    }
+}
