@@ -351,32 +351,31 @@ impl GableSpan {
             .then_some(s)
     }
 
-    /// The lowest and highest point of the face on the plumb line at `s`.
-    fn heights_at(&self, s: f64, tol: f64) -> Option<(f64, f64)> {
+    /// The stretches of the plumb line at `s` that the face covers: its
+    /// plumb edges there, and, a tolerance to either side (clear of any
+    /// corner on the line itself), the stretches between its edges'
+    /// crossings of the line taken in pairs.
+    fn heights_at(&self, s: f64, tol: f64) -> Vec<(f64, f64)> {
         let n = self.profile.len();
-        let mut range: Option<(f64, f64)> = None;
-        let mut take = |z: f64| {
-            range = Some(range.map_or((z, z), |(lo, hi)| (lo.min(z), hi.max(z))));
-        };
-        for i in 0..n {
-            let (Some(&(s0, z0)), Some(&(s1, z1))) = (self.profile.get(i), self.profile.get((i + 1) % n))
-            else {
-                continue;
-            };
-            if (s0 - s).abs() <= tol {
-                take(z0);
-            }
-            let (a, b) = (s0.min(s1), s0.max(s1));
-            if b - a > tol && s > a && s < b {
-                take(z0 + (z1 - z0) * (s - s0) / (s1 - s0));
-            }
+        let edges = || (0..n).filter_map(|i| Some((*self.profile.get(i)?, *self.profile.get((i + 1) % n)?)));
+        let mut covered: Vec<(f64, f64)> = edges()
+            .filter(|&((s0, _), (s1, _))| (s0 - s).abs() <= tol && (s1 - s).abs() <= tol)
+            .map(|((_, z0), (_, z1))| (z0.min(z1), z0.max(z1)))
+            .collect();
+        for side in [s - tol, s + tol] {
+            let mut crossings: Vec<f64> = edges()
+                .filter(|&((s0, _), (s1, _))| (s0 <= side && side < s1) || (s1 <= side && side < s0))
+                .map(|((s0, z0), (s1, z1))| z0 + (z1 - z0) * (side - s0) / (s1 - s0))
+                .collect();
+            crossings.sort_by(f64::total_cmp);
+            covered.extend(crossings.chunks_exact(2).map(|c| (c[0], c[1])));
         }
-        range
+        covered
     }
 
-    /// The heights the face spans on the plumb line at `p`, if it stands there.
-    fn span_at(&self, p: DVec2, tol: f64) -> Option<(f64, f64)> {
-        self.heights_at(self.along(p, tol)?, tol)
+    /// The heights the face covers on the plumb line at `p`, if it stands there.
+    fn span_at(&self, p: DVec2, tol: f64) -> Vec<(f64, f64)> {
+        self.along(p, tol).map(|s| self.heights_at(s, tol)).unwrap_or_default()
     }
 
     /// The part of the plan segment `p -> p + unit * [lo, hi]` (a stretch
@@ -409,7 +408,7 @@ impl GableSpan {
 /// between heights `z1` and `z2` (two faces in one vertical plane may
 /// stand one above the other, where two gables' lines meet).
 fn step_filled(spans: &[GableSpan], p: DVec2, z1: f64, z2: f64, tol: f64, height_tol: f64) -> bool {
-    let mut ranges: Vec<(f64, f64)> = spans.iter().filter_map(|g| g.span_at(p, tol)).collect();
+    let mut ranges: Vec<(f64, f64)> = spans.iter().flat_map(|g| g.span_at(p, tol)).collect();
     ranges.sort_by(|a, b| a.0.total_cmp(&b.0));
     let (lo, hi) = (z1.min(z2), z1.max(z2));
     // Filled from `lo` up to `reach` so far.
@@ -1327,6 +1326,30 @@ mod tests {
         let low =
             GableSpan::new(&face(&[(0.0, 0.0), (100.0, 0.0), (100.0, 100.0), (0.0, 100.0)]), a, b, 1e-3);
         assert!(!step_filled(&[low.unwrap()], DVec2::new(50.0, 1.0), 10.0, 90.0, 1e-3, 1e-3));
+    }
+
+    #[test]
+    fn a_gable_face_with_a_gap_on_the_plumb_line_does_not_fill_a_step_across_it() {
+        // A face shaped like a C on the line y = 0: at x = 50 it covers 0
+        // to 30 in and 60 to 90 in, not the 30 in between.
+        let c = [
+            (0.0, 0.0),
+            (100.0, 0.0),
+            (100.0, 30.0),
+            (20.0, 30.0),
+            (20.0, 60.0),
+            (100.0, 60.0),
+            (100.0, 90.0),
+            (0.0, 90.0),
+        ];
+        let outline: Vec<DVec3> = c.iter().map(|&(x, z)| DVec3::new(x, 0.0, z)).collect();
+        let span = || GableSpan::new(&outline, DVec2::ZERO, DVec2::new(100.0, 0.0), 1e-3).unwrap();
+        let p = DVec2::new(50.0, 0.0);
+        assert!(step_filled(&[span()], p, 10.0, 25.0, 1e-3, 1e-3));
+        assert!(step_filled(&[span()], p, 65.0, 85.0, 1e-3, 1e-3));
+        assert!(!step_filled(&[span()], p, 10.0, 80.0, 1e-3, 1e-3));
+        // At x = 20 the face's plumb edge joins the two.
+        assert!(step_filled(&[span()], DVec2::new(20.0, 0.0), 10.0, 80.0, 1e-3, 1e-3));
     }
 
     /// Long-run seed 790: planes 0 and 2 lie within the tolerance of each
