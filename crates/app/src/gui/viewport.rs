@@ -577,6 +577,11 @@ fn labels_ui(ui: &egui::Ui, rect: egui::Rect, scene: &Scene, camera: &OrbitCamer
         let Some(piece) = scene.pieces.get(index) else { continue };
         let Some(at) = camera.project(piece.label_at, size) else { continue };
         let centre = rect.min + egui::vec2(at.x as f32, at.y as f32);
+        // A label centred off the view or on one already placed cannot be
+        // shown: skip laying it out (most of a large frame's labels).
+        if !rect.contains(centre) || placed.iter().any(|other| other.contains(centre)) {
+            continue;
+        }
         let galley = painter.layout_no_wrap(piece.label.clone(), font.clone(), egui::Color32::PLACEHOLDER);
         let label_rect = egui::Rect::from_center_size(centre, galley.size()).expand(2.0);
         if !rect.contains_rect(label_rect) || placed.iter().any(|other| other.intersects(label_rect)) {
