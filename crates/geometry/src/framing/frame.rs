@@ -7,7 +7,7 @@ use super::bearing_stretch::lands_on_bearing;
 use super::board::PieceSpec;
 use super::builders::{Bearing, Ctx};
 use super::checks::piece_checks;
-use super::joints::{Joint, check_fit};
+use super::joints::{Joint, check_fit, part_bounds};
 use super::labels::label_pieces;
 use super::layout::{PlanLine, RafterLine, rafter_lines};
 use super::measure::{Measured, measure};
@@ -290,6 +290,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             .flat_map(|(_, solid)| solid.parts.iter().cloned())
             .collect(),
     };
+    let all_ridges_bounds = part_bounds(&all_ridges);
     // A cut another cut overrides leaves no face (a hip's foot cut back
     // past a ridge's end by the valley beside it): no joint there.
     let has_face = |j: &ResolvedJoint| {
@@ -302,14 +303,16 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         .filter(|j| has_face(j))
         .map(|j| {
             let splice = specs[j.cut].kind == MemberKind::Ridge;
-            let bearing = if specs[j.bearing].kind == MemberKind::Ridge && !splice {
-                &all_ridges
+            let own_bounds;
+            let (bearing, bounds) = if specs[j.bearing].kind == MemberKind::Ridge && !splice {
+                (&all_ridges, all_ridges_bounds.as_slice())
             } else {
-                &solids[j.bearing]
+                own_bounds = part_bounds(&solids[j.bearing]);
+                (&solids[j.bearing], own_bounds.as_slice())
             };
             let b = &specs[j.bearing].frame;
             let top = HalfSpace::through(b.origin, b.up, FaceTag::Top, None);
-            let fit = check_fit(&solids[j.cut], &j.mating, bearing, top.as_ref());
+            let fit = check_fit(&solids[j.cut], &j.mating, bearing, bounds, top.as_ref());
             let joint = Joint {
                 members: [labels.labels[j.cut].clone(), labels.labels[j.bearing].clone()],
                 pieces: [j.cut, j.bearing],

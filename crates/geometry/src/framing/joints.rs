@@ -2,7 +2,7 @@
 
 use serde::Serialize;
 
-use super::{HalfSpace, Solid};
+use super::{ConvexPart, HalfSpace, Solid};
 
 /// A joint between two placed pieces.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -40,28 +40,29 @@ pub struct JointFit {
 /// A corner above `bearing_top` (the bearing member's top through its
 /// centre line) that misses it is not a hang: the top planes of a valley's
 /// jacks rise past the valley's edges.
+///
+/// `bearing_bounds` are the corner-wise bounds of each of `bearing`'s parts
+/// ([`part_bounds`]), worked out once for a solid met by many joints.
 pub fn check_fit(
     cut: &Solid,
     mating: &HalfSpace,
     bearing: &Solid,
+    bearing_bounds: &[(glam::DVec3, glam::DVec3)],
     bearing_top: Option<&HalfSpace>,
 ) -> JointFit {
     let tol = 1e-6;
     // Only the bearing's parts near the cut piece matter (a rafter against
     // a long ridge meets one short stretch of it).
     let (lo, hi) = bounds(cut.vertices());
-    let near = Solid {
-        parts: bearing
-            .parts
-            .iter()
-            .filter(|part| {
-                let (plo, phi) = bounds(part.vertices.iter().copied());
-                plo.cmple(hi + NEAR_IN).all() && phi.cmpge(lo - NEAR_IN).all()
-            })
-            .cloned()
-            .collect(),
-    };
-    let bearing = &near;
+    let near: Vec<&ConvexPart> = bearing
+        .parts
+        .iter()
+        .zip(bearing_bounds)
+        .filter(|(_, (plo, phi))| plo.cmple(hi + NEAR_IN).all() && phi.cmpge(lo - NEAR_IN).all())
+        .map(|(part, _)| part)
+        .collect();
+    let near_depth =
+        |p: glam::DVec3| near.iter().map(|part| part.depth_of(p)).fold(f64::NEG_INFINITY, f64::max);
     let mut fit = JointFit { max_gap: 0.0, max_overlap: 0.0, max_hang: 0.0 };
     let mating_corners = cut
         .faces()
@@ -70,8 +71,7 @@ pub fn check_fit(
     for p in mating_corners {
         // Outward from the cut piece is toward the bearing piece: the
         // bearing face should be met right at the corner.
-        let entry = bearing
-            .parts
+        let entry = near
             .iter()
             .filter_map(|part| ray_entry(&part.planes, p, mating.normal, tol))
             .min_by(|a, b| a.abs().total_cmp(&b.abs()));
@@ -81,13 +81,13 @@ pub fn check_fit(
                 fit.max_overlap = fit.max_overlap.max(-t);
             }
             None if bearing_top.is_some_and(|t| t.distance(p) > 0.0) => {}
-            None => fit.max_hang = fit.max_hang.max(-bearing.depth_of(p)),
+            None => fit.max_hang = fit.max_hang.max(-near_depth(p)),
         }
     }
     for p in cut.vertices() {
-        fit.max_overlap = fit.max_overlap.max(bearing.depth_of(p));
+        fit.max_overlap = fit.max_overlap.max(near_depth(p));
     }
-    for p in bearing.vertices() {
+    for p in near.iter().flat_map(|part| part.vertices.iter().copied()) {
         fit.max_overlap = fit.max_overlap.max(cut.depth_of(p));
     }
     fit
@@ -96,6 +96,11 @@ pub fn check_fit(
 /// How far past the cut piece's box a bearing part may lie and still be
 /// checked, inches.
 const NEAR_IN: f64 = 1.0;
+
+/// The corner-wise bounds of each part of a solid.
+pub fn part_bounds(solid: &Solid) -> Vec<(glam::DVec3, glam::DVec3)> {
+    solid.parts.iter().map(|part| bounds(part.vertices.iter().copied())).collect()
+}
 
 /// The corner-wise bounds of some points.
 fn bounds(points: impl Iterator<Item = glam::DVec3>) -> (glam::DVec3, glam::DVec3) {

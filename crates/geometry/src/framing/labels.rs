@@ -39,10 +39,15 @@ pub fn label_pieces(specs: &[PieceSpec], measured: &[Measured]) -> Labels {
     };
     let keys: Vec<(MemberKind, Vec<i64>)> = (0..specs.len()).map(key).collect();
     let mut groups: Vec<Vec<usize>> = Vec::new();
-    for i in 0..specs.len() {
-        match groups.iter_mut().find(|g| keys[g[0]] == keys[i]) {
-            Some(g) => g.push(i),
-            None => groups.push(vec![i]),
+    let mut group_of: std::collections::HashMap<&(MemberKind, Vec<i64>), usize> =
+        std::collections::HashMap::with_capacity(keys.len());
+    for (i, key) in keys.iter().enumerate() {
+        match group_of.get(key) {
+            Some(&g) => groups[g].push(i),
+            None => {
+                group_of.insert(key, groups.len());
+                groups.push(vec![i]);
+            }
         }
     }
     groups.sort_by(|a, b| {

@@ -126,15 +126,28 @@ impl ConvexPart {
     /// is unbounded (no corners on some side).
     pub fn from_half_spaces(planes: &[HalfSpace]) -> Option<Self> {
         let mut vertices: Vec<DVec3> = Vec::new();
-        for i in 0..planes.len() {
-            for j in i + 1..planes.len() {
-                for k in j + 1..planes.len() {
+        let n = planes.len();
+        let tol = ON_PLANE_IN * 10.0;
+        // The plane that last ruled a point out is tried first: most points
+        // fall outside a few planes, and the same ones, so the check mostly
+        // ends at once (the points kept are the same whatever the order).
+        let mut last_out = 0;
+        for i in 0..n {
+            for j in i + 1..n {
+                for k in j + 1..n {
                     let Some(p) = three_plane_point(&planes[i], &planes[j], &planes[k]) else {
                         continue;
                     };
-                    if planes.iter().all(|h| h.distance(p) <= ON_PLANE_IN * 10.0)
-                        && !vertices.iter().any(|v| v.distance_squared(p) < 1e-12)
-                    {
+                    // NaN counts as outside, as a failed comparison.
+                    let inside = |h: &HalfSpace| h.distance(p) <= tol;
+                    if !inside(&planes[last_out]) {
+                        continue;
+                    }
+                    if let Some(out) = planes.iter().position(|h| !inside(h)) {
+                        last_out = out;
+                        continue;
+                    }
+                    if !vertices.iter().any(|v| v.distance_squared(p) < 1e-12) {
                         vertices.push(p);
                     }
                 }
@@ -240,11 +253,35 @@ fn order_around(points: &[DVec3], normal: DVec3) -> Vec<DVec3> {
         .iter()
         .map(|p| {
             let d = *p - centre;
-            (d.dot(w).atan2(d.dot(u)), *p)
+            (turn_key(d.dot(u), d.dot(w)), *p)
         })
         .collect();
     with_angle.sort_by(|a, b| a.0.total_cmp(&b.0));
     with_angle.into_iter().map(|(_, p)| p).collect()
+}
+
+/// A key that sorts directions `(x, y)` as `y.atan2(x)` does (from just
+/// past -pi round to pi) without the arctangent: the "diamond angle" of
+/// the opposite direction, 0 to 4, which grows with the angle.
+fn turn_key(x: f64, y: f64) -> f64 {
+    // On the -x axis atan2 gives +pi (the very last) for a positive zero
+    // y and -pi (the very first) for a negative one; at the origin it gives
+    // 0 for a positive zero x.
+    if y == 0.0 && (x < 0.0 || x.is_sign_negative()) {
+        return if y.is_sign_positive() { 4.0 } else { 0.0 };
+    }
+    if x == 0.0 && y == 0.0 {
+        return 2.0;
+    }
+    let (x, y) = (-x, -y);
+    let sum = x.abs() + y.abs();
+    if y >= 0.0 {
+        if x >= 0.0 { y / sum } else { 1.0 - x / sum }
+    } else if x < 0.0 {
+        2.0 - y / sum
+    } else {
+        3.0 + x / sum
+    }
 }
 
 /// Area of a planar polygon with the given normal.
