@@ -773,3 +773,48 @@ fn a_millimetre_plan_takes_its_framing_in_millimetres() {
     assert!((settings.rafter.depth_in - 170.0 / 25.4).abs() < 1e-9);
     assert!(harness.state().derived.scene.frame.is_some(), "the bungalow frames at 400 mm centres");
 }
+
+#[test]
+fn the_window_keeps_working_while_a_file_is_written_and_the_file_is_of_the_plan_as_asked() {
+    use super::export::{CardChoice, ExportKind, ExportWork, make_bytes};
+    let folder = TempFolder::new("export-busy");
+    let mut harness = demo_window_typing_paths(&folder);
+    let asked = harness.state().document.plan.clone();
+    harness.get_by_label("Export").click();
+    harness.run();
+    harness.get_by_role_and_label(egui::Role::Button, "Cut list (CSV)…").click();
+    harness.run();
+    let path = folder.0.join("list.csv");
+    write_to(&mut harness, &path);
+    if !harness.state().jobs.is_empty() {
+        // Still being written: the window says so and goes on drawing.
+        let _ = harness.get_by_label_contains("Writing the cut list to");
+    }
+    // The plan changes while (or after) the file is made ...
+    type_into_while_busy(&mut harness, "Roof pitch", "12/12");
+    assert_ne!(harness.state().document.plan, asked);
+    wait_for_jobs(&mut harness);
+    // ... and the file is of the plan as it stood when it was asked for.
+    let cards = CardChoice::for_plan(&asked);
+    let work = ExportWork::FromPlan {
+        kind: ExportKind::CutList,
+        plan: Box::new(asked),
+        title: "Demo house".to_owned(),
+        cards,
+    };
+    let (expected, _) = make_bytes(work).unwrap();
+    assert_eq!(std::fs::read(&path).unwrap(), expected);
+}
+
+/// Types into a field with frames stepped, not run to rest (a spinner may
+/// be turning).
+fn type_into_while_busy(harness: &mut Harness<'_, AppState>, label: &str, text: &str) {
+    harness.get_by_label(label).click();
+    harness.step();
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::A);
+    harness.get_by_label(label).type_text(text);
+    harness.step();
+    harness.key_press(Key::Enter);
+    harness.step();
+    harness.step();
+}
