@@ -110,9 +110,11 @@ fn end_words(end: CutEnd) -> &'static str {
 
 fn face_kind(tag: FaceTag, end: Option<CutEnd>) -> Option<CutFace> {
     match tag {
-        FaceTag::Plumb => {
-            Some(if end == Some(CutEnd::Tail) { CutFace::TailPlumb } else { CutFace::TopPlumb })
-        }
+        FaceTag::Plumb => Some(match end {
+            Some(CutEnd::Tail) => CutFace::TailPlumb,
+            Some(CutEnd::Bottom) => CutFace::BottomPlumb,
+            _ => CutFace::TopPlumb,
+        }),
         FaceTag::Seat => Some(CutFace::Seat),
         FaceTag::Heel => Some(CutFace::Heel),
         FaceTag::Cheek => Some(CutFace::Cheek),
@@ -193,7 +195,10 @@ fn views(piece: &PlacedPiece, depth_in: f64, with_top: bool) -> (MemberView, Opt
                     face: kind,
                     outline: face.vertices.iter().map(|v| top_point(*v)).collect(),
                 });
-            } else if matches!(kind, CutFace::Cheek | CutFace::TopPlumb | CutFace::TailPlumb) {
+            } else if matches!(
+                kind,
+                CutFace::Cheek | CutFace::TopPlumb | CutFace::BottomPlumb | CutFace::TailPlumb
+            ) {
                 // A plumb cut on a sloped member hides under the top when
                 // seen square to it; what the top view shows, and what is
                 // marked there, is the line the cut leaves on the top:
@@ -511,7 +516,11 @@ fn card_cuts(
         let place = end_words(cut.end()).to_string();
         match cut {
             Cut::Plumb { end, square, face, deduction_in, .. } => {
-                let kind = if *end == CutEnd::Tail { CutFace::TailPlumb } else { CutFace::TopPlumb };
+                let kind = match end {
+                    CutEnd::Tail => CutFace::TailPlumb,
+                    CutEnd::Bottom => CutFace::BottomPlumb,
+                    _ => CutFace::TopPlumb,
+                };
                 cuts.push(CardCut {
                     face: kind,
                     place,

@@ -18,6 +18,9 @@ use serde::Serialize;
 pub enum CutFace {
     /// Plumb cut at the upper end (ridge, hip or valley).
     TopPlumb,
+    /// Plumb cut at the lower end of a member that has no tail (a hip
+    /// whose foot meets another member).
+    BottomPlumb,
     /// Level seat of a birdsmouth, bearing on the plate.
     Seat,
     /// Plumb heel of a birdsmouth, against the outside of the plate.
@@ -36,8 +39,9 @@ pub enum CutFace {
 
 impl CutFace {
     /// Every cut face kind, in legend order.
-    pub const ALL: [CutFace; 8] = [
+    pub const ALL: [CutFace; 9] = [
         CutFace::TopPlumb,
+        CutFace::BottomPlumb,
         CutFace::Seat,
         CutFace::Heel,
         CutFace::TailPlumb,
@@ -51,6 +55,7 @@ impl CutFace {
     pub fn name(self) -> &'static str {
         match self {
             CutFace::TopPlumb => "top plumb cut",
+            CutFace::BottomPlumb => "lower plumb cut",
             CutFace::Seat => "seat cut",
             CutFace::Heel => "heel cut",
             CutFace::TailPlumb => "tail plumb cut",
@@ -66,6 +71,7 @@ impl CutFace {
     pub fn tag(self) -> &'static str {
         match self {
             CutFace::TopPlumb => "P",
+            CutFace::BottomPlumb => "LP",
             CutFace::Seat => "S",
             CutFace::Heel => "H",
             CutFace::TailPlumb => "T",
@@ -82,6 +88,8 @@ impl CutFace {
     pub fn colour(self) -> [f32; 3] {
         match self {
             CutFace::TopPlumb => [0.85, 0.33, 0.10],
+            // A plumb cut like the top one, a shade darker.
+            CutFace::BottomPlumb => [0.65, 0.25, 0.08],
             CutFace::Seat => [0.00, 0.45, 0.70],
             CutFace::Heel => [0.34, 0.71, 0.91],
             CutFace::TailPlumb => [0.80, 0.47, 0.65],
@@ -97,6 +105,7 @@ impl CutFace {
     pub fn hatch_deg(self) -> f64 {
         match self {
             CutFace::TopPlumb => 45.0,
+            CutFace::BottomPlumb => 15.0,
             CutFace::Seat => 0.0,
             CutFace::Heel => 90.0,
             CutFace::TailPlumb => -45.0,

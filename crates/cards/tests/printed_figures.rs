@@ -115,3 +115,18 @@ fn cards_give_the_pitch_as_the_square_reads_it() {
     // Metric plans give the angle (the bungalow's commons are at 30 deg).
     assert!(words(&decks[2]).contains("pitch 30 deg"), "metric pitch");
 }
+
+#[test]
+fn a_plumb_cut_at_a_lower_end_is_not_called_a_top_plumb_cut() {
+    let mut lower = 0;
+    for deck in plans::all_decks() {
+        for member in &deck.members {
+            for cut in member.cuts.iter().filter(|cut| cut.place.starts_with("lower end")) {
+                assert_ne!(cut.face, pitchframe_cards::CutFace::TopPlumb, "{} {}", member.label, cut.place);
+                lower += usize::from(cut.face == pitchframe_cards::CutFace::BottomPlumb);
+            }
+        }
+    }
+    // The demo's hip H3 ends in a plumb cut at its foot.
+    assert!(lower > 0);
+}
