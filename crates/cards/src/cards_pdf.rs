@@ -88,6 +88,17 @@ const MARGIN: f64 = 30.0;
 /// Renders the cover sheet, one card per distinct member and any full-size
 /// templates into one PDF.
 pub fn render_cards(deck: &CardDeck, options: &CardOptions) -> Result<Vec<u8>, CardsError> {
+    render_cards_with_progress(deck, options, &|_, _| {})
+}
+
+/// [`render_cards`], telling `progress(done, total)` after each card and
+/// template and once more when the file is written, so a window can show
+/// how far a large job has gone.
+pub fn render_cards_with_progress(
+    deck: &CardDeck,
+    options: &CardOptions,
+    progress: &dyn Fn(usize, usize),
+) -> Result<Vec<u8>, CardsError> {
     if !matches!(options.per_page, 1 | 2 | 4) {
         return Err(CardsError::PerPage { per_page: options.per_page });
     }
@@ -106,14 +117,21 @@ pub fn render_cards(deck: &CardDeck, options: &CardOptions) -> Result<Vec<u8>, C
     let mut forms = Forms::default();
     let mut sheets = Sheets::new(paper, options.per_page);
     let total_cards = deck.members.len();
+    // The cover, each card, each template and the writing of the file.
+    let steps = 1 + total_cards + template_members.len() + 1;
+    progress(1, steps);
     for (index, member) in deck.members.iter().enumerate() {
         place_card(&mut sheets, &mut forms, deck, member, &format!("card {} of {total_cards}", index + 1));
+        progress(2 + index, steps);
     }
     pages.extend(sheets.finish(deck));
-    for member in template_members {
+    for (index, member) in template_members.into_iter().enumerate() {
         pages.extend(template_pages(deck, member, paper));
+        progress(2 + total_cards + index, steps);
     }
-    Ok(write_document(pages, forms, &deck.title)?)
+    let pdf = write_document(pages, forms, &deck.title)?;
+    progress(steps, steps);
+    Ok(pdf)
 }
 
 /// How much of a page a card is given.

@@ -34,7 +34,8 @@ mod square_figure;
 pub use card_deck::{CardDeck, PlaneSummary, RoofSummary};
 pub use card_page::{CARD_CAUTION, MIN_TEXT_PT};
 pub use cards_pdf::{
-    CAUTIONS, CardOptions, CardsError, POINTS_PER_IN, POINTS_PER_MM, Paper, render_cards, scale_bar_pt,
+    CAUTIONS, CardOptions, CardsError, POINTS_PER_IN, POINTS_PER_MM, Paper, render_cards,
+    render_cards_with_progress, scale_bar_pt,
 };
 pub use cut_list::{CutListError, cut_list_csv, cut_list_table, cut_text};
 pub use from_frame::{

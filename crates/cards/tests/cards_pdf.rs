@@ -8,7 +8,7 @@ mod common;
 
 use lopdf::content::Content;
 use lopdf::{Document, Object};
-use pitchframe_cards::{CardOptions, CardsError, Paper, render_cards};
+use pitchframe_cards::{CardOptions, CardsError, Paper, render_cards, render_cards_with_progress};
 
 /// Every string shown by a text operator on each page, decoded from WinAnsi
 /// (ASCII is the same in both).
@@ -142,4 +142,23 @@ fn pages_are_not_blank(pdf: &[u8], per_page: u8) {
         assert!(dark > body.len() / 500, "{} looks blank ({dark} dark pixels)", page.display());
     }
     std::fs::remove_dir_all(&dir).unwrap();
+}
+
+#[test]
+fn progress_counts_up_to_the_whole_job_and_the_file_is_the_same() {
+    let deck = common::sample_deck();
+    let label = deck.members.first().unwrap().label.clone();
+    let options = CardOptions { paper: Paper::A4, per_page: 2, templates: vec![label] };
+    let seen = std::cell::RefCell::new(Vec::new());
+    let pdf =
+        render_cards_with_progress(&deck, &options, &|done, total| seen.borrow_mut().push((done, total)))
+            .unwrap();
+    let seen = seen.into_inner();
+    // The cover, each card, the one template and the writing of the file.
+    let steps = 1 + deck.members.len() + 1 + 1;
+    assert_eq!(seen.len(), steps);
+    assert!(seen.iter().all(|&(_, total)| total == steps));
+    assert!(seen.windows(2).all(|pair| pair[1].0 == pair[0].0 + 1), "{seen:?}");
+    assert_eq!(seen.last(), Some(&(steps, steps)));
+    assert_eq!(pdf, render_cards(&deck, &options).unwrap());
 }
