@@ -13,6 +13,7 @@ use pitchframe_geometry::Plan;
 use super::ViewPreset;
 use super::camera::OrbitCamera;
 use super::camera_glide::CameraGlide;
+use super::card_templates::scene_template_members;
 use super::command::{Command, Layout, shortcut_commands};
 use super::derived::Derived;
 use super::desktop_open::{desktop_opener, open_in_desktop};
@@ -543,7 +544,7 @@ impl AppState {
                     config.clear_autosave(source.as_deref());
                 }
             }
-            (Dialog::CardOptions(cards), Answer::Continue) => {
+            (Dialog::CardOptions { choice: cards, .. }, Answer::Continue) => {
                 let spec = ExportSpec { kind: ExportKind::Cards, cards, picture_px: self.view_px };
                 self.choose_export_path(spec);
             }
@@ -564,7 +565,8 @@ impl AppState {
                 let path = PathBuf::from(text.trim());
                 match purpose {
                     PathPurpose::Export(spec) => {
-                        self.start_export(spec, with_extension(path, spec.kind.extension()));
+                        let extension = spec.kind.extension();
+                        self.start_export(spec, with_extension(path, extension));
                     }
                     PathPurpose::Open => {
                         self.open_path(&path);
@@ -814,7 +816,10 @@ impl AppState {
         }
         let cards = CardChoice::for_plan(&self.document.plan);
         match kind {
-            ExportKind::Cards => self.dialogs.insert(0, Dialog::CardOptions(cards)),
+            ExportKind::Cards => {
+                let members = scene_template_members(&self.document.plan, &self.derived.scene);
+                self.dialogs.insert(0, Dialog::CardOptions { choice: cards, members });
+            }
             ExportKind::Picture => self.dialogs.insert(
                 0,
                 Dialog::PictureSize {

@@ -9,6 +9,7 @@ use egui::RichText;
 use pitchframe_cards::Paper;
 use pitchframe_geometry::Plan;
 
+use super::card_templates::TemplateMember;
 use super::choice_button::choice_button;
 use super::command::MENU_ENTRIES;
 use super::export::{CardChoice, ExportSpec, MAX_PICTURE_SIDE_PX};
@@ -29,7 +30,7 @@ pub enum Pending {
 }
 
 /// What a typed path is for.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[derive(Debug, Clone, PartialEq, Eq)]
 pub enum PathPurpose {
     /// A plan to open.
     Open,
@@ -68,8 +69,13 @@ pub enum Dialog {
     Keys,
     /// What the program is.
     About,
-    /// Paper and cards a page for the cut cards.
-    CardOptions(CardChoice),
+    /// Paper, cards a page and full-size templates for the cut cards.
+    CardOptions {
+        /// What is chosen so far.
+        choice: CardChoice,
+        /// The members a template can be printed for.
+        members: Vec<TemplateMember>,
+    },
     /// The size of a picture of the 3D view, typed in pixels.
     PictureSize {
         /// Width as typed.
@@ -187,7 +193,7 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
                     answer = Some(Answer::Close);
                 }
             }
-            Dialog::CardOptions(choice) => {
+            Dialog::CardOptions { choice, members } => {
                 ui.heading("Print cut cards");
                 ui.label("One card for each member, with a cover sheet of the roof and the cautions.");
                 ui.horizontal(|ui| {
@@ -206,6 +212,7 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
                         }
                     }
                 });
+                templates_ui(ui, choice, members);
                 ui.horizontal(|ui| {
                     if ui.button(RichText::new("Choose where to save…").size(18.0)).clicked() {
                         answer = Some(Answer::Continue);
@@ -267,4 +274,49 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
         }
     });
     answer
+}
+
+/// The choice of members whose ends are printed full size after the cards.
+fn templates_ui(ui: &mut egui::Ui, choice: &mut CardChoice, members: &[TemplateMember]) {
+    ui.add_space(6.0);
+    ui.label(RichText::new("Full-size end templates").strong());
+    if members.is_empty() {
+        ui.label("No member of this frame has a plumb or cheek cut at an end.");
+        return;
+    }
+    ui.label(
+        "Each member ticked gets its ends printed at 1:1 after the cards (two to four pages), \
+         to cut out and hold on the board to mark the cuts. Check the 6 in scale bar on the \
+         print before using one.",
+    );
+    ui.horizontal(|ui| {
+        let chosen = match choice.templates.len() {
+            0 => "None chosen".to_owned(),
+            1 => "1 member chosen".to_owned(),
+            n => format!("{n} members chosen"),
+        };
+        ui.label(RichText::new(chosen).weak());
+        if ui.add_enabled(!choice.templates.is_empty(), egui::Button::new("None")).clicked() {
+            choice.templates.clear();
+        }
+    });
+    let mut ticked: Vec<bool> =
+        members.iter().map(|member| choice.templates.contains(&member.label)).collect();
+    let mut changed = false;
+    egui::ScrollArea::vertical().id_salt("template members").max_height(180.0).show(ui, |ui| {
+        ui.horizontal_wrapped(|ui| {
+            for (member, on) in members.iter().zip(ticked.iter_mut()) {
+                changed |= ui.checkbox(on, format!("{} {}", member.label, member.kind)).changed();
+            }
+        });
+    });
+    if changed {
+        // Kept in the cards' order, whatever order they were ticked in.
+        choice.templates = members
+            .iter()
+            .zip(&ticked)
+            .filter(|(_, on)| **on)
+            .map(|(member, _)| member.label.clone())
+            .collect();
+    }
 }

@@ -101,12 +101,15 @@ pub fn with_extension(path: PathBuf, extension: &str) -> PathBuf {
 }
 
 /// How the cut cards are printed.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[derive(Debug, Clone, PartialEq, Eq)]
 pub struct CardChoice {
     /// Paper size.
     pub paper: Paper,
     /// Cards on a page: 1, 2 or 4.
     pub per_page: u8,
+    /// Labels of the members whose ends are also printed full size, in
+    /// the cards' order.
+    pub templates: Vec<String>,
 }
 
 impl CardChoice {
@@ -117,12 +120,12 @@ impl CardChoice {
             LengthUnit::Inch => Paper::Letter,
             LengthUnit::Millimetre => Paper::A4,
         };
-        Self { paper, per_page: 2 }
+        Self { paper, per_page: 2, templates: Vec::new() }
     }
 }
 
 /// Everything chosen for one file before its name is asked.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[derive(Debug, Clone, PartialEq, Eq)]
 pub struct ExportSpec {
     /// Which file.
     pub kind: ExportKind,
@@ -213,7 +216,8 @@ fn plan_bytes(
     match kind {
         ExportKind::Cards => {
             let deck = titled_deck(title, &framed).map_err(|err| err.0)?;
-            let options = CardOptions { paper: cards.paper, per_page: cards.per_page, templates: Vec::new() };
+            let options =
+                CardOptions { paper: cards.paper, per_page: cards.per_page, templates: cards.templates };
             let pdf = render_cards(&deck, &options).map_err(|err| err.to_string())?;
             Ok((pdf, format!("{} members", deck.members.len())))
         }

@@ -16,7 +16,8 @@
 //! GL renderer, and `picture` saves a screenshot for `--picture`.
 //! `framing_panel` edits the plan's `[framing]` settings. `joints` places the frame's joints in the 3D view (the fit is the
 //! geometry crate's check), `joint_panel` shows them, and `camera_glide`
-//! closes the camera in on a picked one. `export` writes the cut cards, lists, model and pictures of the view on
+//! closes the camera in on a picked one. `export` writes the cut cards (`card_templates` offers the members
+//! whose ends can be printed full size), lists, model and pictures of the view on
 //! threads of their own; `desktop_open` opens what was written, and
 //! `view_picture_run` makes a picture of the view without a person (for
 //! the window tests).
@@ -24,6 +25,7 @@
 mod app;
 mod camera;
 mod camera_glide;
+mod card_templates;
 mod choice_button;
 mod command;
 mod derived;

@@ -465,6 +465,72 @@ fn cut_cards_from_the_export_menu_print_on_the_paper_chosen_and_open_from_the_me
 }
 
 #[test]
+fn cut_cards_with_one_member_ticked_print_its_full_size_templates_and_no_others() {
+    let folder = TempFolder::new("export-templates");
+    let mut harness = demo_window_typing_paths(&folder);
+    harness.key_press_modifiers(Modifiers::COMMAND, Key::P);
+    harness.run();
+    // Nothing is printed full size unless asked for.
+    let _ = harness.get_by_label("None chosen");
+    let members = match harness.state().dialogs.first() {
+        Some(Dialog::CardOptions { choice, members }) => {
+            assert!(choice.templates.is_empty());
+            members.clone()
+        }
+        other => panic!("the card dialog is not in front: {other:?}"),
+    };
+    // A hip: cheek cuts at both ends, so side and top views are printed.
+    let hip = members.iter().find(|member| member.kind == "hip").expect("the demo house has hips");
+    harness.get_by_label(&format!("{} {}", hip.label, hip.kind)).click();
+    harness.run();
+    let _ = harness.get_by_label("1 member chosen");
+    harness.get_by_label("Choose where to save…").click();
+    harness.run();
+    let path = folder.0.join("demo cards with a template.pdf");
+    write_to(&mut harness, &path);
+    wait_for_jobs(&mut harness);
+    let _ = harness.get_by_label_contains("Wrote the cut cards");
+
+    let headings: Vec<String> = pdf_page_texts(&std::fs::read(&path).unwrap())
+        .into_iter()
+        .filter(|text| text.contains("FULL SIZE"))
+        .collect();
+    // Upper and lower end, each as the side face and the top face with its
+    // cheek cuts: four pages, as the card crate's template pages are laid out.
+    assert_eq!(headings.len(), 4, "{headings:?}");
+    for (end, face) in [
+        ("upper end", "side face"),
+        ("upper end", "top face"),
+        ("lower end", "side face"),
+        ("lower end", "top face"),
+    ] {
+        let heading = format!("{} {} - {end}, {face}", hip.label, hip.kind);
+        assert!(headings.iter().any(|text| text.contains(&heading)), "no page \"{heading}\" in {headings:?}");
+    }
+}
+
+/// Each page's text, read from its content stream.
+fn pdf_page_texts(pdf: &[u8]) -> Vec<String> {
+    use lopdf::content::Content;
+    let document = lopdf::Document::load_mem(pdf).unwrap();
+    document
+        .get_pages()
+        .values()
+        .map(|&page| {
+            let content = Content::decode(&document.get_page_content(page)).unwrap();
+            let mut text = String::new();
+            for operation in content.operations.iter().filter(|operation| operation.operator == "Tj") {
+                if let Some(lopdf::Object::String(bytes, _)) = operation.operands.first() {
+                    text.extend(bytes.iter().map(|&byte| byte as char));
+                    text.push('\n');
+                }
+            }
+            text
+        })
+        .collect()
+}
+
+#[test]
 fn the_cut_list_lumber_order_and_model_are_written_where_typed() {
     let folder = TempFolder::new("export-files");
     let mut harness = demo_window_typing_paths(&folder);
