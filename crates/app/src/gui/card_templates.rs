@@ -21,10 +21,12 @@ pub fn template_members(deck: &CardDeck) -> Vec<TemplateMember> {
     deck.members
         .iter()
         .filter(|member| {
-            member
-                .cuts
-                .iter()
-                .any(|cut| matches!(cut.face, CutFace::TopPlumb | CutFace::TailPlumb | CutFace::Cheek))
+            member.cuts.iter().any(|cut| {
+                matches!(
+                    cut.face,
+                    CutFace::TopPlumb | CutFace::BottomPlumb | CutFace::TailPlumb | CutFace::Cheek
+                )
+            })
         })
         .map(|member| TemplateMember { label: member.label.clone(), kind: member.kind.clone() })
         .collect()
