@@ -481,6 +481,15 @@ fn cut_cards_with_one_member_ticked_print_its_full_size_templates_and_no_others(
     };
     // A hip: cheek cuts at both ends, so side and top views are printed.
     let hip = members.iter().find(|member| member.kind == "hip").expect("the demo house has hips");
+    // Ticking two and clearing them leaves none, then one is ticked.
+    let common = members.iter().find(|member| member.kind == "common rafter").expect("the demo has commons");
+    harness.get_by_label(&format!("{} {}", common.label, common.kind)).click();
+    harness.get_by_label(&format!("{} {}", hip.label, hip.kind)).click();
+    harness.run();
+    let _ = harness.get_by_label("2 members chosen");
+    harness.get_by_label("None").click();
+    harness.run();
+    let _ = harness.get_by_label("None chosen");
     harness.get_by_label(&format!("{} {}", hip.label, hip.kind)).click();
     harness.run();
     let _ = harness.get_by_label("1 member chosen");
