@@ -5,7 +5,9 @@
 //!
 //! `PITCHFRAME_ROOF_CASES` sets the number of outlines per property (the
 //! default keeps the file well under a minute in a debug build); the long
-//! random runs raise it.
+//! random runs raise it. The random outlines are drawn from a fixed seed so
+//! every run (and CI) checks the same ones; `PITCHFRAME_ROOF_SEED` picks
+//! another seed, or `random` for a fresh draw each run, to explore.
 
 #![allow(clippy::unwrap_used, reason = "a panic in a test helper is a failed test")]
 
@@ -16,10 +18,19 @@ use pitchframe_geometry::{
     WallRoof, check_roof, random_outline, random_outline_with,
 };
 use proptest::prelude::*;
-use proptest::test_runner::TestCaseError;
+use proptest::test_runner::{RngSeed, TestCaseError};
 
 fn cases(default: u32) -> u32 {
     std::env::var("PITCHFRAME_ROOF_CASES").ok().and_then(|v| v.parse().ok()).unwrap_or(default)
+}
+
+/// The seed the solver's random outlines are drawn from.
+fn rng_seed() -> RngSeed {
+    match std::env::var("PITCHFRAME_ROOF_SEED").ok().as_deref() {
+        Some("random") => RngSeed::Random,
+        Some(text) => RngSeed::Fixed(text.parse().unwrap_or_else(|_| panic!("PITCHFRAME_ROOF_SEED={text}"))),
+        None => RngSeed::Fixed(20_261_201),
+    }
 }
 
 fn ring(points: impl IntoIterator<Item = DVec2>) -> LineString<f64> {
@@ -314,7 +325,7 @@ fn solve_and_check(outline: &Outline) -> Result<(), TestCaseError> {
 }
 
 proptest! {
-    #![proptest_config(ProptestConfig { cases: cases(1500), ..ProptestConfig::default() })]
+    #![proptest_config(ProptestConfig { cases: cases(1500), rng_seed: rng_seed(), ..ProptestConfig::default() })]
 
     #[test]
     fn plain_orthogonal_roofs_pass(seed in any::<u64>()) {
@@ -336,4 +347,14 @@ proptest! {
     fn star_roofs_pass(seed in any::<u64>()) {
         solve_and_check(&random_outline(OutlineShape::Star, seed))?;
     }
+}
+
+/// A generated orthogonal outline (20 corners, unequal pitches, two gables,
+/// walls bent by a fraction of an inch) whose solved roof has a plane
+/// reaching outside the outline. Found by drawing this property with fresh
+/// seeds; kept until the solve is fixed.
+#[test]
+#[ignore = "open: plane 17 of this generated outline reaches outside the outline"]
+fn orthogonal_seed_14348934082233127294_solves_inside_its_outline() {
+    solve_and_check(&random_outline(OutlineShape::Orthogonal, 14_348_934_082_233_127_294)).unwrap();
 }
