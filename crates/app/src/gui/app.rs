@@ -986,11 +986,19 @@ fn notice_ui(ui: &mut egui::Ui, notice: &Notice, slot: &mut Option<Notice>, comm
     });
 }
 
-/// The files being written, each with a spinner and the seconds so far.
+/// The files being written, each with a progress bar (or a spinner where
+/// the job cannot tell how far it is) and the seconds so far.
 fn jobs_ui(ui: &mut egui::Ui, jobs: &[ExportJob]) {
     for job in jobs {
         ui.horizontal(|ui| {
-            ui.add(egui::Spinner::new().size(20.0));
+            match job.fraction() {
+                Some(fraction) => {
+                    ui.add(egui::ProgressBar::new(fraction).desired_width(160.0).show_percentage());
+                }
+                None => {
+                    ui.add(egui::Spinner::new().size(20.0));
+                }
+            }
             let seconds = job.started.elapsed().as_secs();
             let text = format!("Writing the {} to {}… {seconds} s", job.kind.noun(), job.path.display());
             ui.label(egui::RichText::new(text).size(18.0));

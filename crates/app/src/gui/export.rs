@@ -7,10 +7,14 @@
 //! `export`.
 
 use std::path::{Path, PathBuf};
+use std::sync::Arc;
+use std::sync::atomic::{AtomicUsize, Ordering};
 use std::sync::mpsc::{Receiver, TryRecvError, channel};
 use std::time::Instant;
 
-use pitchframe_cards::{CardOptions, LumberOrder, Paper, cut_list_csv, frame_glb, model_scene, render_cards};
+use pitchframe_cards::{
+    CardOptions, LumberOrder, Paper, cut_list_csv, frame_glb, model_scene, render_cards_with_progress,
+};
 use pitchframe_geometry::{Length, LengthStyle, LengthUnit, Plan};
 
 use crate::cli::{frame_loaded, lumber_order, titled_deck};
@@ -194,9 +198,9 @@ impl ExportWork {
 }
 
 /// The file's bytes and a short account of what is in it ("14 members").
-pub fn make_bytes(work: ExportWork) -> Result<(Vec<u8>, String), String> {
+pub fn make_bytes(work: ExportWork, progress: &dyn Fn(usize, usize)) -> Result<(Vec<u8>, String), String> {
     match work {
-        ExportWork::FromPlan { kind, plan, title, cards } => plan_bytes(kind, *plan, &title, cards),
+        ExportWork::FromPlan { kind, plan, title, cards } => plan_bytes(kind, *plan, &title, cards, progress),
         ExportWork::Picture(pixels) => {
             let summary = format!("{} x {} pixels", pixels.width, pixels.height);
             png_bytes(pixels).map(|bytes| (bytes, summary))
@@ -209,6 +213,7 @@ fn plan_bytes(
     plan: Plan,
     title: &str,
     cards: CardChoice,
+    progress: &dyn Fn(usize, usize),
 ) -> Result<(Vec<u8>, String), String> {
     let style = pitchframe_cards::length_style(&plan);
     let framed = frame_loaded(plan).map_err(|err| err.0)?;
@@ -218,7 +223,7 @@ fn plan_bytes(
             let deck = titled_deck(title, &framed).map_err(|err| err.0)?;
             let options =
                 CardOptions { paper: cards.paper, per_page: cards.per_page, templates: cards.templates };
-            let pdf = render_cards(&deck, &options).map_err(|err| err.to_string())?;
+            let pdf = render_cards_with_progress(&deck, &options, progress).map_err(|err| err.to_string())?;
             Ok((pdf, format!("{} members", deck.members.len())))
         }
         ExportKind::CutList => {
@@ -327,6 +332,15 @@ pub struct ExportJob {
     /// When it was started.
     pub started: Instant,
     receiver: Receiver<JobOutcome>,
+    progress: Arc<JobProgress>,
+}
+
+/// How far a job has gone, written by its thread and read by the window:
+/// steps done of a total, the total 0 while the job cannot tell.
+#[derive(Debug, Default)]
+struct JobProgress {
+    done: AtomicUsize,
+    total: AtomicUsize,
 }
 
 impl ExportJob {
@@ -335,8 +349,14 @@ impl ExportJob {
         let kind = work.kind();
         let (sender, receiver) = channel();
         let target = path.clone();
+        let progress = Arc::new(JobProgress::default());
+        let report = Arc::clone(&progress);
         std::thread::spawn(move || {
-            let outcome = match make_bytes(work) {
+            let tell = |done: usize, total: usize| {
+                report.total.store(total, Ordering::Relaxed);
+                report.done.store(done, Ordering::Relaxed);
+            };
+            let outcome = match make_bytes(work, &tell) {
                 Ok((bytes, summary)) => match write_export(&target, &bytes) {
                     Ok(()) => JobOutcome::Written(summary),
                     Err(message) => JobOutcome::Failed(message),
@@ -346,7 +366,15 @@ impl ExportJob {
             // The window may have closed; then nobody waits for the answer.
             let _ = sender.send(outcome);
         });
-        Self { kind, path, started: Instant::now(), receiver }
+        Self { kind, path, started: Instant::now(), receiver, progress }
+    }
+
+    /// The share of the job done, from 0 to 1, for jobs that can tell
+    /// (the cut cards, card by card).
+    pub fn fraction(&self) -> Option<f32> {
+        let total = self.progress.total.load(Ordering::Relaxed);
+        let done = self.progress.done.load(Ordering::Relaxed).min(total);
+        (total > 0).then(|| done as f32 / total as f32)
     }
 
     /// The outcome once the job has ended.
@@ -384,13 +412,13 @@ mod tests {
 
     #[test]
     fn every_plan_file_is_the_kind_its_name_says() {
-        let (pdf, _) = make_bytes(demo_work(ExportKind::Cards)).unwrap();
+        let (pdf, _) = make_bytes(demo_work(ExportKind::Cards), &|_, _| {}).unwrap();
         // PDF files open with "%PDF-" (ISO 32000-1, section 7.5.2).
         assert!(pdf.starts_with(b"%PDF-"));
-        let (glb, _) = make_bytes(demo_work(ExportKind::Model)).unwrap();
+        let (glb, _) = make_bytes(demo_work(ExportKind::Model), &|_, _| {}).unwrap();
         // A binary glTF opens with the magic "glTF" (glTF 2.0 spec, section 4.4.2).
         assert!(glb.starts_with(b"glTF"));
-        let (csv, summary) = make_bytes(demo_work(ExportKind::CutList)).unwrap();
+        let (csv, summary) = make_bytes(demo_work(ExportKind::CutList), &|_, _| {}).unwrap();
         let csv = String::from_utf8(csv).unwrap();
         assert!(csv.lines().count() > 5, "{csv}");
         assert!(summary.ends_with("members"));
@@ -417,6 +445,18 @@ mod tests {
         let bought: f64 =
             rows.iter().filter(|r| !r[5].is_empty()).map(|r| r[5].parse::<f64>().unwrap()).sum();
         assert!((bought - order.bought_in()).abs() < 1e-3 * rows.len() as f64);
+    }
+
+    #[test]
+    fn a_card_job_counts_its_cards_to_the_end_and_a_picture_job_cannot_tell() {
+        let folder = TempFolder::new("export-progress");
+        let job = ExportJob::start(demo_work(ExportKind::Cards), folder.0.join("cards.pdf"));
+        assert!(matches!(job.wait(), JobOutcome::Written(_)));
+        assert_eq!(job.fraction(), Some(1.0));
+        let pixels = Pixels { width: 1, height: 1, rgba: vec![0, 0, 0, 255] };
+        let job = ExportJob::start(ExportWork::Picture(pixels), folder.0.join("view.png"));
+        assert!(matches!(job.wait(), JobOutcome::Written(_)));
+        assert_eq!(job.fraction(), None);
     }
 
     #[test]

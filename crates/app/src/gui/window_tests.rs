@@ -877,7 +877,7 @@ fn the_window_keeps_working_while_a_file_is_written_and_the_file_is_of_the_plan_
         title: "Demo house".to_owned(),
         cards,
     };
-    let (expected, _) = make_bytes(work).unwrap();
+    let (expected, _) = make_bytes(work, &|_, _| {}).unwrap();
     assert_eq!(std::fs::read(&path).unwrap(), expected);
 }
 
