@@ -7,18 +7,17 @@
 
 use std::collections::HashMap;
 
-use egui::{Color32, RichText};
+use egui::RichText;
 use pitchframe_geometry::{FramingInput, Length, MemberSize, Plan};
 
 use super::choice_button::choice_button;
 use super::command::Command;
 use super::edit::{FramingField, PlanEdit};
+use super::typed_field::{ERROR, typed_text_field};
 use super::units::DisplayUnits;
 
 /// Width of a text field, in points.
 const FIELD_WIDTH: f32 = 110.0;
-/// The red of an error message.
-const ERROR: Color32 = Color32::from_rgb(220, 30, 30);
 /// The settings' own defaults, as the frame uses them when a plan leaves
 /// them out (the geometry crate's `FramingSettings::default`).
 const DEFAULT_SPACING_IN: f64 = 24.0;
@@ -271,26 +270,21 @@ fn length_row(
     read: impl FnOnce(&str) -> Result<Command, String>,
 ) {
     ui.label(field.shown());
-    let mut text = state.typed.get(&field).cloned().unwrap_or_else(|| current.to_owned());
-    let has_error = state.errors.contains_key(&field);
-    let mut edit = egui::TextEdit::singleline(&mut text).desired_width(FIELD_WIDTH).hint_text(hint);
-    if has_error {
-        edit = edit.text_color(ERROR);
-    }
-    let response = ui.add(edit);
-    ui.ctx().accesskit_node_builder(response.id, |node| node.set_label(field.name()));
-    if response.has_focus() || response.changed() {
-        state.typed.insert(field, text.clone());
-    }
-    if response.lost_focus() {
-        if text == current && !has_error {
-            state.typed.remove(&field);
-        } else {
-            match read(&text) {
-                Ok(command) => commands.push(command),
-                Err(message) => {
-                    state.errors.insert(field, message);
-                }
+    let typed = typed_text_field(
+        ui,
+        &mut state.typed,
+        &state.errors,
+        field,
+        field.name(),
+        current,
+        hint,
+        FIELD_WIDTH,
+    );
+    if let Some(text) = typed {
+        match read(&text) {
+            Ok(command) => commands.push(command),
+            Err(message) => {
+                state.errors.insert(field, message);
             }
         }
     }

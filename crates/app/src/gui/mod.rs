@@ -54,6 +54,7 @@ mod snap;
 mod toolbar;
 mod triangles;
 mod triangulate;
+mod typed_field;
 mod units;
 mod view_picture_run;
 mod viewport;

@@ -257,25 +257,7 @@ impl Renderer {
         let [width, height] = key.size_px.map(|side| side.max(1));
         let (colour, depth) = match earlier {
             Some(drawn) if drawn.key.size_px == key.size_px => (drawn.colour, drawn.depth),
-            _ => (
-                Texture2D::new_empty::<[u8; 4]>(
-                    &self.context,
-                    width,
-                    height,
-                    Interpolation::Nearest,
-                    Interpolation::Nearest,
-                    None,
-                    Wrapping::ClampToEdge,
-                    Wrapping::ClampToEdge,
-                ),
-                DepthTexture2D::new::<f32>(
-                    &self.context,
-                    width,
-                    height,
-                    Wrapping::ClampToEdge,
-                    Wrapping::ClampToEdge,
-                ),
-            ),
+            _ => view_textures(&self.context, width, height),
         };
         self.set_light(light_direction(&key.camera));
         let camera = three_d_camera(&key.camera, Viewport::new_at_origo(width, height));
@@ -342,23 +324,7 @@ impl Renderer {
         self.upload(scene);
         let picked = if style.client_view { None } else { picked };
         self.update_highlight(scene, picked);
-        let colour = Texture2D::new_empty::<[u8; 4]>(
-            &self.context,
-            width,
-            height,
-            Interpolation::Nearest,
-            Interpolation::Nearest,
-            None,
-            Wrapping::ClampToEdge,
-            Wrapping::ClampToEdge,
-        );
-        let depth = DepthTexture2D::new::<f32>(
-            &self.context,
-            width,
-            height,
-            Wrapping::ClampToEdge,
-            Wrapping::ClampToEdge,
-        );
+        let (colour, depth) = view_textures(&self.context, width, height);
         self.set_light(light_direction(camera));
         let three_d_camera = three_d_camera(camera, Viewport::new_at_origo(width, height));
         let rgba: Vec<[u8; 4]> = RenderTarget::new(colour.as_color_target(None), depth.as_depth_target())
@@ -367,6 +333,24 @@ impl Renderer {
             .read_color();
         Ok(Pixels { width, height, rgba: rgba.into_iter().flatten().collect() })
     }
+}
+
+/// A colour and a depth texture of `width` x `height` pixels to draw the
+/// view into off screen.
+fn view_textures(context: &Context, width: u32, height: u32) -> (Texture2D, DepthTexture2D) {
+    let colour = Texture2D::new_empty::<[u8; 4]>(
+        context,
+        width,
+        height,
+        Interpolation::Nearest,
+        Interpolation::Nearest,
+        None,
+        Wrapping::ClampToEdge,
+        Wrapping::ClampToEdge,
+    );
+    let depth =
+        DepthTexture2D::new::<f32>(context, width, height, Wrapping::ClampToEdge, Wrapping::ClampToEdge);
+    (colour, depth)
 }
 
 /// The direction the view's light travels: from over the viewer's left

@@ -5,18 +5,17 @@
 
 use std::collections::HashMap;
 
-use egui::{Color32, RichText};
+use egui::RichText;
 use pitchframe_geometry::{Length, Pitch, Plan, PlanWall};
 
 use super::command::Command;
 use super::derived::Derived;
 use super::edit::{PlanEdit, locate, ring, wall_count, wall_ends_in};
+use super::typed_field::{ERROR, typed_text_field};
 use super::units::DisplayUnits;
 
 /// Width of a length or pitch field, in points.
 const FIELD_WIDTH: f32 = 96.0;
-/// The red of an error message.
-const ERROR: Color32 = Color32::from_rgb(220, 30, 30);
 
 /// One text field of the list.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
@@ -232,22 +231,17 @@ fn field_ui(
     read: impl FnOnce(&str) -> Result<PlanEdit, String>,
 ) {
     ui.label(shown_label);
-    let mut text = state.typed.get(&field).cloned().unwrap_or_else(|| current.to_owned());
-    let has_error = state.errors.contains_key(&field);
-    let mut edit = egui::TextEdit::singleline(&mut text).desired_width(FIELD_WIDTH).hint_text(hint);
-    if has_error {
-        edit = edit.text_color(ERROR);
-    }
-    let response = ui.add(edit);
-    ui.ctx().accesskit_node_builder(response.id, |node| node.set_label(accessible_label));
-    if response.has_focus() || response.changed() {
-        state.typed.insert(field, text.clone());
-    }
-    if response.lost_focus() {
-        if text == current && !has_error {
-            state.typed.remove(&field);
-            return;
-        }
+    let typed = typed_text_field(
+        ui,
+        &mut state.typed,
+        &state.errors,
+        field,
+        accessible_label,
+        current,
+        hint,
+        FIELD_WIDTH,
+    );
+    if let Some(text) = typed {
         match read(&text) {
             Ok(edit) => {
                 state.typed.remove(&field);
