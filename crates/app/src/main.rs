@@ -20,7 +20,9 @@ fn main() -> ExitCode {
                 ExitCode::SUCCESS
             }
             Err(cli::UserError(message)) => {
-                eprintln!("pitchframe: {}", one_line(&message));
+                // A file name holding a newline or a terminal escape is written
+                // escaped rather than breaking or recolouring the terminal.
+                eprintln!("pitchframe: {}", pitchframe_geometry::shown::escaped(&message));
                 ExitCode::from(2)
             }
         };
@@ -33,18 +35,4 @@ fn main() -> ExitCode {
             ExitCode::from(1)
         }
     }
-}
-
-/// `message` kept to one line: a file name holding a newline or a terminal
-/// escape is written escaped rather than breaking or recolouring the terminal.
-fn one_line(message: &str) -> String {
-    let mut out = String::with_capacity(message.len());
-    for c in message.chars() {
-        if c.is_control() {
-            out.extend(c.escape_debug());
-        } else {
-            out.push(c);
-        }
-    }
-    out
 }

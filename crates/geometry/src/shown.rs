@@ -19,12 +19,19 @@ pub const MAX_SHOWN_CHARS: usize = 40;
 /// assert_eq!(shown(&"m".repeat(100)).chars().count(), 41);
 /// ```
 pub fn shown(text: &str) -> String {
-    let mut out = String::new();
-    for (count, c) in text.chars().enumerate() {
-        if count == MAX_SHOWN_CHARS {
-            out.push('…');
-            break;
-        }
+    let cut = text.char_indices().nth(MAX_SHOWN_CHARS).map(|(at, _)| at);
+    let mut out = escaped(cut.map_or(text, |at| &text[..at]));
+    if cut.is_some() {
+        out.push('…');
+    }
+    out
+}
+
+/// `text` whole, with its control characters written as escapes, so it
+/// stays on one line and cannot steer a terminal.
+pub fn escaped(text: &str) -> String {
+    let mut out = String::with_capacity(text.len());
+    for c in text.chars() {
         if c.is_control() {
             out.extend(c.escape_debug());
         } else {
