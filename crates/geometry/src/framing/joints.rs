@@ -71,9 +71,35 @@ pub fn check_fit(
     for p in mating_corners {
         // Outward from the cut piece is toward the bearing piece: the
         // bearing face should be met right at the corner.
+        // How far back the line runs inside the cut piece.
+        let back = cut
+            .parts
+            .iter()
+            .filter_map(|part| chord(&part.planes, p, mating.normal, tol))
+            .map(|(enter, _)| enter)
+            .fold(0.0, f64::min);
         let entry = near
             .iter()
-            .filter_map(|part| ray_entry(&part.planes, p, mating.normal, tol))
+            .filter_map(|part| {
+                let (enter, exit) = chord(&part.planes, p, mating.normal, tol)?;
+                if enter >= -tol {
+                    Some(enter)
+                } else if exit >= -tol {
+                    // The corner is inside the part: it overlaps by its
+                    // depth there. The line's entry may lie far behind,
+                    // along a board that runs square to the mating face
+                    // (a ridge the corner has run into from its side).
+                    Some(-part.depth_of(p).max(0.0))
+                } else if exit >= back - tol {
+                    // The part lies behind the corner, where the cut
+                    // piece also is: the piece passes through it.
+                    Some(enter)
+                } else {
+                    // Met only past where the line has left the cut
+                    // piece: another board the piece never reaches.
+                    None
+                }
+            })
             .min_by(|a, b| a.abs().total_cmp(&b.abs()));
         match entry {
             Some(t) => {
@@ -109,9 +135,9 @@ fn bounds(points: impl Iterator<Item = glam::DVec3>) -> (glam::DVec3, glam::DVec
     })
 }
 
-/// Where the line `p + t u` enters the convex region of `planes` (the
-/// smallest `t` inside), if it passes through it.
-fn ray_entry(planes: &[HalfSpace], p: glam::DVec3, u: glam::DVec3, tol: f64) -> Option<f64> {
+/// Where the line `p + t u` enters and leaves the convex region of
+/// `planes` (the smallest and largest `t` inside), if it passes through it.
+fn chord(planes: &[HalfSpace], p: glam::DVec3, u: glam::DVec3, tol: f64) -> Option<(f64, f64)> {
     let mut enter = f64::NEG_INFINITY;
     let mut exit = f64::INFINITY;
     for h in planes {
@@ -127,5 +153,5 @@ fn ray_entry(planes: &[HalfSpace], p: glam::DVec3, u: glam::DVec3, tol: f64) -> 
             enter = enter.max(gap / nu);
         }
     }
-    (enter <= exit + tol && enter.is_finite()).then_some(enter)
+    (enter <= exit + tol && enter.is_finite()).then_some((enter, exit))
 }

@@ -196,6 +196,16 @@ pub fn rafter_lines(
         if dir.dot(frame.along).abs() > 1e-9 {
             continue;
         }
+        // A plane round a courtyard is one polygon whose outer ring and
+        // hole are joined by a slit: an edge run both ways. No rake there.
+        let slit = (0..n).any(|k| {
+            k != i
+                && frame.polygon[k].distance(b) < PLAN_TOL_IN * 1e3
+                && frame.polygon[(k + 1) % n].distance(a) < PLAN_TOL_IN * 1e3
+        });
+        if slit {
+            continue;
+        }
         // An edge shared with another plane divides coplanar walls' parts:
         // no rake there.
         let shared = all_planes
