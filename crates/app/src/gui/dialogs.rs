@@ -276,6 +276,9 @@ pub fn dialog_ui(ctx: &egui::Context, dialog: &mut Dialog) -> Option<Answer> {
     answer
 }
 
+/// Height of the template members' list before it scrolls, in points.
+const TEMPLATE_LIST_HEIGHT_PT: f32 = 180.0;
+
 /// The choice of members whose ends are printed full size after the cards.
 fn templates_ui(ui: &mut egui::Ui, choice: &mut CardChoice, members: &[TemplateMember]) {
     ui.add_space(6.0);
@@ -303,13 +306,33 @@ fn templates_ui(ui: &mut egui::Ui, choice: &mut CardChoice, members: &[TemplateM
     let mut ticked: Vec<bool> =
         members.iter().map(|member| choice.templates.contains(&member.label)).collect();
     let mut changed = false;
-    egui::ScrollArea::vertical().id_salt("template members").max_height(180.0).show(ui, |ui| {
-        ui.horizontal_wrapped(|ui| {
-            for (member, on) in members.iter().zip(ticked.iter_mut()) {
-                changed |= ui.checkbox(on, format!("{} {}", member.label, member.kind)).changed();
-            }
-        });
+    // A long frame's list runs past its box: the bar is drawn solid and
+    // always, not only under the pointer, so the list plainly scrolls.
+    let overflows = ui.scope(|ui| {
+        ui.spacing_mut().scroll = egui::style::ScrollStyle::solid();
+        egui::Frame::group(ui.style())
+            .show(ui, |ui| {
+                let list = egui::ScrollArea::vertical()
+                    .id_salt("template members")
+                    .max_height(TEMPLATE_LIST_HEIGHT_PT)
+                    .auto_shrink([false, true])
+                    .scroll_bar_visibility(egui::scroll_area::ScrollBarVisibility::AlwaysVisible)
+                    .show(ui, |ui| {
+                        ui.horizontal_wrapped(|ui| {
+                            for (member, on) in members.iter().zip(ticked.iter_mut()) {
+                                changed |=
+                                    ui.checkbox(on, format!("{} {}", member.label, member.kind)).changed();
+                            }
+                        });
+                    });
+                list.content_size.y > list.inner_rect.height() + 1.0
+            })
+            .inner
     });
+    if overflows.inner {
+        let text = format!("{} members in all: scroll the list for the rest", members.len());
+        ui.label(RichText::new(text).weak());
+    }
     if changed {
         // Kept in the cards' order, whatever order they were ticked in.
         choice.templates = members
