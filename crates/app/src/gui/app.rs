@@ -45,6 +45,9 @@ use super::wall_list::{WallListState, wall_list_ui};
 /// Seconds between autosaves while there are unsaved changes.
 pub const AUTOSAVE_EVERY_S: f64 = 30.0;
 
+/// How soon the window looks again for a drag's frame not yet arrived.
+const FRAME_POLL: Duration = Duration::from_millis(5);
+
 /// Text size of the window's ordinary words, in points: larger than
 /// egui's default so the window reads at arm's length.
 const BODY_SIZE: f32 = 16.0;
@@ -146,6 +149,9 @@ pub struct AppState {
     style_set: bool,
     /// The window title last sent, so it is only sent when it changes.
     title: String,
+    /// Whether the last frame's commands moved a corner by a drag, whose
+    /// frame is laid out on the framing thread.
+    dragged_last_frame: bool,
 }
 
 impl AppState {
@@ -207,6 +213,7 @@ impl AppState {
             autosaved: None,
             style_set: false,
             title: String::new(),
+            dragged_last_frame: false,
         }
     }
 
@@ -239,6 +246,7 @@ impl AppState {
             self.style_set = true;
             set_style(&ctx, self.theme);
         }
+        self.take_frame(&ctx);
         self.commands.extend(shortcut_commands(&ctx));
         if let Some(glide) = self.glide {
             let (camera, arrived) = glide.at(ctx.input(|input| input.time));
@@ -268,8 +276,10 @@ impl AppState {
             theme: self.theme,
             recent: self.recent.clone(),
         };
-        egui::Panel::top("menu").show(ui, |ui| menu_bar_ui(ui, &menu_state, &mut self.commands));
-        egui::Panel::top("toolbar").show(ui, |ui| {
+        egui::Panel::top("menu")
+            .frame(bare_panel(ui))
+            .show(ui, |ui| menu_bar_ui(ui, &menu_state, &mut self.commands));
+        egui::Panel::top("toolbar").frame(bare_panel(ui)).show(ui, |ui| {
             let state = ToolbarState {
                 picked: self.picked.is_some(),
                 client_view: self.style.client_view,
@@ -281,18 +291,21 @@ impl AppState {
         });
         self.poll_jobs(&ctx);
         if !self.jobs.is_empty() {
-            egui::Panel::top("jobs").show(ui, |ui| jobs_ui(ui, &self.jobs));
+            egui::Panel::top("jobs").frame(bare_panel(ui)).show(ui, |ui| jobs_ui(ui, &self.jobs));
         }
         if let Some(notice) = self.notice.clone() {
             egui::Panel::top("notice")
+                .frame(bare_panel(ui))
                 .show(ui, |ui| notice_ui(ui, &notice, &mut self.notice, &mut self.commands));
         }
-        egui::Panel::bottom("status").show(ui, |ui| {
+        egui::Panel::bottom("status").frame(bare_panel(ui)).show(ui, |ui| {
             let unsaved = if self.document.unsaved() { "  (unsaved changes)" } else { "" };
             ui.label(format!("{}{unsaved}", self.document.title()));
         });
-        egui::Panel::left("lists").default_size(440.0).show(ui, |ui| self.side_ui(ui));
-        egui::CentralPanel::default().show(ui, |ui| self.middle_ui(ui, renderer));
+        egui::Panel::left("lists").frame(bare_panel(ui)).default_size(440.0).show(ui, |ui| self.side_ui(ui));
+        egui::CentralPanel::default()
+            .frame(egui::Frame::central_panel(ui.style()).fill(egui::Color32::TRANSPARENT))
+            .show(ui, |ui| self.middle_ui(ui, renderer));
 
         if let Some(dialog) = self.dialogs.first_mut()
             && let Some(answer) = dialog_ui(&ctx, dialog)
@@ -304,6 +317,29 @@ impl AppState {
         if self.close_now {
             ctx.send_viewport_cmd(egui::ViewportCommand::Close);
         }
+    }
+
+    /// Takes in a drag's frame from the framing thread. Once the drag has
+    /// stopped moving the frame is waited for, so what stays on screen is
+    /// the current plan's; until then the window draws on and looks again.
+    fn take_frame(&mut self, ctx: &egui::Context) {
+        if !self.derived.frame_pending() {
+            return;
+        }
+        if std::mem::take(&mut self.dragged_last_frame) {
+            self.derived.poll();
+        } else {
+            self.derived.settle();
+        }
+        if self.derived.frame_pending() {
+            ctx.request_repaint_after(FRAME_POLL);
+        }
+    }
+
+    /// Waits for any drag's frame to arrive: printing and pictures are of
+    /// the plan as it stands.
+    pub fn settle(&mut self) {
+        self.derived.settle();
     }
 
     fn side_ui(&mut self, ui: &mut egui::Ui) {
@@ -388,11 +424,12 @@ impl AppState {
                 Some(renderer) => {
                     let picked = self.picked_piece();
                     let scene = Arc::clone(&self.derived.scene);
+                    let roof_scene = Arc::clone(self.derived.roof_scene());
                     let marks = JointMarks { shown: self.shown_joints(), picked: self.picked_joint };
                     let input = viewport_ui(
                         &mut view_ui,
                         renderer,
-                        &scene,
+                        [&roof_scene, &scene],
                         &mut self.camera,
                         self.style,
                         picked,
@@ -421,7 +458,17 @@ impl AppState {
             // The frame was drawn before these changes: draw the next one.
             ctx.request_repaint();
         }
-        for command in std::mem::take(&mut self.commands) {
+        let mut commands = std::mem::take(&mut self.commands).into_iter().peekable();
+        while let Some(command) = commands.next() {
+            // A corner moved twice in one frame by the same drag lands
+            // where the second move puts it: the roof is worked out once.
+            if let (Command::Edit { edit: PlanEdit::MoveCorner { wall, .. }, group: Some(group) }, Some(next)) =
+                (&command, commands.peek())
+                && matches!(next, Command::Edit { edit: PlanEdit::MoveCorner { wall: w, .. }, group: Some(g) }
+                    if w == wall && g == group)
+            {
+                continue;
+            }
             self.apply(ctx, command);
         }
     }
@@ -741,9 +788,15 @@ impl AppState {
             Ok(plan) => {
                 let Some(field) = field else {
                     self.history.record(&self.document.plan, group);
-                    self.set_plan(plan);
+                    if matches!(edit, PlanEdit::MoveCorner { .. }) && group.is_some() {
+                        self.set_plan_live(plan);
+                    } else {
+                        self.set_plan(plan);
+                    }
                     return;
                 };
+                // A framing setting is tried on the plan as it stands.
+                self.derived.settle();
                 let mut trial = self.derived.clone();
                 trial.update(&plan);
                 let failed_now =
@@ -774,6 +827,15 @@ impl AppState {
         self.after_new_plan(plan, had_nothing);
     }
 
+    /// A plan from a drag: its roof is shown at once and its frame as soon
+    /// as the framing thread has laid it out.
+    fn set_plan_live(&mut self, plan: Plan) {
+        let had_nothing = self.derived.roof_scene().parts.is_empty();
+        self.derived.update_live(&plan);
+        self.dragged_last_frame = true;
+        self.after_new_plan(plan, had_nothing);
+    }
+
     /// A plan whose derived state is already in `self.derived`.
     fn set_plan_worked_out(&mut self, plan: Plan) {
         self.after_new_plan(plan, false);
@@ -783,10 +845,10 @@ impl AppState {
         self.document.plan = plan;
         // The joints are numbered afresh with the new frame.
         self.picked_joint = None;
-        if had_nothing && !self.derived.scene.parts.is_empty() {
+        let shown = self.derived.roof_scene();
+        if had_nothing && !shown.parts.is_empty() {
             // A plan opened invalid has just been fixed: aim at the house.
-            self.camera =
-                OrbitCamera::framing(self.derived.scene.min, self.derived.scene.max, ViewPreset::Corner);
+            self.camera = OrbitCamera::framing(shown.min, shown.max, ViewPreset::Corner);
         }
         let walls = wall_count(&self.document.plan);
         self.selected_wall = self.selected_wall.filter(|&wall| wall < walls);
@@ -796,6 +858,7 @@ impl AppState {
     /// Starts an export: the cards ask for paper first, a picture for its
     /// size; the rest go straight to asking where.
     fn ask_export(&mut self, kind: ExportKind) {
+        self.settle();
         if kind.needs_frame() {
             let reason = match (
                 &self.derived.problem,
@@ -1004,6 +1067,14 @@ fn jobs_ui(ui: &mut egui::Ui, jobs: &[ExportJob]) {
             ui.label(egui::RichText::new(text).size(18.0));
         });
     }
+}
+
+/// A panel's usual frame without its fill: the window is cleared to the
+/// panels' colour before egui draws (see `PitchframeApp::clear_color`),
+/// and software OpenGL pays for every pixel filled again, about a third
+/// of a frame's drawing when every panel filled its own background.
+fn bare_panel(ui: &egui::Ui) -> egui::Frame {
+    egui::Frame::side_top_panel(ui.style()).fill(egui::Color32::TRANSPARENT)
 }
 
 /// Larger text and buttons than egui's defaults, for reading at arm's

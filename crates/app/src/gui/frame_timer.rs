@@ -90,6 +90,7 @@ impl FrameTimer {
         }
         self.last = Some(now);
         if self.times_ms.len() == self.frames {
+            state.settle();
             self.report(state, ctx);
             ctx.send_viewport_cmd(egui::ViewportCommand::Close);
             return;

@@ -37,6 +37,7 @@ mod export;
 mod file_dialog;
 mod files;
 mod frame_timer;
+mod framer;
 mod framing_panel;
 mod history;
 mod joint_panel;

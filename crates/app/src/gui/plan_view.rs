@@ -446,7 +446,7 @@ fn drawing_bounds(input: &PlanViewInput<'_>) -> (DVec2, DVec2) {
     let corners = plan.walls.iter().chain(plan.courtyards.iter().flatten()).map(corner_in);
     let eaves = input
         .derived
-        .scene
+        .roof_scene()
         .roof
         .iter()
         .flat_map(|roof| &roof.planes)
@@ -487,7 +487,7 @@ fn grid_ui(painter: &egui::Painter, rect: Rect, transform: PlanTransform, units:
 
 /// The roof seen from above: eave lines and the ridges, hips and valleys.
 fn roof_ui(painter: &egui::Painter, input: &PlanViewInput<'_>, transform: PlanTransform) {
-    let Some(roof) = &input.derived.scene.roof else { return };
+    let Some(roof) = &input.derived.roof_scene().roof else { return };
     // A roof from an earlier plan is drawn faint: it no longer matches.
     let alpha = if input.derived.stale() { 90 } else { 255 };
     let fade = |[r, g, b]: [u8; 3]| Color32::from_rgba_unmultiplied(r, g, b, alpha);

@@ -128,6 +128,28 @@ impl Scene {
         Self { parts, roof, roof_error, frame, frame_error, pieces, joints: OnceLock::new(), lift, min, max }
     }
 
+    /// The walls and the solved `roof` over `outline` with no frame: what a
+    /// drag shows at once while the frame is laid out on another thread.
+    pub fn roof_only(outline: &Outline, roof: Roof, wall_height_in: f64, wall_thickness_in: f64) -> Self {
+        let walls = wall_triangles(outline, wall_height_in, wall_thickness_in);
+        let lift = DVec3::Z * wall_height_in;
+        let mut parts = vec![ScenePart { kind: PartKind::Walls, triangles: walls }];
+        parts.extend(roof_parts(&roof, lift));
+        let (min, max) = bounds(&parts);
+        Self {
+            parts,
+            roof: Some(roof),
+            roof_error: None,
+            frame: None,
+            frame_error: None,
+            pieces: Vec::new(),
+            joints: OnceLock::new(),
+            lift,
+            min,
+            max,
+        }
+    }
+
     /// A scene with nothing in it, for a plan whose outline never checked.
     pub fn empty() -> Self {
         Self {
@@ -170,7 +192,7 @@ fn scene_piece(piece: &PlacedPiece, lift: DVec3) -> ScenePiece {
     for face in piece.solid.faces().filter(|face| face.tag != FaceTag::Interior) {
         let before = triangles.len();
         // Every face of a convex part is convex.
-        triangles.push_convex_polygon(&face.vertices, lift);
+        triangles.push_convex_polygon(&face.vertices, face.normal, lift);
         face_tags.extend(std::iter::repeat_n(face.tag, triangles.len() - before));
     }
     let [low, high] = piece.axis;

@@ -7,8 +7,8 @@
 //! pixel.
 
 use three_d::{
-    Blend, ColorMapping, EffectMaterialId, InnerSpace, Light, Material, MaterialType, Program, RenderStates,
-    Srgba, Vec3, Viewer, WriteMask,
+    Blend, ColorMapping, Cull, EffectMaterialId, InnerSpace, Light, Material, MaterialType, Program,
+    RenderStates, Srgba, Vec3, Viewer, WriteMask,
 };
 
 /// Share of a surface's colour it shows with no direct light on it.
@@ -32,6 +32,11 @@ pub struct ShadedMaterial {
     pub light_direction: Vec3,
     /// Whether `color`'s alpha is drawn blended over what is behind.
     pub transparent: bool,
+    /// Whether faces seen from behind are left out: true only for closed
+    /// solids wound counter-clockwise from outside (the members), whose
+    /// far faces are always hidden by their near ones. Software OpenGL
+    /// then sets up half the triangles.
+    pub cull_back: bool,
 }
 
 impl ShadedMaterial {
@@ -42,6 +47,7 @@ impl ShadedMaterial {
             emissive: Srgba::new(0, 0, 0, 255),
             light_direction: Vec3::new(0.0, 0.0, -1.0),
             transparent: color.a < 255,
+            cull_back: false,
         }
     }
 }
@@ -96,6 +102,8 @@ void main()
     fn render_states(&self) -> RenderStates {
         if self.transparent {
             RenderStates { write_mask: WriteMask::COLOR, blend: Blend::TRANSPARENCY, ..Default::default() }
+        } else if self.cull_back {
+            RenderStates { cull: Cull::Back, ..Default::default() }
         } else {
             RenderStates::default()
         }

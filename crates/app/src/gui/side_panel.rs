@@ -41,6 +41,13 @@ pub fn side_panel_ui(
                 format!("{} ({})", problem.message, derived.shown_instead()),
             );
         }
+        if derived.frame_pending() {
+            ui.colored_label(
+                ui.visuals().warn_fg_color,
+                "The frame is being laid out again for the corner being moved; \
+                 the numbers below are of the plan a moment ago.",
+            );
+        }
         if let Some(error) = &derived.settings_error {
             ui.colored_label(ui.visuals().warn_fg_color, format!("No frame: {error}"));
         }

@@ -26,16 +26,21 @@ impl Triangles {
     }
 
     /// Adds the flat convex polygon `points` moved by `offset`, as a fan
-    /// from its first corner: a face of a convex solid needs no ear
-    /// clipping, and a fan costs nothing to find.
-    pub fn push_convex_polygon(&mut self, points: &[DVec3], offset: DVec3) {
+    /// from its first corner, wound counter-clockwise seen from the side
+    /// `outward` points to (whichever way round `points` run), so the view
+    /// can leave out the far faces of a closed solid. A face of a convex
+    /// solid needs no ear clipping, and a fan costs nothing to find.
+    pub fn push_convex_polygon(&mut self, points: &[DVec3], outward: DVec3, offset: DVec3) {
         let normal = newell_normal(points).normalize_or_zero();
         if normal == DVec3::ZERO {
             return;
         }
+        let flip = normal.dot(outward) < 0.0;
+        let normal = if flip { -normal } else { normal };
         let Some((&first, rest)) = points.split_first() else { return };
         for pair in rest.windows(2) {
-            self.corners.extend_from_slice(&[first + offset, pair[0] + offset, pair[1] + offset]);
+            let (b, c) = if flip { (pair[1], pair[0]) } else { (pair[0], pair[1]) };
+            self.corners.extend_from_slice(&[first + offset, b + offset, c + offset]);
             self.normals.push(normal);
         }
     }
@@ -92,12 +97,27 @@ mod convex_tests {
             t.corners.chunks_exact(3).map(|c| (c[1] - c[0]).cross(c[2] - c[0]).length() / 2.0).sum()
         };
         let mut fan = Triangles::default();
-        fan.push_convex_polygon(&points, DVec3::ZERO);
+        fan.push_convex_polygon(&points, DVec3::Z, DVec3::ZERO);
         let mut clipped = Triangles::default();
         clipped.push_polygon(&points);
         assert_eq!(fan.len(), 4);
         // Derivation: both cover the same hexagon, so the areas agree.
         assert!((area(&fan) - area(&clipped)).abs() < 1e-12);
         assert!((fan.normals[0] - clipped.normals[0]).length() < 1e-12);
+    }
+
+    #[test]
+    fn a_face_given_clockwise_is_wound_counter_clockwise_seen_from_outside() {
+        // A unit square in the level plane, corners clockwise seen from +Z.
+        let square = [DVec3::ZERO, DVec3::Y, DVec3::new(1.0, 1.0, 0.0), DVec3::X];
+        let mut fan = Triangles::default();
+        fan.push_convex_polygon(&square, DVec3::Z, DVec3::ZERO);
+        assert_eq!(fan.len(), 2);
+        // Derivation: a triangle is counter-clockwise seen from +Z when
+        // (b - a) x (c - a) points up; its normal then points up as well.
+        for (corners, normal) in fan.corners.chunks_exact(3).zip(&fan.normals) {
+            assert!((corners[1] - corners[0]).cross(corners[2] - corners[0]).z > 0.0);
+            assert_eq!(*normal, DVec3::Z);
+        }
     }
 }

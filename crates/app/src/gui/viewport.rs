@@ -81,9 +81,13 @@ struct Highlight {
 /// GL-side state for the 3D view, created once per window.
 pub struct Renderer {
     context: Context,
-    /// The scene the uploaded meshes came from, to spot a new one.
-    uploaded: Option<Arc<Scene>>,
-    models: Vec<Model>,
+    /// The scenes the uploaded walls and roof, and the uploaded members,
+    /// came from, to spot a new one. While a corner is dragged the roof is
+    /// the dragged plan's and the members come a few frames later, so the
+    /// two are uploaded on their own.
+    uploaded: [Option<Arc<Scene>>; 2],
+    /// The walls and roof, then the members.
+    models: [Vec<Model>; 2],
     highlight: Option<Highlight>,
     /// The last drawing of the view.
     drawn: Option<DrawnView>,
@@ -94,38 +98,40 @@ impl Renderer {
     pub fn new(gl: Arc<three_d::context::Context>) -> Result<Self, three_d::CoreError> {
         Ok(Self {
             context: Context::from_gl_context(gl)?,
-            uploaded: None,
-            models: Vec::new(),
+            uploaded: [None, None],
+            models: [Vec::new(), Vec::new()],
             highlight: None,
             drawn: None,
         })
     }
 
-    /// Uploads the scene's meshes unless they are already on the GPU.
-    fn upload(&mut self, scene: &Arc<Scene>) {
-        if self.uploaded.as_ref().is_some_and(|uploaded| Arc::ptr_eq(uploaded, scene)) {
-            return;
+    /// Uploads the walls and roof of `roof_scene` and the members of
+    /// `frame_scene`, each unless already on the GPU.
+    fn upload(&mut self, [roof_scene, frame_scene]: [&Arc<Scene>; 2]) {
+        for (slot, scene) in [roof_scene, frame_scene].into_iter().enumerate() {
+            if self.uploaded[slot].as_ref().is_some_and(|uploaded| Arc::ptr_eq(uploaded, scene)) {
+                continue;
+            }
+            let mut models = Vec::new();
+            let wanted = |kind: PartKind| matches!(kind, PartKind::Members(_)) == (slot == 1);
+            for part in scene.parts.iter().filter(|part| wanted(part.kind) && part.triangles.len() > 0) {
+                let cpu = cpu_mesh(&part.triangles);
+                let rgb = palette::part(part.kind);
+                let (alpha, shown_in) = match part.kind {
+                    PartKind::RoofPlanes => {
+                        models.push(self.lit_model(&cpu, rgb, FRAMING_VIEW_ROOF_ALPHA, ShownIn::FramingView));
+                        (255, ShownIn::ClientView)
+                    }
+                    PartKind::RoofLines(_) | PartKind::Members(_) => (255, ShownIn::FramingView),
+                    PartKind::Walls | PartKind::Gables => (255, ShownIn::Both),
+                };
+                let mut model = self.lit_model(&cpu, rgb, alpha, shown_in);
+                model.gm.material.cull_back = matches!(part.kind, PartKind::Members(_));
+                models.push(model);
+            }
+            self.models[slot] = models;
+            self.uploaded[slot] = Some(Arc::clone(scene));
         }
-        self.models.clear();
-        for part in scene.parts.iter().filter(|part| part.triangles.len() > 0) {
-            let cpu = cpu_mesh(&part.triangles);
-            let rgb = palette::part(part.kind);
-            let (alpha, shown_in) = match part.kind {
-                PartKind::RoofPlanes => {
-                    self.models.push(self.lit_model(
-                        &cpu,
-                        rgb,
-                        FRAMING_VIEW_ROOF_ALPHA,
-                        ShownIn::FramingView,
-                    ));
-                    (255, ShownIn::ClientView)
-                }
-                PartKind::RoofLines(_) | PartKind::Members(_) => (255, ShownIn::FramingView),
-                PartKind::Walls | PartKind::Gables => (255, ShownIn::Both),
-            };
-            self.models.push(self.lit_model(&cpu, rgb, alpha, shown_in));
-        }
-        self.uploaded = Some(Arc::clone(scene));
     }
 
     fn lit_model(&self, cpu: &CpuMesh, rgb: [u8; 3], alpha: u8, shown_in: ShownIn) -> Model {
@@ -140,7 +146,7 @@ impl Renderer {
     fn set_light(&mut self, direction: Vec3) {
         let highlight =
             self.highlight.iter_mut().flat_map(|h| h.body.iter_mut().chain(h.siblings.iter_mut()));
-        for gm in self.models.iter_mut().map(|model| &mut model.gm).chain(highlight) {
+        for gm in self.models.iter_mut().flatten().map(|model| &mut model.gm).chain(highlight) {
             gm.material.light_direction = direction;
         }
     }
@@ -200,7 +206,7 @@ impl Renderer {
 
     /// Draws the scene into the part of the window egui gave the view.
     fn paint(&mut self, info: &egui::PaintCallbackInfo, painter: &egui_glow::Painter, frame: &FrameInput) {
-        self.upload(&frame.scene);
+        self.upload([&frame.roof_scene, &frame.scene]);
         let picked = if frame.style.client_view { None } else { frame.picked };
         self.update_highlight(&frame.scene, picked);
         let [screen_w, screen_h] = info.screen_size_px;
@@ -223,7 +229,7 @@ impl Renderer {
             height: px(clip_px.height_px),
         };
         let key = ViewKey {
-            scene: Arc::as_ptr(&frame.scene) as usize,
+            scenes: [Arc::as_ptr(&frame.roof_scene) as usize, Arc::as_ptr(&frame.scene) as usize],
             camera: frame.camera,
             style: frame.style,
             picked,
@@ -273,8 +279,9 @@ impl Renderer {
 /// Everything that decides what the 3D view's drawing looks like.
 #[derive(Debug, Clone, Copy, PartialEq)]
 struct ViewKey {
-    /// The scene drawn (its address: a new scene is a new `Arc`).
-    scene: usize,
+    /// The scenes drawn, walls and roof then members (their addresses: a
+    /// new scene is a new `Arc`).
+    scenes: [usize; 2],
     camera: OrbitCamera,
     style: ViewStyle,
     picked: Option<usize>,
@@ -294,6 +301,7 @@ impl Renderer {
         let mut objects: Vec<&dyn Object> = self
             .models
             .iter()
+            .flatten()
             .filter(|model| model.shown_in.includes(style))
             .map(|model| &model.gm as &dyn Object)
             .collect();
@@ -321,7 +329,7 @@ impl Renderer {
         if width == 0 || height == 0 || width > MAX_PICTURE_SIDE_PX || height > MAX_PICTURE_SIDE_PX {
             return Err(format!("{width} x {height} pixels is outside 1 to {MAX_PICTURE_SIDE_PX} a side"));
         }
-        self.upload(scene);
+        self.upload([scene, scene]);
         let picked = if style.client_view { None } else { picked };
         self.update_highlight(scene, picked);
         let (colour, depth) = view_textures(&self.context, width, height);
@@ -421,6 +429,9 @@ fn cpu_mesh(triangles: &Triangles) -> CpuMesh {
 
 /// Everything one draw needs, handed to the paint callback.
 struct FrameInput {
+    /// The scene whose walls and roof are drawn.
+    roof_scene: Arc<Scene>,
+    /// The scene whose members are drawn and picked.
     scene: Arc<Scene>,
     camera: OrbitCamera,
     style: ViewStyle,
@@ -448,11 +459,12 @@ pub struct ViewportInput {
 }
 
 /// Shows the 3D view filling `ui`, moves the camera by mouse input, and
-/// queues the draw; `picked` is the piece to highlight.
+/// queues the draw of the walls and roof of the first scene and the
+/// members of the second; `picked` is the piece to highlight.
 pub fn viewport_ui(
     ui: &mut egui::Ui,
     renderer: &Arc<Mutex<Renderer>>,
-    scene: &Arc<Scene>,
+    [roof_scene, scene]: [&Arc<Scene>; 2],
     camera: &mut OrbitCamera,
     style: ViewStyle,
     picked: Option<usize>,
@@ -513,7 +525,13 @@ pub fn viewport_ui(
     }
 
     let renderer = Arc::clone(renderer);
-    let frame = FrameInput { scene: Arc::clone(scene), camera: *camera, style, picked };
+    let frame = FrameInput {
+        roof_scene: Arc::clone(roof_scene),
+        scene: Arc::clone(scene),
+        camera: *camera,
+        style,
+        picked,
+    };
     let callback = egui_glow::CallbackFn::new(move |info, painter| {
         // A poisoned lock means an earlier draw panicked; skipping the draw
         // keeps the rest of the window usable.

@@ -48,6 +48,11 @@ impl PitchframeApp {
 }
 
 impl eframe::App for PitchframeApp {
+    /// The panels' own colour: they draw no background of their own.
+    fn clear_color(&self, visuals: &egui::Visuals) -> [f32; 4] {
+        visuals.panel_fill.to_normalized_gamma_f32()
+    }
+
     fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
         let ctx = ui.ctx().clone();
         if let Some(timer) = &mut self.frame_timer {
@@ -58,6 +63,7 @@ impl eframe::App for PitchframeApp {
             run.on_frame(&mut self.state, &ctx);
         }
         if let Some(request) = self.state.picture_request.take() {
+            self.state.settle();
             // The window's GL context is current while the frame is built.
             let pixels = match self.renderer.lock() {
                 Ok(mut renderer) => {
