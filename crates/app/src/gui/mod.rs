@@ -4,7 +4,8 @@
 //! Layout of this module: `document` is the plan being edited, `history`
 //! its undo stack, `edit` the changes a user can make to it and `derived`
 //! everything worked out from it (through the geometry crate; the window
-//! computes no geometry of its own). `app` holds all of that with the
+//! computes no geometry of its own; while a corner is dragged, `framer`
+//! lays the frame out on a thread of its own). `app` holds all of that with the
 //! window's settings and applies the commands (`command`) that the menus
 //! (`menu`), the toolbar, the keys, the plan view (`plan_view`, with
 //! `snap`), the wall list (`wall_list`) and the dialogs (`dialogs`) record.
