@@ -535,7 +535,12 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             let grad_a = la.normal * la.rise.unwrap_or(0.0);
             let grad_b = lb.normal * lb.rise.unwrap_or(0.0);
             let convex = (grad_a - grad_b).dot(left) < 0.0;
-            let level = (za - zb).abs() <= tol.time.max(1e-9 * (za.abs() + zb.abs()));
+            // Level by its ends, or because the two planes cross in a level
+            // line (walls in parallel): a short crease between two such
+            // planes can have ends whose heights differ by rounding far
+            // more than `tol.time`, yet it is a ridge.
+            let level =
+                (za - zb).abs() <= tol.time.max(1e-9 * (za.abs() + zb.abs())) || crossing_is_level(la, lb);
             let kind = match (level, convex) {
                 (true, true) => RoofLineKind::Ridge,
                 (_, false) => RoofLineKind::Valley,
@@ -547,6 +552,17 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         }
     }
     Roof { planes, lines, gables }
+}
+
+/// Whether the planes of `a` and `b` cross in a line rising less than
+/// 1e-9 per unit run, as the roof check reckons a ridge.
+fn crossing_is_level(a: &WallLine, b: &WallLine) -> bool {
+    let normal = |l: &WallLine| {
+        let r = l.rise.unwrap_or(0.0);
+        DVec3::new(-r * l.normal.x, -r * l.normal.y, 1.0)
+    };
+    let d = normal(a).cross(normal(b));
+    d.z.abs() <= 1e-9 * d.truncate().length()
 }
 
 /// The face's outer walk with each inner loop joined in by a cut: from the

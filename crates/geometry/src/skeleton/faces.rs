@@ -2,6 +2,8 @@
 
 use std::collections::HashMap;
 
+use glam::DVec2;
+
 use super::wavefront::NodeId;
 
 /// A face's boundary: the outer walk and any inner loops.
@@ -84,6 +86,162 @@ pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> 
         holes.push(lp);
     }
     Some((walk, holes))
+}
+
+/// Which ring of which face: `(wall, 0)` the outer walk, `(wall, k)` hole `k - 1`.
+type RingId = (usize, usize);
+
+/// What to do about one fold.
+enum Fix {
+    /// Close up the tip: these nodes, within the tolerance of each other,
+    /// become the first of them.
+    Merge(Vec<NodeId>),
+    /// Cut node `index` out of ring `ring`; give the neighbour's ring
+    /// (ring, index, node) the node where the fold turned back.
+    Cut { ring: RingId, index: usize, insert: Option<(RingId, usize, NodeId)> },
+}
+
+/// Clears the faces of folds narrower than `tol`.
+///
+/// Where a plane is squeezed out between two others along a stretch (a
+/// low-pitch plane crept along walls bent by a hair), its face can come
+/// back along its own edge, a hair over on the wrong side: a ring crossing
+/// itself however thin. Each such fold's tip is cut off (first closing up
+/// nodes at the tip within `tol` of each other in plan and in height, the
+/// lower-numbered node kept), and the neighbour across the longer of the
+/// fold's two edges gets the node where the fold turned back, so the
+/// planes on either side of it share that stretch edge to edge. A face is
+/// never cut below three nodes, the wall's own edge (the first two nodes
+/// of a face) is never cut, and gable faces (`gable[wall]`), vertical and
+/// so flat in plan, are only ever given nodes.
+pub(crate) fn remove_slivers(
+    positions: &[DVec2],
+    heights: &[f64],
+    gable: &[bool],
+    faces: &mut [Vec<NodeId>],
+    holes: &mut [Vec<Vec<NodeId>>],
+    tol: f64,
+) {
+    let pos = |n: NodeId| positions.get(n).copied().unwrap_or(DVec2::ZERO);
+    let height = |n: NodeId| heights.get(n).copied().unwrap_or(0.0);
+    let limit = 4 * (faces.iter().map(Vec::len).sum::<usize>() + 1);
+    for _ in 0..limit {
+        match find_fold(&pos, &height, gable, faces, holes, tol) {
+            None => break,
+            Some(Fix::Merge(nodes)) => {
+                let Some(&keep) = nodes.iter().min() else { break };
+                for ring in faces.iter_mut().chain(holes.iter_mut().flatten()) {
+                    for n in ring.iter_mut() {
+                        if nodes.contains(n) {
+                            *n = keep;
+                        }
+                    }
+                    ring.dedup();
+                    while ring.len() > 1 && ring.first() == ring.last() {
+                        ring.pop();
+                    }
+                }
+            }
+            Some(Fix::Cut { ring, index, insert }) => {
+                if let Some(r) = ring_mut(faces, holes, ring) {
+                    r.remove(index);
+                }
+                if let Some((owner, j, node)) = insert
+                    && let Some(r) = ring_mut(faces, holes, owner)
+                {
+                    r.insert(j, node);
+                }
+            }
+        }
+    }
+}
+
+/// The ring `id`, if it exists.
+fn ring_mut<'a>(
+    faces: &'a mut [Vec<NodeId>],
+    holes: &'a mut [Vec<Vec<NodeId>>],
+    id: RingId,
+) -> Option<&'a mut Vec<NodeId>> {
+    match id.1 {
+        0 => faces.get_mut(id.0),
+        k => holes.get_mut(id.0)?.get_mut(k - 1),
+    }
+}
+
+/// Every ring with its id.
+fn rings<'a>(
+    faces: &'a [Vec<NodeId>],
+    holes: &'a [Vec<Vec<NodeId>>],
+) -> impl Iterator<Item = (RingId, &'a Vec<NodeId>)> + 'a {
+    let outer = faces.iter().enumerate().map(|(w, r)| ((w, 0), r));
+    let inner =
+        holes.iter().enumerate().flat_map(|(w, hs)| hs.iter().enumerate().map(move |(k, r)| ((w, k + 1), r)));
+    outer.chain(inner)
+}
+
+/// The first fold of a pitched face and how to clear it.
+fn find_fold(
+    pos: &impl Fn(NodeId) -> DVec2,
+    height: &impl Fn(NodeId) -> f64,
+    gable: &[bool],
+    faces: &[Vec<NodeId>],
+    holes: &[Vec<Vec<NodeId>>],
+    tol: f64,
+) -> Option<Fix> {
+    let near = |a: NodeId, b: NodeId| pos(a).distance(pos(b)) <= tol && (height(a) - height(b)).abs() <= tol;
+    for (id, ring) in rings(faces, holes) {
+        let k = ring.len();
+        if k <= 3 || gable.get(id.0).copied().unwrap_or(true) {
+            continue;
+        }
+        let at = |i: usize| ring.get(i % k).copied();
+        for i in 0..k {
+            let Some(cur) = at(i) else { continue };
+            // The tip: `cur` and the nodes next to it within the tolerance.
+            let Some(back) = (1..k).find(|&d| at(i + k - d).is_some_and(|n| !near(n, cur))) else { continue };
+            let Some(ahead) = (1..k).find(|&d| at(i + d).is_some_and(|n| !near(n, cur))) else { continue };
+            if back + ahead > k {
+                continue;
+            }
+            let (Some(prev), Some(next)) = (at(i + k - back), at(i + ahead)) else { continue };
+            let (u, v) = (pos(cur) - pos(prev), pos(next) - pos(cur));
+            let long = u.length().max(v.length());
+            // A turn right by nearly half a turn folds the ring back over
+            // itself; nearly half a turn left is the tip of a thin wedge,
+            // which is a shape of its own and stays.
+            if u.dot(v) >= 0.0 || u.perp_dot(v) > 0.0 || -u.perp_dot(v) > tol * long {
+                continue;
+            }
+            let tip: Vec<usize> = (i + k + 1 - back..=i + k + ahead - 1).map(|j| j % k).collect();
+            // The wall's own edge stays whole, and the face keeps three nodes.
+            if (id.1 == 0 && tip.iter().any(|&j| j < 2)) || k - tip.len() < 3 {
+                continue;
+            }
+            if tip.len() > 1 {
+                let nodes: Vec<NodeId> = tip.iter().filter_map(|&j| at(j)).collect();
+                let shrinks = rings(faces, holes).any(|(_, r)| {
+                    let left = r.iter().filter(|n| !nodes.contains(n)).count();
+                    left < r.len() && left + 1 < 3
+                });
+                if shrinks {
+                    continue;
+                }
+                return Some(Fix::Merge(nodes));
+            }
+            // The neighbour across the longer edge gets the shorter edge's far end.
+            let (edge, node) =
+                if u.length() >= v.length() { ((cur, prev), next) } else { ((next, cur), prev) };
+            let insert = rings(faces, holes).find_map(|(other, r)| {
+                let m = r.len();
+                (0..m).find_map(|j| {
+                    let (a, b) = (*r.get(j)?, *r.get((j + 1) % m)?);
+                    ((a, b) == edge && !r.contains(&node)).then_some((other, j + 1, node))
+                })
+            });
+            return Some(Fix::Cut { ring: id, index: i, insert });
+        }
+    }
+    None
 }
 
 #[cfg(test)]

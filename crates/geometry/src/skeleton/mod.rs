@@ -194,6 +194,10 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
             }
         }
     }
+    let positions: Vec<DVec2> = wf.nodes.iter().map(|x| x.pos).collect();
+    let heights: Vec<f64> = wf.nodes.iter().map(|x| x.time).collect();
+    let gable: Vec<bool> = wf.lines.iter().map(|l| l.speed == 0.0).collect();
+    faces::remove_slivers(&positions, &heights, &gable, &mut faces, &mut holes, wf.tol.point);
     Ok(Skeleton { nodes: wf.nodes, faces, holes, lines: wf.lines })
 }
 

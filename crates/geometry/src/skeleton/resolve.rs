@@ -179,6 +179,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
     } else {
         (p, t)
     };
+    let p = wf.onto_gables(p, &met);
     let node = wf.add_node(p, t);
     for &v in &sorted {
         wf.retire(v, node);

@@ -160,7 +160,11 @@ impl Wavefront {
         if let Some(n) = found {
             return n;
         }
-        self.nodes.push(Node { pos, time });
+        // Adding zero turns -0.0 into 0.0: a roof point at x = -0.0 is the
+        // same point, but some polygon code (geo's sweep, used as the
+        // outside reference in the tests) trips over the sign.
+        let pos = pos + DVec2::ZERO;
+        self.nodes.push(Node { pos, time: time + 0.0 });
         let id = self.nodes.len() - 1;
         if time > 0.0 {
             self.batch_nodes.push(id);
@@ -243,13 +247,56 @@ impl Wavefront {
     /// has not moved, else a new node.
     pub fn node_at(&mut self, v: VertexId, t: f64) -> NodeId {
         let p = self.pos(v, t);
-        if let Some(vx) = self.vertices.get(v)
-            && (p - vx.anchor).length() <= self.tol.point
-            && (t - vx.t0).abs() <= self.tol.time
-        {
+        let Some(vx) = self.vertices.get(v) else {
+            return self.add_node(p, t);
+        };
+        if (p - vx.anchor).length() <= self.tol.point && (t - vx.t0).abs() <= self.tol.time {
             return vx.node;
         }
+        let p = self.onto_gables(p, &[vx.in_line, vx.out_line]);
         self.add_node(p, t)
+    }
+
+    /// `p` moved onto the gable lines among `lines` that pass within a few
+    /// tolerances of it (onto their crossing if two cross there).
+    ///
+    /// A gable's line never moves, so every node on it belongs exactly on
+    /// the wall line, where the gable's vertical face stands. Computed from
+    /// moving lines, such a node lands a few units of the last place off
+    /// it, and half of the time on the outside: the plane beside it then
+    /// reaches outside the outline by that much, which an exact test of
+    /// the outline (a point on the wall counts as outside) sees.
+    pub fn onto_gables(&self, p: DVec2, lines: &[usize]) -> DVec2 {
+        let near = 4.0 * self.tol.point;
+        let mut fixed = lines
+            .iter()
+            .filter_map(|&i| self.lines.get(i))
+            .filter(|l| l.speed == 0.0 && l.distance_at(p, 0.0).abs() <= near);
+        let Some(a) = fixed.next() else {
+            return p;
+        };
+        let on_a = p - a.normal * a.distance_at(p, 0.0);
+        for b in fixed {
+            let det = a.normal.perp_dot(b.normal);
+            if det.abs() <= self.tol.angle {
+                continue;
+            }
+            // Two gables meeting at their shared corner: the corner itself,
+            // not a crossing recomputed with its own rounding.
+            if let Some(&c) = [a.start, a.end].iter().find(|&&c| c == b.start || c == b.end)
+                && (c - p).length() <= near
+            {
+                return c;
+            }
+            let q = DVec2::new(
+                a.offset * b.normal.y - b.offset * a.normal.y,
+                a.normal.x * b.offset - b.normal.x * a.offset,
+            ) / det;
+            if q.is_finite() && (q - p).length() <= near {
+                return q;
+            }
+        }
+        on_a
     }
 
     /// Makes `v` the vertex after `u` in its cycle.
