@@ -8,6 +8,7 @@ use std::time::Duration;
 use pitchframe_geometry::{CornerName, OutlineError, Plan, Roof, RoofError, WallName};
 
 use super::framer::{Framed, Framer};
+use super::retire::retire;
 use super::scene::Scene;
 
 /// Floor to the top of the top plate, in inches: the plan gives heights
@@ -191,10 +192,7 @@ impl Derived {
 
     /// Puts `scene` on screen; the one it replaces is freed off this thread.
     fn show(&mut self, scene: Arc<Scene>) {
-        let old = std::mem::replace(&mut self.scene, scene);
-        if let Some(framer) = &self.framer {
-            framer.retire(old);
-        }
+        retire(std::mem::replace(&mut self.scene, scene));
     }
 
     /// Whether the frame on screen is of an earlier plan than the one

@@ -120,13 +120,14 @@ impl FrameTimer {
         let slowest = sorted.last().copied().unwrap_or(0.0);
         let scene = &state.derived.scene;
         println!(
-            "{} frames at {} x {} ({}), {} members in {} pieces: median {median:.1} ms, mean {mean:.1} ms, slowest {slowest:.1} ms a frame",
+            "{} frames at {} x {} ({}), {} members in {} pieces ({} triangles): median {median:.1} ms, mean {mean:.1} ms, slowest {slowest:.1} ms a frame",
             sorted.len(),
             window[0],
             window[1],
             if self.moving { "corner 1 moving every frame" } else { "nothing changing" },
             scene.frame.as_ref().map_or(0, |frame| frame.members.len()),
             scene.pieces.len(),
+            scene.pieces.iter().map(|piece| piece.triangles.len()).sum::<usize>(),
         );
         match self.first_frame_ms {
             Some(ms) => println!("first frame drawn {ms:.0} ms after the program started"),

@@ -2,9 +2,7 @@
 //! solves the roof itself (a millisecond or so) and hands the plan here to
 //! be framed, which on a large plan takes many frames' time: the window
 //! keeps drawing at its own pace and shows each frame as it arrives. Only
-//! the newest plan waiting is framed; older ones are passed over. Scenes
-//! the window is done with are dropped here too, since freeing a large
-//! frame's thousands of solids is itself a few milliseconds.
+//! the newest plan waiting is framed; older ones are passed over.
 
 use std::sync::{Arc, Condvar, Mutex, MutexGuard};
 use std::time::{Duration, Instant};
@@ -37,14 +35,13 @@ pub struct Framed {
 struct Slots {
     job: Option<Job>,
     done: Option<Framed>,
-    retired: Vec<Arc<Scene>>,
     closed: bool,
 }
 
 #[derive(Default)]
 struct Shared {
     slots: Mutex<Slots>,
-    /// Signalled when a job or a retired scene is handed over, or on close.
+    /// Signalled when a job is handed over, or on close.
     work: Condvar,
     /// Signalled when a scene is done.
     done: Condvar,
@@ -127,12 +124,6 @@ impl Framer {
                 .0;
         }
     }
-
-    /// Hands over a scene the window no longer shows, to be freed here.
-    pub fn retire(&self, scene: Arc<Scene>) {
-        self.shared.slots().retired.push(scene);
-        self.shared.work.notify_one();
-    }
 }
 
 impl Drop for Framer {
@@ -142,20 +133,19 @@ impl Drop for Framer {
     }
 }
 
-/// The thread's loop: frame the newest job, free what was retired.
+/// The thread's loop: frame the newest job.
 fn work(shared: &Shared) {
     loop {
-        let (job, retired) = {
+        let job = {
             let mut slots = shared.slots();
-            while slots.job.is_none() && slots.retired.is_empty() && !slots.closed {
+            while slots.job.is_none() && !slots.closed {
                 slots = shared.work.wait(slots).unwrap_or_else(std::sync::PoisonError::into_inner);
             }
             if slots.closed {
                 return;
             }
-            (slots.job.take(), std::mem::take(&mut slots.retired))
+            slots.job.take()
         };
-        drop(retired);
         let Some(job) = job else { continue };
         let started = Instant::now();
         let scene =

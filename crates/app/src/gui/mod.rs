@@ -5,7 +5,8 @@
 //! its undo stack, `edit` the changes a user can make to it and `derived`
 //! everything worked out from it (through the geometry crate; the window
 //! computes no geometry of its own; while a corner is dragged, `framer`
-//! lays the frame out on a thread of its own). `app` holds all of that with the
+//! lays the frame out on a thread of its own, and `retire` frees old
+//! scenes on another). `app` holds all of that with the
 //! window's settings and applies the commands (`command`) that the menus
 //! (`menu`), the toolbar, the keys, the plan view (`plan_view`, with
 //! `snap`), the wall list (`wall_list`) and the dialogs (`dialogs`) record.
@@ -48,6 +49,7 @@ mod palette;
 mod pick;
 mod picture;
 mod plan_view;
+mod retire;
 mod safety;
 mod scene;
 mod shading;

@@ -13,8 +13,8 @@ use egui::{PointerButton, Sense};
 use glam::{DVec2, DVec3};
 use three_d::{
     Blend, Camera, ClearState, ColorMaterial, ColorTexture, Context, CopyEffect, CpuMaterial, CpuMesh,
-    DepthTexture2D, Gm, Indices, Interpolation, Mesh, Object, Positions, RenderTarget, ScissorBox, Srgba,
-    Texture2D, Vec3, Viewport, Wrapping, WriteMask, degrees,
+    DepthTexture, DepthTexture2D, Gm, Indices, Interpolation, Mesh, Object, Positions, RenderTarget,
+    ScissorBox, Srgba, Texture2D, Vec3, Viewport, Wrapping, WriteMask, degrees,
 };
 
 use super::camera::OrbitCamera;
@@ -22,6 +22,7 @@ use super::export::{MAX_PICTURE_SIDE_PX, Pixels};
 use super::joints::joint_at;
 use super::palette;
 use super::pick::pick;
+use super::retire::retire;
 use super::scene::{PartKind, Scene, ScenePiece, Triangles, is_cut_face};
 use super::shading::ShadedMaterial;
 
@@ -91,6 +92,11 @@ pub struct Renderer {
     highlight: Option<Highlight>,
     /// The last drawing of the view.
     drawn: Option<DrawnView>,
+    /// The last drawing of a large frame's members alone, with their
+    /// depths (its key's walls-and-roof scene is 0).
+    members_drawn: Option<DrawnView>,
+    /// How many triangles the uploaded members have.
+    member_triangles: usize,
 }
 
 impl Renderer {
@@ -102,6 +108,8 @@ impl Renderer {
             models: [Vec::new(), Vec::new()],
             highlight: None,
             drawn: None,
+            members_drawn: None,
+            member_triangles: 0,
         })
     }
 
@@ -129,8 +137,19 @@ impl Renderer {
                 model.gm.material.cull_back = matches!(part.kind, PartKind::Members(_));
                 models.push(model);
             }
+            if slot == 1 {
+                self.member_triangles = scene
+                    .parts
+                    .iter()
+                    .filter(|part| wanted(part.kind))
+                    .map(|part| part.triangles.len())
+                    .sum();
+            }
             self.models[slot] = models;
-            self.uploaded[slot] = Some(Arc::clone(scene));
+            // The renderer often holds a scene last: let it go elsewhere.
+            if let Some(old) = self.uploaded[slot].replace(Arc::clone(scene)) {
+                retire(old);
+            }
         }
     }
 
@@ -158,6 +177,7 @@ impl Renderer {
         if current == wanted {
             return;
         }
+        let old = self.highlight.take();
         self.highlight = picked.and_then(|index| scene.pieces.get(index).map(|piece| (index, piece))).map(
             |(index, piece)| {
                 let body = overlay_triangles(piece, |tag| !is_cut_face(tag));
@@ -202,6 +222,9 @@ impl Renderer {
                 Highlight { scene: Arc::clone(scene), piece: index, body, cuts, siblings }
             },
         );
+        if let Some(old) = old {
+            retire(old.scene);
+        }
     }
 
     /// Draws the scene into the part of the window egui gave the view.
@@ -267,14 +290,54 @@ impl Renderer {
         };
         self.set_light(light_direction(&key.camera));
         let camera = three_d_camera(&key.camera, Viewport::new_at_origo(width, height));
-        RenderTarget::new(colour.as_color_target(None), depth.as_depth_target()).clear(clear_state()).render(
-            &camera,
-            self.objects(key.style),
-            &[],
-        );
+        if key.style.client_view || self.member_triangles < LAYERED_FROM_TRIANGLES {
+            RenderTarget::new(colour.as_color_target(None), depth.as_depth_target())
+                .clear(clear_state())
+                .render(&camera, self.objects(key.style), &[]);
+            self.members_drawn = None;
+            return DrawnView { key, colour, depth };
+        }
+        // A drag changes the roof every frame and a large frame's members
+        // only when the framing thread has laid them out again: the members
+        // are drawn into a layer of their own, with its depths, and the
+        // walls and roof go over a copy of it. Opaque faces meet by depth
+        // and the see-through roof planes go last either way, so the
+        // drawing is the one a single pass makes.
+        let layer_key = ViewKey { scenes: [0, key.scenes[1]], ..key };
+        let layer = match self.members_drawn.take() {
+            Some(layer) if layer.key == layer_key => layer,
+            earlier => {
+                let (layer_colour, layer_depth) = match earlier {
+                    Some(layer) if layer.key.size_px == key.size_px => (layer.colour, layer.depth),
+                    _ => view_textures(&self.context, width, height),
+                };
+                RenderTarget::new(layer_colour.as_color_target(None), layer_depth.as_depth_target())
+                    .clear(clear_state())
+                    .render(&camera, self.member_objects(key.style), &[]);
+                DrawnView { key: layer_key, colour: layer_colour, depth: layer_depth }
+            }
+        };
+        let copy = CopyEffect { write_mask: WriteMask::COLOR_AND_DEPTH, blend: Blend::Disabled };
+        RenderTarget::new(colour.as_color_target(None), depth.as_depth_target())
+            .apply_screen_effect(
+                &copy,
+                &camera,
+                &[],
+                Some(ColorTexture::Single(&layer.colour)),
+                Some(DepthTexture::Single(&layer.depth)),
+            )
+            .render(&camera, self.roof_objects(key.style), &[]);
+        self.members_drawn = Some(layer);
         DrawnView { key, colour, depth }
     }
 }
+
+/// The members' triangle count from which the 3D view draws them in a
+/// layer of their own (see `Renderer::draw_view`): below it a second pass
+/// and a copy cost more than drawing the members again each time. The
+/// demo house's members have about 2,800; the twenty-wing plan's about
+/// 77,000.
+const LAYERED_FROM_TRIANGLES: usize = 20_000;
 
 /// Everything that decides what the 3D view's drawing looks like.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -296,6 +359,24 @@ struct DrawnView {
 }
 
 impl Renderer {
+    /// The walls and roof shown in `style`.
+    fn roof_objects(&self, style: ViewStyle) -> Vec<&dyn Object> {
+        let models = self.models[0].iter().filter(|model| model.shown_in.includes(style));
+        models.map(|model| &model.gm as &dyn Object).collect()
+    }
+
+    /// The members shown in `style`, with the picked piece's overlay.
+    fn member_objects(&self, style: ViewStyle) -> Vec<&dyn Object> {
+        let models = self.models[1].iter().filter(|model| model.shown_in.includes(style));
+        let mut objects: Vec<&dyn Object> = models.map(|model| &model.gm as &dyn Object).collect();
+        if let Some(highlight) = &self.highlight {
+            objects.extend(highlight.body.iter().map(|gm| gm as &dyn Object));
+            objects.extend(highlight.cuts.iter().map(|gm| gm as &dyn Object));
+            objects.extend(highlight.siblings.iter().map(|gm| gm as &dyn Object));
+        }
+        objects
+    }
+
     /// The models shown in `style`, with the picked piece's overlay.
     fn objects(&self, style: ViewStyle) -> Vec<&dyn Object> {
         let mut objects: Vec<&dyn Object> = self
