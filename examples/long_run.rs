@@ -20,7 +20,7 @@ use std::sync::Mutex;
 use std::time::Instant;
 
 use pitchframe_geometry::{
-    FramingSettings, OutlineFeatures, OutlineShape, Roof, check_roof, frame_roof, random_outline_with,
+    FramingSettings, OutlineFeatures, OutlineShape, Roof, check_roof, frame_roof, random_outline_or_refusal,
 };
 
 /// A joint fits when neither its gap nor its overlap reaches this, inches:
@@ -86,7 +86,12 @@ fn feature_names(f: OutlineFeatures) -> Vec<&'static str> {
 }
 
 fn run_one(seed: u64, settings: &FramingSettings) -> Outcome {
-    let outline = random_outline_with(shape_of(seed), seed, OutlineFeatures::from_seed(seed));
+    // A draw the outline check refuses as a person's plan would be (a gable
+    // nearly in line with a pitched wall) counts as refused, with its message.
+    let outline = match random_outline_or_refusal(shape_of(seed), seed, OutlineFeatures::from_seed(seed)) {
+        Ok(outline) => outline,
+        Err(e) => return Outcome::Rejected(format!("outline: {e}")),
+    };
     let roof = match Roof::solve(&outline) {
         Ok(roof) => roof,
         Err(e) => return Outcome::Rejected(format!("solve: {e}")),

@@ -14,7 +14,8 @@
 //!   an end of. The crossing tests use exact orientation predicates.
 //! - Neither the outer ring nor a courtyard has all its corners on one line.
 //! - Where two walls meet in a straight line, both are gables or both are
-//!   pitched at the same slope.
+//!   pitched at the same slope; a gable and a pitched wall turn by at
+//!   least [`GABLE_TURN_MIN_DEG`] where they meet.
 //! - Every courtyard lies inside the outer ring and outside every other
 //!   courtyard.
 //!
@@ -46,6 +47,11 @@ pub const TOLERANCE_PER_SIZE: f64 = 1e-5;
 /// Two walls whose directions differ by less than this sine of an angle
 /// meet "in a straight line" for the pitch rule.
 const STRAIGHT_CORNER_SINE: f64 = 1e-9;
+
+/// A gable and a pitched wall whose directions differ by less than this
+/// many degrees are refused as nearly in line: see
+/// [`OutlineError::GableNearlyInLine`].
+pub const GABLE_TURN_MIN_DEG: f64 = 1.0;
 
 /// What a wall carries: a roof plane rising at a slope, or a gable end.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -264,6 +270,29 @@ pub enum OutlineError {
         next: WallName,
         /// The corner between them.
         corner: CornerName,
+    },
+    /// A gable and a pitched wall meeting at a corner that turns by less
+    /// than [`GABLE_TURN_MIN_DEG`].
+    ///
+    /// Beside the corner the pitched wall's plane starts at the wall line
+    /// while the roof over the gable's top does not, so the gable's
+    /// vertical face carries on past the corner (at an inside corner, over
+    /// the roof) or the plane eats the gable down to a sliver (at an
+    /// outside one). How far it carries on grows as one over the sine of
+    /// the turn: at a quarter of a degree it stands some ten feet tall
+    /// over the roof for longer than the wall itself. No plan means that;
+    /// it is a straight wall drawn a hair crooked, and exactly in line it
+    /// is refused already ([`OutlineError::StraightCornerRoofChanges`]).
+    #[error("{} is a gable and {} is pitched, but they meet at {corner} only {angle_deg:.2} degrees off a straight line; make them one straight wall with one roof, or turn the corner by at least {GABLE_TURN_MIN_DEG} degree", gable.short(), wall.short())]
+    GableNearlyInLine {
+        /// The gable wall.
+        gable: WallName,
+        /// The pitched wall beside it.
+        wall: WallName,
+        /// The corner between them.
+        corner: CornerName,
+        /// How far the corner turns, degrees.
+        angle_deg: f64,
     },
     /// A courtyard outside the outer ring.
     #[error("courtyard {} is not inside the outline", courtyard + 1)]
@@ -651,13 +680,25 @@ impl Outline {
                 };
                 let into = wall.corner - prev.corner;
                 let out = next.corner - wall.corner;
-                let straight = into.dot(out) > 0.0
-                    && into.perp_dot(out).abs() <= STRAIGHT_CORNER_SINE * into.length() * out.length();
-                if straight && !same_roof(prev.roof, wall.roof) {
+                let sine = into.perp_dot(out).abs() / (into.length() * out.length());
+                let ahead = into.dot(out) > 0.0;
+                if ahead && sine <= STRAIGHT_CORNER_SINE && !same_roof(prev.roof, wall.roof) {
                     return Err(OutlineError::StraightCornerRoofChanges {
                         wall: self.name_wall(ring, (i + n - 1) % n),
                         next: self.name_wall(ring, i),
                         corner: Self::corner_name(ring, i),
+                    });
+                }
+                let one_gable = (prev.roof == WallRoof::Gable) != (wall.roof == WallRoof::Gable);
+                if ahead && one_gable && sine < GABLE_TURN_MIN_DEG.to_radians().sin() {
+                    let (before, after) = (self.name_wall(ring, (i + n - 1) % n), self.name_wall(ring, i));
+                    let (gable, pitched) =
+                        if prev.roof == WallRoof::Gable { (before, after) } else { (after, before) };
+                    return Err(OutlineError::GableNearlyInLine {
+                        gable,
+                        wall: pitched,
+                        corner: Self::corner_name(ring, i),
+                        angle_deg: sine.asin().to_degrees(),
                     });
                 }
             }

@@ -4,11 +4,12 @@
 //! every machine: the generator uses its own small random source
 //! (splitmix64) and only basic `f64` arithmetic. Every outline returned has
 //! passed [`Outline::new`]; a draw that fails validation is thrown away and
-//! drawn again.
+//! drawn again ([`random_outline_or_refusal`] hands back a gable drawn
+//! nearly in line with a pitched wall as the refusal it is).
 
 use glam::DVec2;
 
-use crate::{Outline, Wall, WallRoof};
+use crate::{Outline, OutlineError, Wall, WallRoof};
 
 /// Which family of outlines to draw from.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -85,15 +86,45 @@ pub fn random_outline_with(shape: OutlineShape, seed: u64, features: OutlineFeat
     loop {
         let use_features = if attempt < 64 { features } else { OutlineFeatures::PLAIN };
         attempt += 1;
-        if let Some(outline) = draw(shape, use_features, &mut rng) {
+        if let Ok(outline) = draw(shape, use_features, &mut rng) {
             return outline;
         }
     }
 }
 
-fn draw(shape: OutlineShape, features: OutlineFeatures, rng: &mut SplitMix64) -> Option<Outline> {
+/// As [`random_outline_with`], but the first draw refused for what a
+/// person could have drawn (a gable nearly in line with a pitched wall,
+/// [`OutlineError::GableNearlyInLine`]) is handed back with its message
+/// instead of drawn again, so a long run can count such plans as refused.
+pub fn random_outline_or_refusal(
+    shape: OutlineShape,
+    seed: u64,
+    features: OutlineFeatures,
+) -> Result<Outline, OutlineError> {
+    let mut rng = SplitMix64::new(seed);
+    let mut attempt = 0u32;
+    loop {
+        let use_features = if attempt < 64 { features } else { OutlineFeatures::PLAIN };
+        attempt += 1;
+        match draw(shape, use_features, &mut rng) {
+            Ok(outline) => return Ok(outline),
+            Err(e @ OutlineError::GableNearlyInLine { .. }) => return Err(e),
+            Err(_) => {}
+        }
+    }
+}
+
+fn draw(
+    shape: OutlineShape,
+    features: OutlineFeatures,
+    rng: &mut SplitMix64,
+) -> Result<Outline, OutlineError> {
     let mut points = match shape {
-        OutlineShape::Orthogonal => orthogonal_points(rng, features.collinear_runs)?,
+        // A grid draw that gives no outline is a draw to throw away, like
+        // any other refused here; the error's kind is never shown.
+        OutlineShape::Orthogonal => {
+            orthogonal_points(rng, features.collinear_runs).ok_or(OutlineError::OutlineHasNoArea)?
+        }
         OutlineShape::Star => star_points(rng),
     };
     let (min, max) = bounds(&points);
@@ -123,7 +154,7 @@ fn draw(shape: OutlineShape, features: OutlineFeatures, rng: &mut SplitMix64) ->
             }
         }
     }
-    Outline::new(outer, courtyards).ok()
+    Outline::new(outer, courtyards)
 }
 
 fn bounds(points: &[DVec2]) -> (DVec2, DVec2) {

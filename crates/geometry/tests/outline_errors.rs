@@ -221,6 +221,36 @@ fn a_straight_corner_with_a_pitch_change() {
     );
 }
 
+/// A rectangle whose bottom wall is bent at corner 2 by `rise` inches over
+/// 240 in, with wall 2 (from the bend on) a gable.
+fn bent_gable(rise: f64) -> Vec<Wall> {
+    let mut outer = walls(&[(0.0, 0.0), (240.0, 0.0), (480.0, rise), (480.0, 360.0), (0.0, 360.0)]);
+    outer[1].roof = WallRoof::Gable;
+    outer
+}
+
+#[test]
+fn a_gable_nearly_in_line_with_a_pitched_wall() {
+    // Derivation: a bend of 1 in over 240 in turns by atan(1 / 240) = 0.24 degrees.
+    assert_eq!(
+        message(bent_gable(1.0), vec![]),
+        "wall 2 is a gable and wall 1 is pitched, but they meet at corner 2 only 0.24 degrees off a \
+         straight line; make them one straight wall with one roof, or turn the corner by at least 1 degree"
+    );
+    // Bent the other way (an inside corner) the same.
+    let got = message(bent_gable(-1.0), vec![]);
+    assert!(got.contains("wall 2 is a gable and wall 1 is pitched") && got.contains("0.24 degrees"), "{got}");
+    // Just under and just over the 1 degree limit: tan(1 deg) * 240 in = 4.189 in.
+    assert!(message(bent_gable(4.15), vec![]).contains("0.99 degrees"));
+    assert!(Outline::new(bent_gable(4.25), vec![]).is_ok());
+}
+
+#[test]
+fn two_walls_nearly_in_line_with_one_roof_are_accepted() {
+    let outer = walls(&[(0.0, 0.0), (240.0, 0.0), (480.0, 1.0), (480.0, 360.0), (0.0, 360.0)]);
+    assert!(Outline::new(outer, vec![]).is_ok());
+}
+
 #[test]
 fn a_straight_corner_with_one_pitch_is_accepted() {
     let outer = walls(&[(0.0, 0.0), (240.0, 0.0), (480.0, 0.0), (480.0, 360.0), (0.0, 360.0)]);

@@ -95,8 +95,9 @@ fn check_invariants(roof: &Roof, walls: &[(DVec2, DVec2)], area: f64) {
             }
         }
     }
-    // Planes meeting at a plan point agree on its height, except on a
-    // gable's line, where a vertical gable face may stand between them.
+    // Planes meeting at a plan point agree on its height (within the same
+    // merge allowance as the lines), except on a gable's line, where a
+    // vertical gable face may stand between them.
     let on_gable_line = |p: DVec2| {
         roof.gables.iter().any(|g| {
             let (a, b) = (g.outline[0].truncate(), g.outline[1].truncate());
@@ -108,7 +109,7 @@ fn check_invariants(roof: &Roof, walls: &[(DVec2, DVec2)], area: f64) {
             for a in &p.outline {
                 for b in &q.outline {
                     if a.truncate().distance(b.truncate()) < EPS && !on_gable_line(a.truncate()) {
-                        assert_relative_eq!(a.z, b.z, epsilon = 1e-6);
+                        assert_relative_eq!(a.z, b.z, epsilon = merge_eps);
                     }
                 }
             }
@@ -719,17 +720,30 @@ fn random_star_plans_with_mixed_pitches() {
 
 #[test]
 fn random_star_plans_with_a_gable() {
+    let mut solved = 0;
     for seed in 1..30 {
         for n in [6, 12, 30] {
             let mut outer = ring(&star(n, seed), 0.5);
             outer[(seed as usize) % n].roof = WallRoof::Gable;
-            let outline = Outline::new(outer.clone(), vec![]).unwrap();
+            // A star of many corners can put the gable within a degree of
+            // straight with a neighbour, which is refused by name.
+            let outline = match Outline::new(outer.clone(), vec![]) {
+                Ok(outline) => outline,
+                Err(e @ pitchframe_geometry::OutlineError::GableNearlyInLine { .. }) => {
+                    assert!(n > 6, "star n={n} seed={seed}: {e}");
+                    continue;
+                }
+                Err(e) => panic!("star n={n} seed={seed}: {e}"),
+            };
+            solved += 1;
             let roof = Roof::solve(&outline).unwrap_or_else(|e| panic!("star n={n} seed={seed}: {e}"));
             let ends: Vec<_> = (0..n).map(|i| (outer[i].corner, outer[(i + 1) % n].corner)).collect();
             check_invariants(&roof, &ends, outline_area(&outer, &[]));
             assert_eq!(roof.gables.len(), 1);
         }
     }
+    // Of 87 stars, only a few of the 12- and 30-corner ones turn so little there.
+    assert!(solved >= 80, "{solved} solved");
 }
 
 #[test]
