@@ -14,6 +14,11 @@ use super::edit::{PlanEdit, locate, ring, wall_count, wall_ends_in};
 use super::typed_field::{ERROR, typed_text_field};
 use super::units::DisplayUnits;
 
+/// From how many walls the list lays out only the rows in view: fewer
+/// are cheap to lay out every frame, and every field stays reachable by
+/// its label (as the window tests find them).
+const LAID_OUT_IN_VIEW_FROM_WALLS: usize = 24;
+
 /// Width of a length or pitch field, in points.
 const FIELD_WIDTH: f32 = 96.0;
 
@@ -39,6 +44,9 @@ pub enum Field {
 pub struct WallListState {
     typed: HashMap<Field, String>,
     errors: HashMap<Field, String>,
+    /// How far each wall's row moved the list down when last laid out, in
+    /// points, so a long list can step over the rows out of view.
+    row_heights: Vec<f32>,
 }
 
 impl WallListState {
@@ -112,12 +120,32 @@ pub fn wall_list_ui(
     ui.heading("Walls");
     ui.label(RichText::new("Length and direction move the wall's far corner. Leave pitch or overhang empty to use the roof's.").weak());
     let faults = derived.problem.as_ref().map(|p| p.walls.clone()).unwrap_or_default();
-    egui::ScrollArea::vertical().auto_shrink([false, true]).show(ui, |ui| {
-        for wall in 0..wall_count(plan) {
+    let walls = wall_count(plan);
+    state.row_heights.resize(walls, 0.0);
+    egui::ScrollArea::vertical().auto_shrink([false, true]).show_viewport(ui, |ui, viewport| {
+        let origin = ui.max_rect().top();
+        for wall in 0..walls {
             let Some(plan_wall) = locate(plan, wall).and_then(|(r, i)| ring(plan, r).and_then(|w| w.get(i)))
             else {
                 continue;
             };
+            // A long list lays out only the rows in view (a drag redraws
+            // the window every frame, and a large plan's hundreds of
+            // fields took much of it); a row being typed in, at fault or
+            // selected is always laid out.
+            let top = ui.cursor().top() - origin;
+            let height = state.row_heights.get(wall).copied().unwrap_or(0.0);
+            let out_of_view = top > viewport.bottom() + height || top + height < viewport.top() - height;
+            let busy = selected_wall == Some(wall)
+                || faults.contains(&wall)
+                || [Field::Length(wall), Field::Direction(wall), Field::Pitch(wall), Field::Overhang(wall)]
+                    .iter()
+                    .any(|field| state.typed.contains_key(field) || state.errors.contains_key(field));
+            if walls >= LAID_OUT_IN_VIEW_FROM_WALLS && height > 0.0 && out_of_view && !busy {
+                ui.add_space(height);
+                continue;
+            }
+            let before = ui.cursor().top();
             ui.push_id(wall, |ui| {
                 wall_row_ui(
                     ui,
@@ -131,6 +159,9 @@ pub fn wall_list_ui(
                     commands,
                 );
             });
+            if let Some(slot) = state.row_heights.get_mut(wall) {
+                *slot = ui.cursor().top() - before;
+            }
         }
     });
 }

@@ -893,3 +893,26 @@ fn type_into_while_busy(harness: &mut Harness<'_, AppState>, label: &str, text: 
     harness.step();
     harness.step();
 }
+
+#[test]
+fn a_long_wall_list_lays_out_the_rows_in_view_and_the_selected_one() {
+    let folder = TempFolder::new("long-list");
+    let config = ConfigDir::at(folder.0.join("config"));
+    config.mark_safety_shown().unwrap();
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("benches/many-wings.toml");
+    let document = Document::open(&path).unwrap();
+    let walls = document.plan.walls.len();
+    assert!(walls >= 80, "the twenty-wing plan has {walls} walls");
+    let mut harness = window(AppState::new(document, Some(config), ViewPreset::Corner));
+    // Every row is laid out in the first frame, before the list knows the
+    // rows' heights; from then on only those in view (the 900 point high
+    // window shows the first few walls), and the selected wall's.
+    let _ = harness.get_by_label("Wall 1 length");
+    assert!(harness.query_by_label("Wall 80 length").is_none(), "a row far out of view is laid out");
+    harness.state_mut().push(Command::SelectWall(Some(79)));
+    harness.run();
+    let _ = harness.get_by_label("Wall 80 length");
+    harness.state_mut().push(Command::SelectWall(None));
+    harness.run();
+    assert!(harness.query_by_label("Wall 80 length").is_none(), "the row stays laid out once let go");
+}
