@@ -152,6 +152,10 @@ pub struct AppState {
     /// Whether the last frame's commands moved a corner by a drag, whose
     /// frame is laid out on the framing thread.
     dragged_last_frame: bool,
+    /// How many frames were drawn with the members of an earlier plan than
+    /// the roof's, because the framing thread had not finished (for the
+    /// frame-time run).
+    pub frames_behind: u64,
 }
 
 impl AppState {
@@ -214,6 +218,7 @@ impl AppState {
             style_set: false,
             title: String::new(),
             dragged_last_frame: false,
+            frames_behind: 0,
         }
     }
 
@@ -332,6 +337,7 @@ impl AppState {
             self.derived.settle();
         }
         if self.derived.frame_pending() {
+            self.frames_behind += 1;
             ctx.request_repaint_after(FRAME_POLL);
         }
     }

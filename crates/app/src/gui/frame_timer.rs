@@ -37,6 +37,9 @@ pub struct FrameTimer {
     cpu_at_start: Vec<(String, f64)>,
     /// How long after the process started the first frame had been drawn.
     first_frame_ms: Option<f64>,
+    /// The app's count of frames drawn with the members behind the roof,
+    /// when timing began.
+    behind_at_start: u64,
 }
 
 impl FrameTimer {
@@ -57,6 +60,7 @@ impl FrameTimer {
             seen: 0,
             cpu_at_start: Vec::new(),
             first_frame_ms: None,
+            behind_at_start: 0,
         })
     }
 
@@ -82,6 +86,7 @@ impl FrameTimer {
         }
         if self.seen == WARM_UP_FRAMES {
             self.cpu_at_start = thread_cpu_ms();
+            self.behind_at_start = state.frames_behind;
         }
         if self.seen > WARM_UP_FRAMES
             && let Some(last) = self.last
@@ -129,6 +134,12 @@ impl FrameTimer {
             scene.pieces.len(),
             scene.pieces.iter().map(|piece| piece.triangles.len()).sum::<usize>(),
         );
+        if self.moving {
+            // A drag's members come from the framing thread: how often
+            // they were not yet in when the frame was drawn.
+            let behind = state.frames_behind - self.behind_at_start;
+            println!("members of an earlier plan than the roof in {behind} of {} frames", sorted.len());
+        }
         match self.first_frame_ms {
             Some(ms) => println!("first frame drawn {ms:.0} ms after the program started"),
             None => println!("first frame drawn: time since start not measured on this system"),
