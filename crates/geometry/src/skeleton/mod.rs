@@ -11,7 +11,9 @@
 //!   site by re-pairing the lines met there in angular order
 //!   ([`resolve::resolve_site`]);
 //! - opposite lines that meet (a level ridge) leave zero-width spikes and
-//!   flat cycles that [`cleanup::clean_up`] closes.
+//!   flat cycles that [`cleanup::clean_up`] closes;
+//! - once the faces are chained, a face folded back over itself by less
+//!   than the tolerance is cut at the fold ([`faces::remove_slivers`]).
 //!
 //! Topology decisions about the outline's corners use exact orientation
 //! predicates; event heights and points use `f64` with the tolerances of
