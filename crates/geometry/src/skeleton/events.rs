@@ -5,8 +5,8 @@ use std::cmp::Ordering;
 
 use super::wavefront::{Corner, EdgeId, VertexId, Wavefront};
 
-/// How many split candidates a reflex vertex keeps at a time; the rest are
-/// recomputed only if all of these turn out not to happen.
+/// How many split candidates a reflex vertex keeps at a time in the full
+/// search; the rest are recomputed only if all of these turn out not to happen.
 const SPLIT_CANDIDATES_KEPT: usize = 16;
 
 /// What happens at an event.
@@ -47,9 +47,21 @@ impl PartialOrd for Event {
     }
 }
 
+impl Event {
+    /// What orders events at one height: edge events first, then by the
+    /// pieces and vertices they name, so the order never depends on the
+    /// queue's history (which events happened to be pushed before).
+    pub(crate) fn tie_key(&self) -> (u8, usize, usize, usize) {
+        match self.kind {
+            EventKind::Edge { edge, start, end } => (0, edge, start, end),
+            EventKind::Split { vertex, line } => (1, vertex, line, 0),
+        }
+    }
+}
+
 impl Ord for Event {
     fn cmp(&self, other: &Self) -> Ordering {
-        other.time.total_cmp(&self.time)
+        other.time.total_cmp(&self.time).then_with(|| other.tie_key().cmp(&self.tie_key()))
     }
 }
 
@@ -78,6 +90,27 @@ pub(crate) fn edge_collapse(wf: &Wavefront, e: EdgeId, now: f64) -> Option<Event
     let time = (t_ref - length / rate).max(now);
     time.is_finite()
         .then_some(Event { time, kind: EventKind::Edge { edge: e, start: edge.start, end: edge.end } })
+}
+
+/// Height at which reflex vertex `v` reaches the moving `line`, if it does
+/// so at or after height `after` from the line's inner side.
+pub(crate) fn split_time(wf: &Wavefront, v: VertexId, line: usize, after: f64) -> Option<f64> {
+    let vx = wf.vertices.get(v)?;
+    if vx.corner != Corner::Reflex || !vx.alive {
+        return None;
+    }
+    let (anchor, vel, t0) = (vx.anchor, vx.vel, vx.t0);
+    let &[nx, ny, offset, speed] = wf.packed_lines.get(line)?;
+    let d0 = nx * anchor.x + ny * anchor.y - offset - speed * t0;
+    let rate = nx * vel.x + ny * vel.y - speed;
+    // A vertex born at an event on a line that passes through its birth
+    // point has already been resolved against it there.
+    let born_on_line = t0 > 0.0 && d0 <= wf.tol.point;
+    if d0 < -wf.tol.point || rate >= 0.0 || line == vx.in_line || line == vx.out_line || born_on_line {
+        return None;
+    }
+    let t = t0 + d0.max(0.0) / -rate;
+    (t.is_finite() && t >= after).then_some(t)
 }
 
 /// Computes the split candidates of reflex vertex `v` later than `after`

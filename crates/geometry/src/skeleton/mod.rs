@@ -25,6 +25,7 @@ mod events;
 mod faces;
 pub(crate) mod lines;
 mod resolve;
+mod sweep_index;
 pub(crate) mod tolerance;
 mod wavefront;
 
@@ -35,6 +36,7 @@ use glam::DVec2;
 use events::{Event, EventKind};
 use lines::WallLine;
 use resolve::Site;
+use sweep_index::SweepIndex;
 use tolerance::Tolerance;
 pub(crate) use wavefront::Node;
 use wavefront::{EdgeId, VertexId, Wavefront};
@@ -97,8 +99,10 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         wall_end_node: vec![0; n],
         batch_nodes: Vec::new(),
         tol,
+        changed_edges: Vec::new(),
         split_scratch: Vec::new(),
     };
+    let mut index = SweepIndex::new(&wf);
     let mut heap: BinaryHeap<Event> = BinaryHeap::new();
     let mut all_new: Vec<VertexId> = Vec::new();
     for ring in rings {
@@ -133,11 +137,11 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
             }
         }
     }
-    schedule(&mut wf, &mut heap, &all_new, 0.0);
+    schedule(&mut wf, &mut heap, &mut index, &all_new, 0.0);
 
     let limit = 200 * (wf.vertices.len() + 10);
     let mut steps = 0usize;
-    while let Some(first) = pop_valid(&mut wf, &mut heap, f64::INFINITY) {
+    while let Some(first) = pop_valid(&mut wf, &mut heap, &mut index, f64::INFINITY) {
         steps += 1;
         if steps > limit {
             return Err(SkeletonError::TooManyEvents);
@@ -145,7 +149,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         let t0 = first.0.time;
         let mut batch = vec![first];
         let batch_end = t0 + wf.tol.time;
-        while let Some(next) = pop_valid(&mut wf, &mut heap, batch_end) {
+        while let Some(next) = pop_valid(&mut wf, &mut heap, &mut index, batch_end) {
             batch.push(next);
         }
         let sites = cluster(&wf, &batch);
@@ -157,7 +161,8 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         }
         let t_batch = sites.iter().map(|s| s.time).fold(t0, f64::max);
         let touched = cleanup::clean_up(&mut wf, created, t_batch);
-        schedule(&mut wf, &mut heap, &touched, t0);
+        index.passed_height(batch_end);
+        schedule(&mut wf, &mut heap, &mut index, &touched, t0);
     }
 
     if let Some(v) = wf.vertices.iter().position(|v| v.alive) {
@@ -203,9 +208,16 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
     Ok(Skeleton { nodes: wf.nodes, faces, holes, lines: wf.lines })
 }
 
-/// Pushes edge events for the pieces at `vertices` and split candidates for
-/// the new reflex ones.
-fn schedule(wf: &mut Wavefront, heap: &mut BinaryHeap<Event>, vertices: &[VertexId], now: f64) {
+/// Pushes edge events for the pieces at `vertices`, and split candidates
+/// for the new reflex ones and for those the changed pieces may now meet.
+fn schedule(
+    wf: &mut Wavefront,
+    heap: &mut BinaryHeap<Event>,
+    index: &mut SweepIndex,
+    vertices: &[VertexId],
+    now: f64,
+) {
+    index.update(wf, heap, vertices, now);
     let mut edges: Vec<EdgeId> = Vec::new();
     for &v in vertices {
         let Some(x) = wf.vertices.get(v) else {
@@ -216,12 +228,6 @@ fn schedule(wf: &mut Wavefront, heap: &mut BinaryHeap<Event>, vertices: &[Vertex
         }
         edges.push(x.in_edge);
         edges.push(x.out_edge);
-        if x.splits.is_empty() && !x.splits_truncated {
-            events::compute_splits(wf, v, now, true);
-            if let Some(ev) = events::next_split(wf, v, now) {
-                heap.push(ev);
-            }
-        }
     }
     edges.sort_unstable();
     edges.dedup();
@@ -237,10 +243,17 @@ fn schedule(wf: &mut Wavefront, heap: &mut BinaryHeap<Event>, vertices: &[Vertex
 fn pop_valid(
     wf: &mut Wavefront,
     heap: &mut BinaryHeap<Event>,
+    index: &mut SweepIndex,
     limit: f64,
 ) -> Option<(Event, Option<EdgeId>)> {
-    while heap.peek().is_some_and(|e| e.time <= limit) {
-        let Some(ev) = heap.pop() else { break };
+    loop {
+        // Split candidates must be in the queue before it passes their height.
+        index.renew(wf, heap);
+        if !heap.peek().is_some_and(|e| e.time <= limit) {
+            return None;
+        }
+        let ev = heap.pop()?;
+        index.passed_event(&ev);
         match ev.kind {
             EventKind::Edge { edge, start, end } => {
                 if wf.edges.get(edge).is_some_and(|e| e.alive && e.start == start && e.end == end) {
@@ -251,17 +264,17 @@ fn pop_valid(
                 if !wf.alive(vertex) {
                     continue;
                 }
-                let hit = events::split_target(wf, vertex, line, ev.time);
-                if let Some(next) = events::next_split(wf, vertex, ev.time) {
+                if index.chained()
+                    && let Some(next) = events::next_split(wf, vertex, ev.time)
+                {
                     heap.push(next);
                 }
-                if hit.is_some() {
-                    return Some((ev, hit));
+                if let Some(hit) = events::split_target(wf, vertex, line, ev.time) {
+                    return Some((ev, Some(hit)));
                 }
             }
         }
     }
-    None
 }
 
 /// Groups a batch of simultaneous events into sites by plan point.

@@ -67,8 +67,8 @@ pub(crate) struct Vertex {
     pub corner: Corner,
     /// Still part of the wavefront.
     pub alive: bool,
-    /// Pending split candidates `(height, line)`, latest first, so the next
-    /// candidate is popped from the end.
+    /// Pending split candidates `(height, line)` of the full search, latest
+    /// first, so the next candidate is popped from the end.
     pub splits: Vec<(f64, usize)>,
     /// Whether candidates later than the last one in `splits` were left out.
     pub splits_truncated: bool,
@@ -113,7 +113,10 @@ pub(crate) struct Wavefront {
     pub batch_nodes: Vec<NodeId>,
     /// Tolerances.
     pub tol: Tolerance,
-    /// Scratch space for the split search, kept between calls.
+    /// Edge pieces added or given a new end since the split index last
+    /// looked, so it can enter them again.
+    pub changed_edges: Vec<EdgeId>,
+    /// Scratch space for the full split search, kept between calls.
     pub split_scratch: Vec<(f64, usize)>,
 }
 
@@ -179,6 +182,7 @@ impl Wavefront {
         if let Some(list) = self.pieces_by_line.get_mut(line) {
             list.push(id);
         }
+        self.changed_edges.push(id);
         id
     }
 
@@ -314,6 +318,7 @@ impl Wavefront {
         if let Some(x) = self.edges.get_mut(e) {
             x.end = v;
         }
+        self.changed_edges.push(e);
         if let Some(x) = self.vertices.get_mut(v) {
             x.in_edge = e;
         }
@@ -324,6 +329,7 @@ impl Wavefront {
         if let Some(x) = self.edges.get_mut(e) {
             x.start = v;
         }
+        self.changed_edges.push(e);
         if let Some(x) = self.vertices.get_mut(v) {
             x.out_edge = e;
         }
