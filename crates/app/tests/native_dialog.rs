@@ -77,16 +77,18 @@ fn window_name(display: &str, window: &str) -> String {
     xdotool(display, &["getwindowname", window]).unwrap_or_default()
 }
 
-/// Starts the app on `plan` with its settings in `home` (the cautions marked
+/// Starts the app on the demo with its settings in `home` (the cautions marked
 /// as shown so no first-start dialog is in the way) and no session bus, so
 /// rfd shows its dialog through zenity.
-fn start_app(display: &VirtualDisplay, home: &Path, plan: Option<&Path>) -> (RunningApp, String) {
+/// `None` when the app could not reach the display (a virtual display that
+/// went away under it, seen on a machine running many at once), so the
+/// caller can try a fresh one.
+fn start_app(display: &VirtualDisplay, home: &Path) -> Option<(RunningApp, String)> {
     let config = home.join("config");
     std::fs::create_dir_all(config.join("pitchframe")).expect("cannot create the settings folder");
     std::fs::write(config.join("pitchframe/safety-shown"), "shown\n").expect("cannot write the settings");
     let mut command = Command::new(env!("CARGO_BIN_EXE_pitchframe"));
     command
-        .args(plan)
         .env("DISPLAY", &display.display)
         .env("HOME", home)
         .env("XDG_CONFIG_HOME", &config)
@@ -107,6 +109,9 @@ fn start_app(display: &VirtualDisplay, home: &Path, plan: Option<&Path>) -> (Run
             break main;
         }
         if let Ok(Some(status)) = app.child.try_wait() {
+            if log().contains("Failed to open connection to X server") {
+                return None;
+            }
             panic!("pitchframe exited ({status}) before its window showed:\n{}", log());
         }
         if started.elapsed() > PATIENCE {
@@ -120,7 +125,19 @@ fn start_app(display: &VirtualDisplay, home: &Path, plan: Option<&Path>) -> (Run
         }
         std::thread::sleep(Duration::from_millis(250));
     };
-    (app, main)
+    Some((app, main))
+}
+
+/// A virtual display with the app running in it, trying a fresh display
+/// when the app could not connect to the first.
+fn start_on_a_display(home: &Path) -> (VirtualDisplay, RunningApp, String) {
+    for _ in 0..3 {
+        let display = VirtualDisplay::start();
+        if let Some((app, main)) = start_app(&display, home) {
+            return (display, app, main);
+        }
+    }
+    panic!("pitchframe could not connect to any of three virtual displays");
 }
 
 /// Sends `keys` to the app's window, waits for the file dialog and types
@@ -167,14 +184,13 @@ fn answer_dialog(app: &RunningApp, main: &str, keys: &str, path: &Path, done: im
 fn a_plan_opens_and_saves_through_the_native_file_dialog() {
     needs("xdotool", "xdotool");
     needs("zenity", "zenity");
-    let display = VirtualDisplay::start();
     let home = scratch("home");
     let example = Path::new(env!("CARGO_MANIFEST_DIR")).join("../../examples/hillside-cottage.toml");
     let chosen = home.join("cottage-to-open.toml");
     std::fs::copy(&example, &chosen).expect("cannot copy the example plan");
 
     // Open: the app starts on the demo, Ctrl+O, the dialog is given the path.
-    let (app, main) = start_app(&display, &home, None);
+    let (display, app, main) = start_on_a_display(&home);
     answer_dialog(&app, &main, "ctrl+o", &chosen, || {
         window_name(&app.display, &main).contains("cottage-to-open.toml")
     });
@@ -188,6 +204,7 @@ fn a_plan_opens_and_saves_through_the_native_file_dialog() {
         window_name(&app.display, &main).contains("cottage-saved.toml").then_some(())
     });
     drop(app);
+    drop(display);
 
     // The saved file is the opened plan, read back by the geometry crate.
     let opened =
