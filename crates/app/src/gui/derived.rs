@@ -230,7 +230,7 @@ fn roof_walls(error: &RoofError) -> Vec<usize> {
         | RoofError::WallHasNoLength { wall } => vec![*wall],
         RoofError::GableInLineWithPitched { gable, wall } => vec![*gable, *wall],
         RoofError::GablesOnly { walls } => walls.clone(),
-        _ => Vec::new(),
+        RoofError::CourtyardTooSmall { .. } | RoofError::Unsolvable { .. } => Vec::new(),
     }
 }
 
@@ -264,7 +264,16 @@ fn outline_walls(plan: &Plan, error: &OutlineError) -> Vec<usize> {
             vec![corner_wall(plan, corner), wall(w)]
         }
         OutlineError::StraightCornerRoofChanges { wall: w, next, .. } => vec![wall(w), wall(next)],
-        _ => Vec::new(),
+        OutlineError::GableNearlyInLine { gable, wall: w, .. } => vec![wall(gable), wall(w)],
+        // About the whole outline or a whole courtyard, not one wall.
+        OutlineError::TooFewCorners { .. }
+        | OutlineError::CourtyardTooFewCorners { .. }
+        | OutlineError::TooManyCorners { .. }
+        | OutlineError::NoPitchedWall
+        | OutlineError::OutlineHasNoArea
+        | OutlineError::CourtyardHasNoArea { .. }
+        | OutlineError::CourtyardOutside { .. }
+        | OutlineError::CourtyardInsideCourtyard { .. } => Vec::new(),
     }
 }
 
@@ -294,6 +303,20 @@ mod tests {
         assert!(Arc::ptr_eq(&derived.scene, &before), "the last good roof is no longer shown");
         derived.update(&plan);
         assert!(derived.problem.is_none());
+    }
+
+    #[test]
+    fn a_gable_nearly_in_line_with_a_pitched_wall_marks_both_walls() {
+        // A gable (wall 2) running on a quarter of an inch off straight over
+        // 20 ft from the pitched wall 1: refused by the outline's own check.
+        let text = "format = 1\nunits = \"in\"\n[roof]\npitch = \"6/12\"\n\
+                    [[wall]]\nat = [0, 0]\n[[wall]]\nat = [240, 0]\ngable = true\n\
+                    [[wall]]\nat = [480, 0.25]\n[[wall]]\nat = [480, 240]\n[[wall]]\nat = [0, 240]\n";
+        let plan = Plan::from_toml(text).unwrap();
+        let derived = Derived::new(&plan);
+        let problem = derived.problem.clone().unwrap();
+        assert!(problem.message.contains("degrees off a straight line"), "{}", problem.message);
+        assert_eq!(problem.walls, vec![1, 0]);
     }
 
     #[test]
