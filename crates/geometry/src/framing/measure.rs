@@ -77,10 +77,12 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
     let on_any = |p: DVec3, planes: &[HalfSpace]| planes.iter().any(|h| h.distance(p).abs() < READ_TOL_IN);
     let along = |p: DVec3| fr.along_of(p);
     let extent = |planes: &[HalfSpace]| {
-        let vals: Vec<f64> = top_vertices.iter().copied().filter(|p| on_any(*p, planes)).map(along).collect();
-        let lo = vals.iter().copied().fold(f64::INFINITY, f64::min);
-        let hi = vals.iter().copied().fold(f64::NEG_INFINITY, f64::max);
-        (lo, hi)
+        top_vertices
+            .iter()
+            .copied()
+            .filter(|p| on_any(*p, planes))
+            .map(along)
+            .fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), s| (lo.min(s), hi.max(s)))
     };
     let (upper_lo, upper_hi) = extent(&spec.upper_cuts);
     let s_top = spec
@@ -107,9 +109,11 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
     };
     let seat_to_top_cut = s_top - s_bottom;
     let tail_length = if seated && spec.has_tail { -s_low_cuts } else { 0.0 };
-    let alongs: Vec<f64> = solid.vertices().map(along).collect();
-    let overall_length = alongs.iter().copied().fold(f64::NEG_INFINITY, f64::max)
-        - alongs.iter().copied().fold(f64::INFINITY, f64::min);
+    let (along_lo, along_hi) = solid
+        .vertices()
+        .map(along)
+        .fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), s| (lo.min(s), hi.max(s)));
+    let overall_length = along_hi - along_lo;
     let axis =
         [fr.origin + fr.along * if seated { -tail_length } else { s_bottom }, fr.origin + fr.along * s_top];
 

@@ -9,6 +9,7 @@ mod bearing_stretch;
 mod board;
 mod builders;
 mod checks;
+mod corners;
 mod cuts;
 mod error;
 mod frame;

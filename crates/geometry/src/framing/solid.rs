@@ -3,6 +3,8 @@
 use glam::DVec3;
 use serde::Serialize;
 
+use super::corners::corners;
+
 /// Points closer than this (inches) to a plane count as on it. Members are
 /// at most a few hundred inches long, so this is far below any cut tolerance
 /// and far above f64 round-off at that size.
@@ -125,46 +127,23 @@ impl ConvexPart {
     /// Intersects the half-spaces; `None` when the result has no volume or
     /// is unbounded (no corners on some side).
     pub fn from_half_spaces(planes: &[HalfSpace]) -> Option<Self> {
-        let mut vertices: Vec<DVec3> = Vec::new();
-        let n = planes.len();
-        let tol = ON_PLANE_IN * 10.0;
-        // The plane that last ruled a point out is tried first: most points
-        // fall outside a few planes, and the same ones, so the check mostly
-        // ends at once (the points kept are the same whatever the order).
-        let mut last_out = 0;
-        for i in 0..n {
-            for j in i + 1..n {
-                for k in j + 1..n {
-                    let Some(p) = three_plane_point(&planes[i], &planes[j], &planes[k]) else {
-                        continue;
-                    };
-                    // NaN counts as outside, as a failed comparison.
-                    let inside = |h: &HalfSpace| h.distance(p) <= tol;
-                    if !inside(&planes[last_out]) {
-                        continue;
-                    }
-                    if let Some(out) = planes.iter().position(|h| !inside(h)) {
-                        last_out = out;
-                        continue;
-                    }
-                    if !vertices.iter().any(|v| v.distance_squared(p) < 1e-12) {
-                        vertices.push(p);
-                    }
-                }
-            }
-        }
+        let vertices = corners(planes);
         if vertices.len() < 4 {
             return None;
         }
-        let mut faces = Vec::new();
-        let mut kept = Vec::new();
+        let mut faces: Vec<Face> = Vec::with_capacity(planes.len());
+        let mut kept = Vec::with_capacity(planes.len());
+        // Scratch reused for every plane: only the faces kept allocate.
+        let mut on: Vec<DVec3> = Vec::with_capacity(vertices.len());
+        let mut keyed: Vec<(f64, DVec3)> = Vec::with_capacity(vertices.len());
+        let mut ordered: Vec<DVec3> = Vec::with_capacity(vertices.len());
         for plane in planes {
-            let on: Vec<DVec3> =
-                vertices.iter().copied().filter(|v| plane.distance(*v).abs() <= ON_PLANE_IN * 10.0).collect();
+            on.clear();
+            on.extend(vertices.iter().copied().filter(|v| plane.distance(*v).abs() <= ON_PLANE_IN * 10.0));
             if on.len() < 3 {
                 continue;
             }
-            let ordered = order_around(&on, plane.normal);
+            order_around(&on, plane.normal, &mut keyed, &mut ordered);
             if polygon_area(&ordered, plane.normal) < MIN_FACE_AREA_SQ_IN {
                 continue;
             }
@@ -172,11 +151,18 @@ impl ConvexPart {
             // the first and let the cut's tag win by putting cuts first.
             if faces.iter().any(|f: &Face| {
                 f.normal.dot(plane.normal) > 1.0 - 1e-12
-                    && (f.normal.dot(f.vertices[0]) - plane.offset).abs() < ON_PLANE_IN * 10.0
+                    && f.vertices
+                        .first()
+                        .is_some_and(|v| (f.normal.dot(*v) - plane.offset).abs() < ON_PLANE_IN * 10.0)
             }) {
                 continue;
             }
-            faces.push(Face { vertices: ordered, normal: plane.normal, tag: plane.tag, end: plane.end });
+            faces.push(Face {
+                vertices: ordered.clone(),
+                normal: plane.normal,
+                tag: plane.tag,
+                end: plane.end,
+            });
             kept.push(*plane);
         }
         if faces.len() < 4 {
@@ -232,32 +218,28 @@ impl Solid {
     }
 }
 
-/// The point common to three planes, if they meet in one point.
-fn three_plane_point(a: &HalfSpace, b: &HalfSpace, c: &HalfSpace) -> Option<DVec3> {
-    let bc = b.normal.cross(c.normal);
-    let det = a.normal.dot(bc);
-    if det.abs() < 1e-12 {
-        return None;
-    }
-    let p = (bc * a.offset + c.normal.cross(a.normal) * b.offset + a.normal.cross(b.normal) * c.offset) / det;
-    p.is_finite().then_some(p)
-}
-
 /// Orders coplanar points of a convex polygon counter-clockwise about
-/// `normal`.
-fn order_around(points: &[DVec3], normal: DVec3) -> Vec<DVec3> {
+/// `normal` into `ordered`, using `keyed` as scratch.
+fn order_around(points: &[DVec3], normal: DVec3, keyed: &mut Vec<(f64, DVec3)>, ordered: &mut Vec<DVec3>) {
     let centre = points.iter().copied().sum::<DVec3>() / points.len() as f64;
     let u = normal.any_orthonormal_vector();
     let w = normal.cross(u);
-    let mut with_angle: Vec<(f64, DVec3)> = points
-        .iter()
-        .map(|p| {
-            let d = *p - centre;
-            (turn_key(d.dot(u), d.dot(w)), *p)
-        })
-        .collect();
-    with_angle.sort_by(|a, b| a.0.total_cmp(&b.0));
-    with_angle.into_iter().map(|(_, p)| p).collect()
+    keyed.clear();
+    keyed.extend(points.iter().map(|p| {
+        let d = *p - centre;
+        (turn_key(d.dot(u), d.dot(w)), *p)
+    }));
+    // A face has a handful of corners: an insertion sort, stable like
+    // `sort_by` and so giving the same order, without its scratch buffer.
+    for i in 1..keyed.len() {
+        let mut j = i;
+        while j > 0 && keyed[j - 1].0.total_cmp(&keyed[j].0).is_gt() {
+            keyed.swap(j - 1, j);
+            j -= 1;
+        }
+    }
+    ordered.clear();
+    ordered.extend(keyed.iter().map(|(_, p)| *p));
 }
 
 /// A key that sorts directions `(x, y)` as `y.atan2(x)` does (from just
