@@ -98,6 +98,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         wall_start_node: vec![0; n],
         wall_end_node: vec![0; n],
         batch_nodes: Vec::new(),
+        batch_cells: std::collections::HashMap::new(),
         tol,
         changed_edges: Vec::new(),
         split_scratch: Vec::new(),

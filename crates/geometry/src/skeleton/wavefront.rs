@@ -1,5 +1,7 @@
 //! The wavefront: cycles of moving vertices joined by pieces of wall lines.
 
+use std::collections::HashMap;
+
 use glam::DVec2;
 
 use super::lines::WallLine;
@@ -111,6 +113,9 @@ pub(crate) struct Wavefront {
     /// Nodes made during the current batch of events, so two vertices
     /// stopping at one point share one node.
     pub batch_nodes: Vec<NodeId>,
+    /// The batch's nodes by plan cell, so finding one near a point does
+    /// not search them all.
+    pub batch_cells: HashMap<(i64, i64), Vec<NodeId>>,
     /// Tolerances.
     pub tol: Tolerance,
     /// Edge pieces added or given a new end since the split index last
@@ -155,11 +160,34 @@ impl Wavefront {
     /// at the same point and height.
     pub fn add_node(&mut self, pos: DVec2, time: f64) -> NodeId {
         let near = 4.0 * self.tol.point;
-        let found = self.batch_nodes.iter().copied().find(|&n| {
-            self.nodes
-                .get(n)
-                .is_some_and(|x| (x.pos - pos).length() <= near && (x.time - time).abs() <= self.tol.time)
-        });
+        if self.batch_nodes.is_empty() && !self.batch_cells.is_empty() {
+            self.batch_cells.clear();
+        }
+        // A node within `near` lies in one of the nine cells round `pos`
+        // (cells of side `2 * near`, so rounding cannot push it further);
+        // the earliest of them is the one a search in order finds.
+        let cell = 2.0 * near;
+        let key = |p: DVec2| ((p.x / cell).floor() as i64, (p.y / cell).floor() as i64);
+        let (cx, cy) = key(pos);
+        let mut found: Option<NodeId> = None;
+        for dx in -1i64..=1 {
+            for dy in -1i64..=1 {
+                let Some(list) = self.batch_cells.get(&(cx.wrapping_add(dx), cy.wrapping_add(dy))) else {
+                    continue;
+                };
+                for &n in list {
+                    if found.is_some_and(|f| f <= n) {
+                        break;
+                    }
+                    let hit = self.nodes.get(n).is_some_and(|x| {
+                        (x.pos - pos).length() <= near && (x.time - time).abs() <= self.tol.time
+                    });
+                    if hit {
+                        found = Some(n);
+                    }
+                }
+            }
+        }
         if let Some(n) = found {
             return n;
         }
@@ -171,6 +199,7 @@ impl Wavefront {
         let id = self.nodes.len() - 1;
         if time > 0.0 {
             self.batch_nodes.push(id);
+            self.batch_cells.entry(key(pos)).or_default().push(id);
         }
         id
     }
