@@ -93,6 +93,16 @@ pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
         FramingWarning::HipsMeetWithoutRidge { .. } => {
             "hips meet at a point with no ridge: their tops need a fitted block or hub".to_string()
         }
+        FramingWarning::ShortMemberLeftOut { left_out, length_in, .. } => format!(
+            "a {} only {} long between two nodes is left out: fit this end there by hand, with a block where needed",
+            if *left_out == MemberKind::Valley { "valley" } else { "hip" },
+            length(*length_in)
+        ),
+        FramingWarning::HipCutLevelAtPlate { cut_in, .. } => format!(
+            "runs so low beside a wall it would go into the plate: cut its lower edge level with the top \
+             of plate, up to {} off its depth; walls nearly in line often cause this",
+            length(*cut_in)
+        ),
     }
 }
 

@@ -7,7 +7,7 @@ mod framing_support;
 
 use framing_support::parry_fit;
 use glam::dvec2;
-use pitchframe_geometry::framing::{Frame, FramingSettings, MemberKind, frame_roof};
+use pitchframe_geometry::framing::{Frame, FramingSettings, FramingWarning, MemberKind, frame_roof};
 use pitchframe_geometry::{Outline, Roof, Wall, WallRoof, check_roof};
 
 /// One wall: its first corner, rise per run (0 for a gable) and overhang.
@@ -135,5 +135,126 @@ fn an_overlap_is_read_where_the_pieces_meet_not_along_a_far_board() {
             j.members,
             j.max_overlap
         );
+    }
+}
+
+/// Seed 120: a block whose west side is three walls a hair out of line
+/// (x = 0, -0.03, 0), making long roof planes a fraction of an inch wide
+/// beside them, with mixed pitches. (The seed made wall 2 a gable 0.36
+/// degrees off wall 1's line, which outlines now refuse; here it is
+/// pitched as wall 1 is. The west side is as the seed drew it.)
+#[rustfmt::skip]
+const SEED_120: [WallRow; 12] = [
+    (0.0, 64.98620714584081, 0.25, 13.0),
+    (174.57897629897877, 64.98620714584081, 0.42001756631087933, 13.0),
+    (174.26556088723535, 146.21653709412405, 0.42001756631087933, 22.0),
+    (174.57897629897877, 271.31552497099034, 0.16666666666666666, 19.0),
+    (276.680828398136, 271.39553426469746, 0.3333333333333333, 18.0),
+    (349.15795259795755, 271.31552497099034, 1.0833333333333333, 4.0),
+    (349.1359275091018, 320.14349136641636, 1.0833333333333333, 16.0),
+    (349.15795259795755, 341.1256683118342, 0.16666666666666666, 15.0),
+    (349.15795259795755, 389.9928110536223, 1.5, 12.0),
+    (0.0, 389.9928110536223, 0.8333333333333334, 8.0),
+    (-0.02786758555291718, 284.7728754783284, 1.0165018664484917, 1.0),
+    (0.0, 232.13861942935392, 1.4166666666666667, 17.0),
+];
+
+#[test]
+fn a_hip_running_low_beside_a_wall_is_cut_level_with_the_plate() {
+    let frame = framed(&SEED_120, &[]);
+    // The hip from the top of the valley at (0.05, 266.80) runs 201 in
+    // south a tenth of an inch inside the west wall, its top under 1/4 in
+    // above the plates: its lower edge would go 7 in down into the wall's
+    // plate. Where the valley under it is notched over that plate, the
+    // hip's cheek met nothing and a gap of 0.44 in was read. Cut level
+    // with the top of plate, it bears on the plate and its cheek on the
+    // valley above it. Derivation.
+    let flagged: Vec<&str> = frame
+        .warnings
+        .iter()
+        .filter_map(|w| match w {
+            FramingWarning::HipCutLevelAtPlate { label, cut_in } => {
+                assert!(*cut_in > 0.0 && cut_in.is_finite());
+                Some(label.as_str())
+            }
+            _ => None,
+        })
+        .collect();
+    assert!(!flagged.is_empty());
+    for p in frame.pieces.iter().filter(|p| flagged.contains(&p.label.as_str())) {
+        assert_eq!(p.kind, MemberKind::Hip);
+        let lowest = p.solid.vertices().map(|v| v.z).fold(f64::INFINITY, f64::min);
+        assert!(lowest > -1e-6, "{} reaches {lowest} in below the plates' top", p.label);
+    }
+    let foot = dvec2(0.046_612_367, 266.796_437_859);
+    let on_valley: Vec<_> = frame
+        .joints
+        .iter()
+        .filter(|j| frame.pieces[j.pieces[0]].kind == MemberKind::Hip)
+        .filter(|j| frame.pieces[j.pieces[1]].kind == MemberKind::Valley)
+        .filter(|j| frame.pieces[j.pieces[0]].plan_line[0].distance(foot) < 1e-6)
+        .collect();
+    assert_eq!(on_valley.len(), 1);
+    assert!(flagged.contains(&frame.pieces[on_valley[0].pieces[0]].label.as_str()));
+    for j in on_valley {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        // The valley's half on the wall's side is a wedge under 0.05 in
+        // wide that parry cannot hull; the hip must hull.
+        if parry_fit::measurable(&frame, j.pieces[0], j.pieces[1]) {
+            let (gap, overlap, mating) = parry_fit::fit(&frame, j.pieces[0], j.pieces[1]);
+            assert!(
+                mating >= 1 && gap < FIT_IN && overlap < FIT_IN,
+                "{:?}: parry {gap} / {overlap}",
+                j.members
+            );
+        } else {
+            assert!(parry_fit::measurable(&frame, j.pieces[0], j.pieces[0]));
+        }
+    }
+}
+
+/// Seed 108: a 1052 in x 160 in block, all 18/12, with two wings north,
+/// the east one 160.79 in wide, a hair wider than the block is deep.
+#[rustfmt::skip]
+const SEED_108: [WallRow; 10] = [
+    (0.0, 329.9923658103066, 1.5, 14.0),
+    (208.75188655617586, 329.9923658103066, 1.5, 0.0),
+    (208.75188655617586, 159.9747539450657, 1.5, 3.0),
+    (435.84455154429884, 159.9747539450657, 1.5, 12.0),
+    (435.84455154429884, 329.9923658103066, 1.5, 18.0),
+    (596.6357708291057, 329.9923658103066, 1.5, 18.0),
+    (596.6357708291057, 159.9747539450657, 1.5, 14.0),
+    (1052.017944010221, 159.9747539450657, 1.5, 16.0),
+    (1052.017944010221, 0.0, 1.5, 17.0),
+    (0.0, 0.0, 1.5, 12.0),
+];
+
+#[test]
+fn a_hip_shorter_than_its_thickness_is_left_out_and_flagged() {
+    let frame = framed(&SEED_108, &[]);
+    // The east wing (160.79 in wide) stands 0.61 in above the block's
+    // ridge (159.97 in deep), both at 18/12. Its valleys reach the
+    // block's ridge 160.79 - 159.97 = 0.82 in apart, and from each a hip
+    // rises at 45 degrees in plan to the wing ridge's end, 0.41 in each
+    // way: a plan run of 0.41 x sqrt 2 = 0.58 in, under the hip's 1-1/2
+    // in thickness (default settings). Derivation.
+    let hip_t = FramingSettings::default().hip.thickness_in;
+    for p in frame.pieces.iter().filter(|p| matches!(p.kind, MemberKind::Hip | MemberKind::Valley)) {
+        let run = p.plan_line[0].distance(p.plan_line[1]);
+        assert!(run >= hip_t, "{} is {run} in long in plan", p.label);
+    }
+    let left_out: Vec<f64> = frame
+        .warnings
+        .iter()
+        .filter_map(|w| match w {
+            FramingWarning::ShortMemberLeftOut { left_out: MemberKind::Hip, length_in, .. } => {
+                Some(*length_in)
+            }
+            _ => None,
+        })
+        .collect();
+    assert!(!left_out.is_empty());
+    for length_in in left_out {
+        assert!((length_in - 0.408 * 2f64.sqrt()).abs() < 0.01, "{length_in}");
     }
 }

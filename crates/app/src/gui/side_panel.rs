@@ -2,7 +2,7 @@
 //! the picked member's lengths and cuts, and the colour legend.
 
 use egui::{Color32, RichText};
-use pitchframe_geometry::framing::{Cut, CutEnd, FramingWarning, SawKind};
+use pitchframe_geometry::framing::{Cut, CutEnd, FramingWarning, MemberKind, SawKind};
 use pitchframe_geometry::{Length, Member, Pitch, Plan, RafterTable};
 
 use super::derived::{Derived, WALL_HEIGHT_IN, WALL_THICKNESS_IN};
@@ -207,6 +207,16 @@ fn warning_text(units: DisplayUnits, warning: &FramingWarning) -> String {
         FramingWarning::HipsMeetWithoutRidge { .. } => {
             "Hips meet with no ridge: the tops are cut plumb at the peak and need a fitted block".to_owned()
         }
+        FramingWarning::ShortMemberLeftOut { left_out, length_in, .. } => format!(
+            "A {} only {} long between two nodes is left out: fit this end there by hand, with a block where needed",
+            if *left_out == MemberKind::Valley { "valley" } else { "hip" },
+            inches_text(units, *length_in)
+        ),
+        FramingWarning::HipCutLevelAtPlate { cut_in, .. } => format!(
+            "Runs so low beside a wall it would go into the plate: its lower edge is cut level with the \
+             top of plate, up to {} off its depth; walls nearly in line often cause this",
+            inches_text(units, *cut_in)
+        ),
     }
 }
 

@@ -6,7 +6,7 @@ use glam::{DVec2, DVec3};
 use super::board::{BoardFrame, PieceSpec, SeatWall};
 use super::layout::{EdgeKind, King, PlanLine, RafterLine};
 use super::plane_frame::{PLAN_TOL_IN, PlaneFrame};
-use super::{CutEnd, FaceTag, FramingSettings, HalfSpace, HipTop, MemberKind, TailCut};
+use super::{BoardSize, CutEnd, FaceTag, FramingSettings, HalfSpace, HipTop, MemberKind, TailCut};
 use crate::RoofLineKind;
 
 /// Lengths within this of a stock length fit it: layouts in whole spaces
@@ -451,6 +451,37 @@ impl Ctx<'_> {
             .collect()
     }
 
+    /// Whether a member on `frame` (plan run `run`) dips below the plates'
+    /// top where it is over the plate of either plane's wall: between the
+    /// wall line and the plate's inner face, one seat width in.
+    pub fn hangs_into_plate(
+        &self,
+        frame: &BoardFrame,
+        size: BoardSize,
+        run: f64,
+        sides: [&PlaneFrame; 2],
+    ) -> bool {
+        // Plan distance per unit length along the member.
+        let plan_per_length = frame.along.truncate().length();
+        if !(plan_per_length > 1e-9 && run.is_finite()) {
+            return false;
+        }
+        // The lower edge's centre drops `depth / up.z` plumb below the top.
+        let plumb_depth = if frame.up.z > 1e-9 { size.depth_in / frame.up.z } else { return false };
+        // Sampled every inch or less of plan, finer than any plate band.
+        let samples = (run.ceil() as usize).clamp(1, 100_000);
+        (0..=samples).any(|k| {
+            let s = run * k as f64 / samples as f64 / plan_per_length;
+            let p = frame.origin + frame.along * s;
+            let below = p.z - plumb_depth < -PLAN_TOL_IN;
+            below
+                && sides.iter().any(|w| {
+                    let d = w.dist_in(p.truncate());
+                    (-size.thickness_in / 2.0..=self.settings.seat_width_in).contains(&d)
+                })
+        })
+    }
+
     /// The plane of a hip or valley on its left and right, looking up it.
     pub fn sides(&self, line: &PlanLine) -> Option<(usize, usize)> {
         let dir = (line.to - line.from).try_normalize()?;
@@ -600,6 +631,13 @@ impl Ctx<'_> {
         }
         let has_tail = seated && pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
         let mut lower_cuts = foot_cuts;
+        if !seated && self.hangs_into_plate(&frame, size, run, [pl, pr]) {
+            // A hip up on the roof so low near a wall that its lower edge
+            // would run down into the wall's plate (a long narrow plane
+            // beside the wall): cut level with the plate's top, as the
+            // hips and valleys seated there are notched, and flagged.
+            lower_cuts.extend(HalfSpace::through(DVec3::ZERO, -DVec3::Z, FaceTag::Seat, Some(CutEnd::Seat)));
+        }
         if has_tail {
             lower_cuts.extend(self.fascia_side_tail(pl));
             lower_cuts.extend(self.fascia_side_tail(pr));

@@ -11,7 +11,7 @@ use super::joints::{Joint, check_fit, part_bounds};
 use super::labels::label_pieces;
 use super::layout::{PlanLine, RafterLine, rafter_lines};
 use super::measure::{Measured, measure};
-use super::plane_frame::{PLAN_TOL_IN, PlaneFrame};
+use super::plane_frame::{PLAN_TOL_IN, PlaneFrame, distance_to_segment};
 use super::{
     CutEnd, FaceTag, FramingError, FramingSettings, FramingWarning, HalfSpace, Heel, Member, MemberKind,
     PlacedPiece, Solid, TailCut,
@@ -181,7 +181,25 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
 
     // Hips and valleys.
     let mut line_piece: Vec<Option<usize>> = vec![None; lines.len()];
+    // A hip or valley shorter in plan than its own thickness would be a
+    // wedge of a fraction of an inch: it is not cut, and the members
+    // meeting it are flagged to be fitted at the node by hand.
+    let mut left_out: Vec<Option<(MemberKind, f64)>> = vec![None; lines.len()];
     for (li, line) in lines.iter().enumerate() {
+        let (kind, thickness) = match line.kind {
+            RoofLineKind::Hip => (MemberKind::Hip, settings.hip.thickness_in),
+            RoofLineKind::Valley => (MemberKind::Valley, settings.valley.thickness_in),
+            RoofLineKind::Ridge => continue,
+        };
+        let run = line.from.distance(line.to);
+        if run < thickness {
+            left_out[li] = Some((kind, run));
+        }
+    }
+    for (li, line) in lines.iter().enumerate() {
+        if left_out[li].is_some() {
+            continue;
+        }
         let built = match line.kind {
             RoofLineKind::Hip => ctx.hip_spec(line, &rafter_piece),
             RoofLineKind::Valley => ctx.valley_spec(line),
@@ -198,9 +216,33 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         if peak_without_ridge {
             warnings_extra.push((index, FramingWarning::HipsMeetWithoutRidge { label: String::new() }));
         }
+        if let Some(cut_in) = plate_level_cut(&spec) {
+            warnings_extra.push((index, FramingWarning::HipCutLevelAtPlate { label: String::new(), cut_in }));
+        }
         specs.push(spec);
     }
 
+    // Flag every piece cut against a left-out line, or ending (a ridge:
+    // running) at either of its nodes.
+    for (li, line) in lines.iter().enumerate() {
+        let Some((kind, length_in)) = left_out[li] else { continue };
+        let at_node =
+            |p: DVec2| p.distance(line.from) < PLAN_TOL_IN * 1e3 || p.distance(line.to) < PLAN_TOL_IN * 1e3;
+        for (i, spec) in specs.iter().enumerate() {
+            let [a, b] = spec.plan_line;
+            let meets = at_node(a)
+                || at_node(b)
+                || (spec.kind == MemberKind::Ridge
+                    && [line.from, line.to]
+                        .iter()
+                        .any(|n| distance_to_segment(*n, a, b) < PLAN_TOL_IN * 1e3))
+                || joint_specs.iter().any(|j| j.cut == i && j.bearing == Bearing::Line(li));
+            let w = FramingWarning::ShortMemberLeftOut { label: String::new(), left_out: kind, length_in };
+            if meets && !warnings_extra.iter().any(|(k, x)| *k == i && *x == w) {
+                warnings_extra.push((i, w));
+            }
+        }
+    }
     // Bearings named by roof line become pieces now that all are built.
     let joint_specs: Vec<ResolvedJoint> = joint_specs
         .into_iter()
@@ -333,6 +375,12 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             FramingWarning::HipsMeetWithoutRidge { .. } => {
                 FramingWarning::HipsMeetWithoutRidge { label: labels.labels[i].clone() }
             }
+            FramingWarning::ShortMemberLeftOut { left_out, length_in, .. } => {
+                FramingWarning::ShortMemberLeftOut { label: labels.labels[i].clone(), left_out, length_in }
+            }
+            FramingWarning::HipCutLevelAtPlate { cut_in, .. } => {
+                FramingWarning::HipCutLevelAtPlate { label: labels.labels[i].clone(), cut_in }
+            }
             other => other,
         };
         piece_warnings[i].push(w);
@@ -431,6 +479,18 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         })
         .collect();
     Ok(Frame { members, pieces, joints: joints.into_iter().map(|(j, _)| j).collect(), warnings })
+}
+
+/// How much a level cut at the plates' top takes off an unseated member's
+/// lower edge (plumb, at its lower end, where it is lowest), if it has one.
+fn plate_level_cut(spec: &PieceSpec) -> Option<f64> {
+    let level = spec.seat.is_empty()
+        && spec.lower_cuts.iter().any(|h| h.tag == FaceTag::Seat && h.normal.z < -1.0 + 1e-12);
+    if !level || spec.frame.up.z <= 1e-9 {
+        return None;
+    }
+    let plumb_depth = spec.size.depth_in / spec.frame.up.z;
+    Some((plumb_depth - spec.frame.origin.z).max(0.0))
 }
 
 /// The items whose index maps to a new one.

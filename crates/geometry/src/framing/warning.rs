@@ -2,7 +2,7 @@
 
 use serde::Serialize;
 
-use super::CutEnd;
+use super::{CutEnd, MemberKind};
 
 /// Which saw a bevel warning is about.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
@@ -68,6 +68,29 @@ pub enum FramingWarning {
         /// The longest stock, inches.
         longest_stock_in: f64,
     },
+    /// A hip starting up on the roof runs so low beside a wall (a long
+    /// narrow roof plane along it) that its lower edge would go down into
+    /// the wall's plate: it is cut level with the top of plate along its
+    /// length, losing up to `cut_in` of its depth there, and bears on the
+    /// plate. Check the plan: walls nearly in line often make such planes.
+    HipCutLevelAtPlate {
+        /// The hip.
+        label: String,
+        /// The most the level cut takes off, plumb, inches.
+        cut_in: f64,
+    },
+    /// A hip or valley between two nodes closer together than its own
+    /// thickness (a fraction of an inch on an irregular plan) is not cut:
+    /// this member's end there was cut to where that piece would be, and
+    /// is fitted at the node by hand, with a block where the gap needs one.
+    ShortMemberLeftOut {
+        /// The member whose end meets the left-out piece.
+        label: String,
+        /// What the left-out piece would have been.
+        left_out: MemberKind,
+        /// Its plan length, inches.
+        length_in: f64,
+    },
     /// Hips meet at a point with no ridge (a peak, or where two hips merge
     /// into one on an irregular plan): the ends there are cut plumb, square
     /// to the hip, at the theoretical point, and need a fitted block or hub.
@@ -84,7 +107,9 @@ impl FramingWarning {
             Self::NotchTooDeep { label, .. }
             | Self::BevelBeyondSaw { label, .. }
             | Self::StockLengthExceeded { label, .. }
-            | Self::HipsMeetWithoutRidge { label } => label,
+            | Self::HipsMeetWithoutRidge { label }
+            | Self::HipCutLevelAtPlate { label, .. }
+            | Self::ShortMemberLeftOut { label, .. } => label,
             Self::HipTooShallow { jack, .. } => jack,
             Self::RidgeTooShallow { rafter, .. } => rafter,
         }

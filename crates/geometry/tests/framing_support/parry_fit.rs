@@ -11,6 +11,12 @@ fn v(p: glam::DVec3) -> Vector {
 }
 
 fn hulls(piece: &PlacedPiece) -> Vec<ConvexPolyhedron> {
+    try_hulls(piece).unwrap_or_else(|| panic!("{} part is not a hull", piece.label))
+}
+
+/// Each part's hull, or `None` where parry cannot make one (a wedge
+/// thinner than its round-off, beside a wall a hair out of line).
+fn try_hulls(piece: &PlacedPiece) -> Option<Vec<ConvexPolyhedron>> {
     piece
         .solid
         .parts
@@ -18,9 +24,14 @@ fn hulls(piece: &PlacedPiece) -> Vec<ConvexPolyhedron> {
         .map(|part| {
             let pts: Vec<Vector> = part.vertices.iter().map(|p| v(*p)).collect();
             ConvexPolyhedron::from_convex_hull(&pts)
-                .unwrap_or_else(|| panic!("{} part is not a hull", piece.label))
         })
         .collect()
+}
+
+/// Whether parry can make a hull of every part of both pieces, so that
+/// [`fit`] can measure their joint.
+pub fn measurable(frame: &Frame, cut: usize, bearing: usize) -> bool {
+    try_hulls(&frame.pieces[cut]).is_some() && try_hulls(&frame.pieces[bearing]).is_some()
 }
 
 /// Largest gap and overlap of one joint, and how many mating faces were
