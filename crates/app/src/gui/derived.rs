@@ -5,7 +5,8 @@
 use std::sync::Arc;
 use std::time::Duration;
 
-use pitchframe_geometry::{CornerName, OutlineError, Plan, Roof, RoofError, WallName};
+use pitchframe_geometry::framing::FramingSettings;
+use pitchframe_geometry::{CornerName, Outline, OutlineError, Plan, PlanError, Roof, RoofError, WallName};
 
 use super::framer::{Framed, Framer};
 use super::retire::retire;
@@ -88,15 +89,7 @@ impl Derived {
         self.live_plan = None;
         self.last_number += 1;
         self.shown_number = self.last_number;
-        let outline = match plan.outline() {
-            Ok(outline) => outline,
-            Err(err) => {
-                self.problem = Some(Problem { walls: outline_walls(plan, &err), message: err.to_string() });
-                return;
-            }
-        };
-        let settings = plan.framing_settings();
-        self.settings_error = settings.as_ref().err().map(ToString::to_string);
+        let Some((outline, settings)) = self.outline_and_settings(plan) else { return };
         let scene = Scene::build(&outline, settings.as_ref().ok(), WALL_HEIGHT_IN, WALL_THICKNESS_IN);
         let problem =
             scene.roof_error.as_ref().map(|err| Problem { message: err.to_string(), walls: roof_walls(err) });
@@ -119,15 +112,7 @@ impl Derived {
             self.update(plan);
             return;
         };
-        let outline = match plan.outline() {
-            Ok(outline) => outline,
-            Err(err) => {
-                self.problem = Some(Problem { walls: outline_walls(plan, &err), message: err.to_string() });
-                return;
-            }
-        };
-        let settings = plan.framing_settings();
-        self.settings_error = settings.as_ref().err().map(ToString::to_string);
+        let Some((outline, settings)) = self.outline_and_settings(plan) else { return };
         match Roof::solve(&outline) {
             Ok(roof) => {
                 self.problem = None;
@@ -141,6 +126,21 @@ impl Derived {
             // As in `update`, the last roof that solved stays on screen.
             Err(err) => self.problem = Some(Problem { message: err.to_string(), walls: roof_walls(&err) }),
         }
+    }
+
+    /// The plan's outline and framing settings, noting what is wrong with
+    /// either; `None` when the outline itself is at fault.
+    fn outline_and_settings(&mut self, plan: &Plan) -> Option<(Outline, Result<FramingSettings, PlanError>)> {
+        let outline = match plan.outline() {
+            Ok(outline) => outline,
+            Err(err) => {
+                self.problem = Some(Problem { walls: outline_walls(plan, &err), message: err.to_string() });
+                return None;
+            }
+        };
+        let settings = plan.framing_settings();
+        self.settings_error = settings.as_ref().err().map(ToString::to_string);
+        Some((outline, settings))
     }
 
     /// Takes in what the framing thread has finished. When the frame of a
