@@ -259,6 +259,19 @@ fn edge_mark(view: &MemberView, face: CutFace, edge_y: f64) -> Option<CutMark> {
     })
 }
 
+/// A cheek cut's notes: how far it is shortened, then what its mark on
+/// the top drawing says, if anything.
+fn cheek_notes(
+    deduction_in: f64,
+    top_mark: Option<(CutMark, Option<String>)>,
+    style: LengthStyle,
+) -> Vec<String> {
+    let shortened = Length::from_inches(deduction_in).format(style);
+    std::iter::once(format!("shortened {shortened} from the theoretical end"))
+        .chain(top_mark.and_then(|(_, note)| note))
+        .collect()
+}
+
 /// Where a cheek cut's line is marked on the top view: on the arris it
 /// meets, running across the top, with the square's other figure landing
 /// on the stock (the face of `square`'s cut nearest `top_line_deg` at the
@@ -581,12 +594,7 @@ fn card_cuts(
                     angles: Some(cut_angles(face)),
                     mark: None,
                     top_mark: top_mark.as_ref().map(|(mark, _)| *mark),
-                    notes: std::iter::once(format!(
-                        "shortened {} from the theoretical end",
-                        length(*deduction_in)
-                    ))
-                    .chain(top_mark.and_then(|(_, note)| note))
-                    .collect(),
+                    notes: cheek_notes(*deduction_in, top_mark, style),
                 });
             }
             Cut::DoubleCheek { end, left, right, deduction_in, .. } => {
@@ -619,12 +627,7 @@ fn card_cuts(
                         angles: Some(cut_angles(face)),
                         mark: None,
                         top_mark: top_mark.as_ref().map(|(mark, _)| *mark),
-                        notes: std::iter::once(format!(
-                            "shortened {} from the theoretical end",
-                            length(*deduction_in)
-                        ))
-                        .chain(top_mark.and_then(|(_, note)| note))
-                        .collect(),
+                        notes: cheek_notes(*deduction_in, top_mark, style),
                     });
                 }
             }
