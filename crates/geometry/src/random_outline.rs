@@ -9,7 +9,7 @@
 
 use glam::DVec2;
 
-use crate::{Outline, OutlineError, Wall, WallRoof};
+use crate::{GABLE_TURN_MIN_DEG, Outline, OutlineError, Wall, WallRoof};
 
 /// Which family of outlines to draw from.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -445,6 +445,9 @@ fn roof_walls(points: &[DVec2], features: OutlineFeatures, rng: &mut SplitMix64)
             }
         }
     }
+    if features.gables {
+        carry_gables_round_slight_turns(points, &mut roofs);
+    }
     if roofs.iter().all(|r| *r == WallRoof::Gable) {
         roofs = vec![WallRoof::Pitched { rise_per_run: common }; n];
     }
@@ -453,6 +456,37 @@ fn roof_walls(points: &[DVec2], features: OutlineFeatures, rng: &mut SplitMix64)
         .zip(roofs)
         .map(|(&corner, roof)| Wall { corner, roof, overhang_in: rng.range(0.0, 24.0).round() })
         .collect()
+}
+
+/// Makes a gable's neighbour a gable too where the two walls turn by less
+/// than [`GABLE_TURN_MIN_DEG`]: a wall bent by a hair is one wall to the
+/// person drawing it, who gives both halves the gable, where a gable beside
+/// a pitched wall so nearly in line is refused by [`Outline::new`].
+fn carry_gables_round_slight_turns(points: &[DVec2], roofs: &mut [WallRoof]) {
+    let n = points.len();
+    let slight = |i: usize| {
+        let into = points[i] - points[(i + n - 1) % n];
+        let out = points[(i + 1) % n] - points[i];
+        let sine = into.perp_dot(out).abs() / (into.length() * out.length());
+        into.dot(out) > 0.0 && sine < GABLE_TURN_MIN_DEG.to_radians().sin()
+    };
+    // Corner i joins wall i - 1 to wall i; each pass carries a gable one
+    // wall further along a run of slight turns, so n passes settle it.
+    for _ in 0..n {
+        let mut changed = false;
+        for i in 0..n {
+            let before = (i + n - 1) % n;
+            let one_gable = (roofs[before] == WallRoof::Gable) != (roofs[i] == WallRoof::Gable);
+            if one_gable && slight(i) {
+                roofs[before] = WallRoof::Gable;
+                roofs[i] = WallRoof::Gable;
+                changed = true;
+            }
+        }
+        if !changed {
+            break;
+        }
+    }
 }
 
 /// A pitch from 2 in 12 to 18 in 12, mostly whole inches of rise.
@@ -553,5 +587,33 @@ mod tests {
             }
         }
         assert!((1.0..4.0).contains(&shortest_ratio), "{shortest_ratio}");
+    }
+
+    #[test]
+    fn bent_walls_with_gables_are_drawn_as_a_person_would() {
+        // A gable beside a pitched wall turned by less than a degree is
+        // refused by `Outline::new`; the generator gives both halves of a
+        // bent wall the gable instead, so such draws are neither refused
+        // nor thrown away, while gables next to bent walls still appear.
+        let features = OutlineFeatures { near_parallel: true, gables: true, ..OutlineFeatures::PLAIN };
+        let mut gabled_bends = 0;
+        for seed in 0..400 {
+            for shape in [OutlineShape::Orthogonal, OutlineShape::Star] {
+                let outline = random_outline_or_refusal(shape, seed, features)
+                    .unwrap_or_else(|e| panic!("seed {seed} {shape:?}: {e}"));
+                let walls = outline.outer();
+                let n = walls.len();
+                for i in 0..n {
+                    let (prev, wall, next) = (&walls[(i + n - 1) % n], &walls[i], &walls[(i + 1) % n]);
+                    let (into, out) = (wall.corner - prev.corner, next.corner - wall.corner);
+                    let sine = into.perp_dot(out).abs() / (into.length() * out.length());
+                    let both_gables = prev.roof == WallRoof::Gable && wall.roof == WallRoof::Gable;
+                    if into.dot(out) > 0.0 && sine > 1e-6 && sine < 0.01 && both_gables {
+                        gabled_bends += 1;
+                    }
+                }
+            }
+        }
+        assert!(gabled_bends > 20, "{gabled_bends}");
     }
 }
