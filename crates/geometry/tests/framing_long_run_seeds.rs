@@ -258,3 +258,78 @@ fn a_hip_shorter_than_its_thickness_is_left_out_and_flagged() {
         assert!((length_in - 0.408 * 2f64.sqrt()).abs() < 0.01, "{length_in}");
     }
 }
+
+/// Seed 366: a U of two wings round a courtyard, mixed pitches; walls 0,
+/// 1 and 6 are gables.
+#[rustfmt::skip]
+const SEED_366: [WallRow; 12] = [
+    (0.0, 443.34279055581635, 0.0, 1.0),
+    (728.941760571645, 443.34279055581635, 0.0, 15.0),
+    (728.941760571645, 295.56186037054425, 1.3333333333333333, 10.0),
+    (862.6425353964869, 295.56186037054425, 0.9166666666666666, 12.0),
+    (862.6425353964869, 147.78093018527213, 1.4166666666666667, 7.0),
+    (728.941760571645, 147.78093018527213, 0.9166666666666666, 3.0),
+    (728.941760571645, 0.0, 0.0, 3.0),
+    (488.1923131578649, 0.0, 0.8333333333333334, 15.0),
+    (488.1923131578649, 147.78093018527213, 1.0833333333333333, 12.0),
+    (266.52961295504315, 147.78093018527213, 1.1127127425365986, 8.0),
+    (266.52961295504315, 0.0, 0.8333333333333334, 20.0),
+    (0.0, 0.0, 0.5, 3.0),
+];
+
+#[rustfmt::skip]
+const SEED_366_COURTYARD: [WallRow; 4] = [
+    (409.0433800107727, 164.4437467055757, 1.25, 7.0),
+    (459.18983895684676, 164.4437467055757, 1.1666666666666667, 10.0),
+    (459.18983895684676, 223.08244086650714, 0.8333333333333334, 3.0),
+    (409.0433800107727, 223.08244086650714, 0.16666666666666666, 15.0),
+];
+
+#[test]
+fn a_hip_with_a_king_on_one_side_only_is_cut_to_the_ridge_beside_it() {
+    let frame = framed(&SEED_366, &[&SEED_366_COURTYARD]);
+    // The hip between wall 8's plane and the courtyard's west wall's plane
+    // rises west from (351.02, 156.71) to the node (241.42, 173.57), where
+    // the ridge between wall 9's plane and the courtyard's west plane runs
+    // south along x = 241.42 and the valley between walls 8 and 9 also
+    // ends. Only the courtyard's side has a king there (along y = 173.57,
+    // on the ridge's east face); wall 8's side has the valley instead.
+    // Cut to the king alone, the hip's top ran 0.69 in past the ridge's
+    // east face (x = 241.42 + 3/4 in) into the ridge. Its top must bear on
+    // the king and on that face, with no corner west of it. Derivation.
+    let node = dvec2(241.423, 173.569);
+    let hip = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::Hip
+                && p.plan_line[1].distance(node) < 0.01
+                && p.plan_line[0].distance(dvec2(351.021, 156.707)) < 0.01
+        })
+        .expect("the hip rising west to the node");
+    let ridge_face_x = 241.422_702_08 + FramingSettings::default().ridge.thickness_in / 2.0;
+    let westmost = frame.pieces[hip].solid.vertices().map(|v| v.x).fold(f64::INFINITY, f64::min);
+    assert!(
+        westmost > ridge_face_x - 1e-6,
+        "hip reaches x = {westmost}, the ridge's face is at {ridge_face_x}"
+    );
+    let mut bears_on = Vec::new();
+    for j in frame.joints.iter().filter(|j| j.pieces[0] == hip) {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        let kind = frame.pieces[j.pieces[1]].kind;
+        bears_on.push(kind);
+        // The top's two joints, by parry too. (The foot's cheek on the
+        // valley there is another case: parry reads 0.016 in of gap.)
+        let at_top = frame.pieces[j.pieces[1]].plan_line.iter().any(|p| (p.x - 241.422_702_08).abs() < 1e-6);
+        if kind == MemberKind::KingCommon || (kind == MemberKind::Ridge && at_top) {
+            let (gap, overlap, mating) = parry_fit::fit(&frame, j.pieces[0], j.pieces[1]);
+            assert!(
+                mating >= 1 && gap < FIT_IN && overlap < FIT_IN,
+                "{:?}: parry {gap} / {overlap}",
+                j.members
+            );
+        }
+    }
+    assert!(bears_on.contains(&MemberKind::KingCommon), "{bears_on:?}");
+    assert_eq!(bears_on.iter().filter(|k| **k == MemberKind::Ridge).count(), 2, "{bears_on:?}");
+}

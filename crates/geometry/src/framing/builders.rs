@@ -13,6 +13,11 @@ use crate::RoofLineKind;
 /// land splices exactly on stock lengths, and round-off must not tip them.
 pub const STOCK_TOL_IN: f64 = 1e-6;
 
+/// Two pieces' solids meet without running into each other while neither
+/// has a corner deeper than this inside the other, inches: far finer than
+/// the 1/64 in a joint is held to, coarser than round-off.
+const OVERLAP_TOL_IN: f64 = 1e-6;
+
 /// What a piece bears on, as known while pieces are still being built.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum Bearing {
@@ -598,6 +603,7 @@ impl Ctx<'_> {
                 None => peak_without_ridge = true,
             }
         }
+        let king_missing = peak_without_ridge;
         if upper_cuts.is_empty() {
             // A ridge starting where this hip ends (another hip rising on
             // from the node): the top keeps clear of it and bears on it.
@@ -670,7 +676,7 @@ impl Ctx<'_> {
         } else {
             Vec::new()
         };
-        let spec = PieceSpec {
+        let mut spec = PieceSpec {
             kind: MemberKind::Hip,
             size,
             frame,
@@ -684,7 +690,46 @@ impl Ctx<'_> {
             drop_in,
             plumb_square: hip_square(slope, pl, pr),
         };
+        if king_missing && !peak_without_ridge {
+            // One side's king is there, the other side has none (a valley
+            // comes up to the node on that side): the ridge running on
+            // from the node is beside the king, and the top is cut to it
+            // too wherever it would run into it.
+            self.clear_ridges_at_top(line, &mut spec, &mut bearings, -up_dir, mid);
+        }
         Some((spec, bearings, peak_without_ridge || foot_without_ridge))
+    }
+
+    /// Cuts a hip's top (`spec`) to the face of each ridge at its top node
+    /// that its body would otherwise run into, bearing on it there. `down`
+    /// is the hip's plan direction from the node, `toward` a point of it.
+    fn clear_ridges_at_top(
+        &self,
+        line: &PlanLine,
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        down: DVec2,
+        toward: DVec2,
+    ) {
+        for (k, other) in self.lines.iter().enumerate() {
+            if other.kind != RoofLineKind::Ridge || !other.touches(line.to) {
+                continue;
+            }
+            let solid = spec.solid();
+            let ridges: Vec<_> = self.ridge_specs(k, other).iter().map(PieceSpec::solid).collect();
+            let runs_in = ridges.iter().any(|r| {
+                solid.vertices().any(|v| r.depth_of(v) > OVERLAP_TOL_IN)
+                    || r.vertices().any(|v| solid.depth_of(v) > OVERLAP_TOL_IN)
+            });
+            if !runs_in {
+                continue;
+            }
+            if let Some(mut h) = self.ridge_face_at(k, line.to, down, toward, CutEnd::Top) {
+                h.tag = cut_tag(&h, &spec.frame);
+                spec.upper_cuts.push(h);
+                bearings.push((Bearing::Line(k), h));
+            }
+        }
     }
 
     /// A valley: its centre line in both planes, seated over the inside
