@@ -417,6 +417,7 @@ impl AppState {
                 units: self.units,
                 selected_wall: self.selected_wall,
                 selected_corner: self.selected_corner,
+                renderer,
             };
             plan_view_ui(&mut plan_ui, &input, &mut self.plan_view, &mut self.commands);
         }

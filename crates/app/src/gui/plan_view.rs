@@ -2,6 +2,8 @@
 //! and lengths, and the solved ridges, hips and valleys. Corners are
 //! dragged to move them, a double-click on a wall adds a corner there.
 
+use std::sync::{Arc, Mutex};
+
 use egui::{Color32, Pos2, Rect, Sense, Stroke, Vec2};
 use glam::DVec2;
 use pitchframe_geometry::{Length, Plan, RoofLineKind};
@@ -12,6 +14,7 @@ use super::edit::{PlanEdit, corner_in, locate, neighbours, ring, wall_count, wal
 use super::palette;
 use super::snap::Snap;
 use super::units::DisplayUnits;
+use super::viewport::{Renderer, fill_by_clearing};
 
 /// Room left round the drawing, in points, for the lengths written
 /// outside the walls.
@@ -135,6 +138,9 @@ pub struct PlanViewInput<'a> {
     pub selected_wall: Option<usize>,
     /// The selected corner (the wall starting there).
     pub selected_corner: Option<usize>,
+    /// The 3D view's renderer, when there is a GL context: the background
+    /// is then filled by clearing (see [`fill_by_clearing`]).
+    pub renderer: Option<&'a Arc<Mutex<Renderer>>>,
 }
 
 /// The name of the corner wall `wall` starts at, as people count it.
@@ -160,7 +166,12 @@ pub fn plan_view_ui(
     }
     zoom_and_pan(ui, &background, state);
     let painter = ui.painter_at(rect);
-    painter.rect_filled(rect, 0.0, ui.visuals().extreme_bg_color);
+    match input.renderer {
+        Some(renderer) => fill_by_clearing(&painter, renderer, rect, ui.visuals().extreme_bg_color),
+        None => {
+            painter.rect_filled(rect, 0.0, ui.visuals().extreme_bg_color);
+        }
+    }
     let plan = input.plan;
     let transform = state.frozen.unwrap_or_else(|| {
         let (min, max) = drawing_bounds(input);
