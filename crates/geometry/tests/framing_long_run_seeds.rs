@@ -333,3 +333,121 @@ fn a_hip_with_a_king_on_one_side_only_is_cut_to_the_ridge_beside_it() {
     assert!(bears_on.contains(&MemberKind::KingCommon), "{bears_on:?}");
     assert_eq!(bears_on.iter().filter(|k| **k == MemberKind::Ridge).count(), 2, "{bears_on:?}");
 }
+
+/// Seed 382: a block with a gable wing west and a square courtyard, all
+/// 7/12 but the courtyard's walls (0.88 rise per run).
+#[rustfmt::skip]
+const SEED_382: [WallRow; 8] = [
+    (0.0, 240.6202215026111, 0.5833333333333334, 10.0),
+    (127.69953793002426, 240.6202215026111, 0.5833333333333334, 22.0),
+    (127.69953793002426, 360.9303322539166, 0.0, 2.0),
+    (0.0, 360.9303322539166, 0.5833333333333334, 7.0),
+    (0.0, 481.2404430052222, 0.0, 11.0),
+    (358.0678629668596, 481.2404430052222, 0.5833333333333334, 4.0),
+    (358.0678629668596, 0.0, 0.5833333333333334, 22.0),
+    (0.0, 0.0, 0.5833333333333334, 20.0),
+];
+
+#[rustfmt::skip]
+const SEED_382_COURTYARD: [WallRow; 4] = [
+    (157.64228958781342, 349.62562416470627, 0.8796394681680416, 20.0),
+    (182.5626571556893, 349.62562416470627, 0.8796394681680416, 3.0),
+    (182.5626571556893, 331.9022156189557, 0.8796394681680416, 5.0),
+    (157.64228958781342, 331.9022156189557, 0.8796394681680416, 15.0),
+];
+
+#[test]
+fn a_ridge_ending_beside_a_valley_is_cut_back_to_the_valley() {
+    let frame = framed(&SEED_382, &[&SEED_382_COURTYARD]);
+    // The valley from the courtyard's north-west corner (157.64, 349.63)
+    // runs at 45 degrees in plan (equal pitches either side) north-west;
+    // the ridge along x = 145.70 ends at (145.70, 360.93), whose distance
+    // from the valley's centre line is |(-11.94) + 11.30| / sqrt 2 = 0.45
+    // in, inside the valley's 3/4 in half thickness: the ridge's square
+    // end ran into the valley, its east corner 0.08 in from the valley's
+    // centre line. It is cut back to the valley's side and bears on it.
+    // Derivation.
+    let corner = dvec2(157.642_289_587_813_42, 349.625_624_164_706_27);
+    let half = FramingSettings::default().valley.thickness_in / 2.0;
+    let ridge = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::Ridge
+                && p.plan_line.iter().all(|q| (q.x - 145.703).abs() < 0.01)
+                && p.plan_line.iter().any(|q| (q.y - 360.93).abs() < 0.01)
+        })
+        .expect("the ridge along x = 145.70");
+    for v in frame.pieces[ridge].solid.vertices() {
+        let off = ((v.x - corner.x) + (v.y - corner.y)).abs() / 2f64.sqrt();
+        assert!(off > half - 1e-6, "ridge corner {v} is {off} in from the valley's centre line");
+    }
+    let on_valley: Vec<_> = frame
+        .joints
+        .iter()
+        .filter(|j| j.pieces[0] == ridge && frame.pieces[j.pieces[1]].kind == MemberKind::Valley)
+        .collect();
+    assert_eq!(on_valley.len(), 1);
+    for j in on_valley.iter().copied().chain(frame.joints.iter().filter(|j| j.pieces[1] == ridge)) {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+    let (gap, overlap, mating) = parry_fit::fit(&frame, ridge, on_valley[0].pieces[1]);
+    assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "parry {gap} / {overlap}");
+}
+
+/// Seed 448: a long block with a small wing on its east end, walls 3 to
+/// 9 round the wing, mixed pitches.
+#[rustfmt::skip]
+const SEED_448: [WallRow; 13] = [
+    (0.0, 0.0, 0.8333333333333334, 9.0),
+    (95.04271605009401, 0.0, 0.8333333333333334, 20.0),
+    (200.74287856228386, 0.0, 0.8333333333333334, 1.0),
+    (467.73117498782403, 0.0, 0.25, 24.0),
+    (467.73117498782403, 35.22566518466822, 0.25, 8.0),
+    (467.73117498782403, 77.51295386485174, 0.8099478919722647, 7.0),
+    (413.29388531571436, 77.51295386485174, 1.4166666666666667, 14.0),
+    (413.29388531571436, 125.29523410336876, 0.5833333333333334, 6.0),
+    (443.3485254311736, 125.29523410336876, 0.5833333333333334, 5.0),
+    (467.73117498782403, 125.29523410336876, 0.16666666666666666, 8.0),
+    (467.73117498782403, 461.2688701180438, 0.5, 2.0),
+    (0.0, 461.2688701180438, 0.6666666666666666, 15.0),
+    (0.0, 390.56301286400253, 0.6666666666666666, 23.0),
+];
+
+#[test]
+fn a_valley_starting_up_on_the_roof_ends_at_its_foot() {
+    let frame = framed(&SEED_448, &[]);
+    // The valley between walls 0 and 5's planes starts at (406.04, 64.82),
+    // 10.3 in up, where the valley from the inside corner (413.29, 77.51)
+    // and the ridge along x = 406.04 end, and runs west-south-west to the
+    // ridge at y = 38.20. It has no seat: it was framed as if over a
+    // corner, running on past its foot through the ridge's end and the
+    // other valley down to x = 505 in. Its foot is now cut to the ridge's
+    // square end through the node (y = 64.82), the plane square to the
+    // ridge: the valley's far edge, 3/4 in off its centre line at
+    // atan(26.61 / 129.33) = 11.6 degrees to that plane, crosses it
+    // 0.75 / tan(11.6 deg) = 3.64 in back along the valley. Derivation.
+    let foot = dvec2(406.036, 64.818);
+    let top = dvec2(276.706, 38.205);
+    let up = (top - foot).normalize();
+    let valley = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Valley && p.plan_line[0].distance(foot) < 0.01)
+        .expect("the valley starting at (406.04, 64.82)");
+    let back = frame.pieces[valley]
+        .solid
+        .vertices()
+        .map(|v| (v.truncate() - foot).dot(up))
+        .fold(f64::INFINITY, f64::min);
+    assert!(back > -3.65, "the valley runs {} in past its foot", -back);
+    let on_ridge: Vec<_> = frame
+        .joints
+        .iter()
+        .filter(|j| j.pieces[0] == valley && frame.pieces[j.pieces[1]].kind == MemberKind::Ridge)
+        .collect();
+    assert_eq!(on_ridge.len(), 2, "the foot and the top each bear on a ridge");
+    for j in on_ridge {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+}

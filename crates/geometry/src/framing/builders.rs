@@ -5,7 +5,7 @@ use glam::{DVec2, DVec3};
 
 use super::board::{BoardFrame, PieceSpec, SeatWall};
 use super::layout::{EdgeKind, King, PlanLine, RafterLine};
-use super::plane_frame::{PLAN_TOL_IN, PlaneFrame};
+use super::plane_frame::{PLAN_TOL_IN, PlaneFrame, distance_to_segment};
 use super::{BoardSize, CutEnd, FaceTag, FramingSettings, HalfSpace, HipTop, MemberKind, TailCut};
 use crate::RoofLineKind;
 
@@ -221,6 +221,81 @@ impl Ctx<'_> {
         HalfSpace::through((node - into * e).extend(0.0), into.extend(0.0), FaceTag::Cheek, Some(end))
     }
 
+    /// The side faces of hips and valleys that a ridge's ends run into
+    /// without meeting them at a node (a ridge the solve ends a hair short
+    /// of a valley passing by), each with the line's index and whether it
+    /// is at the ridge's start: that end is cut back to the face and bears
+    /// on it. Not at a hip end, where kings bear on the ridge's end.
+    pub fn ridge_end_clearances(&self, line: &PlanLine) -> Vec<(usize, HalfSpace, bool)> {
+        let Some(dir) = (line.to - line.from).try_normalize() else {
+            return Vec::new();
+        };
+        let t = self.settings.ridge.thickness_in;
+        let top = self.ridge_top(line);
+        let bottom = top - self.settings.ridge.depth_in;
+        let len = line.from.distance(line.to);
+        let mut out = Vec::new();
+        for (node, out_dir, at_start) in [(line.from, -dir, true), (line.to, dir, false)] {
+            // A hip end's kings bear on the ridge's end where it is: left.
+            let hip_end = self
+                .lines
+                .iter()
+                .any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3);
+            // Nor at a node of a hip or valley too short to cut, fitted
+            // by hand (flagged).
+            let short_here = self.lines.iter().any(|l| {
+                let t = match l.kind {
+                    RoofLineKind::Hip => self.settings.hip.thickness_in,
+                    RoofLineKind::Valley => self.settings.valley.thickness_in,
+                    RoofLineKind::Ridge => return false,
+                };
+                l.from.distance(l.to) < t && l.touches(node)
+            });
+            if hip_end || short_here {
+                continue;
+            }
+            let end = node;
+            // Far enough back along the ridge to be clear of the member.
+            let inside = node - out_dir * (len / 2.0).min(12.0);
+            for (k, other) in self.lines.iter().enumerate() {
+                let (ot, od) = match other.kind {
+                    RoofLineKind::Hip => (self.settings.hip.thickness_in, self.settings.hip.depth_in),
+                    RoofLineKind::Valley => {
+                        (self.settings.valley.thickness_in, self.settings.valley.depth_in)
+                    }
+                    RoofLineKind::Ridge => continue,
+                };
+                if other.touches(node) || other.from.distance(other.to) < ot {
+                    continue;
+                }
+                let Some(odir) = (other.to - other.from).try_normalize() else { continue };
+                let corners = [end + dir.perp() * (t / 2.0), end - dir.perp() * (t / 2.0)];
+                let runs_in = corners.iter().any(|&c| {
+                    if distance_to_segment(c, other.from, other.to) >= ot / 2.0 - OVERLAP_TOL_IN {
+                        return false;
+                    }
+                    // Only where the boards are at one height there.
+                    let run = other.from.distance(other.to);
+                    let f = ((c - other.from).dot(odir) / run).clamp(0.0, 1.0);
+                    let o_top = self.heel + other.from_z + f * (other.to_z - other.from_z);
+                    let o_bottom = o_top - od * (1.0 + ((other.to_z - other.from_z) / run).powi(2)).sqrt();
+                    o_bottom < top && o_top > bottom
+                });
+                if !runs_in || distance_to_segment(inside, other.from, other.to) < ot / 2.0 {
+                    continue;
+                }
+                let end_tag = if at_start { CutEnd::Start } else { CutEnd::End };
+                if let Some(mut h) = side_face(other.from, other.to, ot, inside, FaceTag::Cheek, end_tag) {
+                    if h.normal.truncate().dot(dir).abs() > 1.0 - 1e-9 {
+                        h.tag = FaceTag::End;
+                    }
+                    out.push((k, h, at_start));
+                }
+            }
+        }
+        out
+    }
+
     /// The ridge's pieces, split so none is longer than the longest stock,
     /// splices on common-rafter lines where they fall right.
     pub fn ridge_specs(&self, li: usize, line: &PlanLine) -> Vec<PieceSpec> {
@@ -265,15 +340,27 @@ impl Ctx<'_> {
         let Some(frame0) = BoardFrame::new(line.from.extend(top), dir, 0.0) else {
             return Vec::new();
         };
+        let clearances = self.ridge_end_clearances(line);
+        let last = cuts_at.len().saturating_sub(2);
         cuts_at
             .windows(2)
-            .filter_map(|w| {
+            .enumerate()
+            .filter_map(|(k, w)| {
                 let (a, b) = (w[0], w[1]);
                 let pa = line.from + dir * a;
                 let pb = line.from + dir * b;
                 let lo =
                     HalfSpace::through(pa.extend(top), -frame0.along, FaceTag::End, Some(CutEnd::Start))?;
                 let hi = HalfSpace::through(pb.extend(top), frame0.along, FaceTag::End, Some(CutEnd::End))?;
+                let mut upper_cuts = vec![hi];
+                let mut lower_cuts = vec![lo];
+                for (_, h, at_start) in &clearances {
+                    match (*at_start, k == 0, k == last) {
+                        (true, true, _) => lower_cuts.push(*h),
+                        (false, _, true) => upper_cuts.push(*h),
+                        _ => {}
+                    }
+                }
                 Some(PieceSpec {
                     kind: MemberKind::Ridge,
                     size: self.settings.ridge,
@@ -281,8 +368,8 @@ impl Ctx<'_> {
                     plan_line: [pa, pb],
                     slope: 0.0,
                     top_planes: Vec::new(),
-                    upper_cuts: vec![hi],
-                    lower_cuts: vec![lo],
+                    upper_cuts,
+                    lower_cuts,
                     seat: Vec::new(),
                     has_tail: false,
                     drop_in: 0.0,
@@ -533,37 +620,7 @@ impl Ctx<'_> {
         let mut foot_without_ridge = false;
         let mut foot_cuts = Vec::new();
         if !seated {
-            for (k, other) in self.lines.iter().enumerate() {
-                // Hips meeting hips with no ridge are flagged for a fitted
-                // block instead (below).
-                let meets = match other.kind {
-                    RoofLineKind::Ridge => other.touches(line.from),
-                    RoofLineKind::Valley => {
-                        other.to.distance(line.from) < PLAN_TOL_IN * 1e3
-                            && other.from.distance(line.from) > PLAN_TOL_IN * 1e3
-                    }
-                    RoofLineKind::Hip => false,
-                };
-                if !meets || std::ptr::eq(other, line) {
-                    continue;
-                }
-                let Some(mut h) = (match other.kind {
-                    RoofLineKind::Ridge => self.ridge_face_at(k, line.from, up_dir, mid, CutEnd::Bottom),
-                    _ => side_face(
-                        other.from,
-                        other.to,
-                        self.settings.valley.thickness_in,
-                        mid,
-                        FaceTag::Cheek,
-                        CutEnd::Bottom,
-                    ),
-                }) else {
-                    continue;
-                };
-                h.tag = cut_tag(&h, &frame);
-                foot_cuts.push(h);
-                bearings.push((Bearing::Line(k), h));
-            }
+            foot_cuts = self.foot_on_roof(line, up_dir, mid, &frame, &mut bearings, true);
             if foot_cuts.is_empty() {
                 foot_without_ridge = true;
                 foot_cuts.extend(self.hub_cuts(line.from, line.to, CutEnd::Bottom, &probe));
@@ -700,6 +757,54 @@ impl Ctx<'_> {
         Some((spec, bearings, peak_without_ridge || foot_without_ridge))
     }
 
+    /// The cuts of a hip's or valley's foot where it starts up on the roof,
+    /// against the ridges and the tops of the valleys ending there, each
+    /// added to `bearings`. `up_dir` is its plan direction up from the
+    /// node, `toward` a point of it; valleys' tops only `on_valleys` (a
+    /// hip running back beside the valley it starts on). Hips meeting hips
+    /// there are left to the caller (a fitted block).
+    fn foot_on_roof(
+        &self,
+        line: &PlanLine,
+        up_dir: DVec2,
+        toward: DVec2,
+        frame: &BoardFrame,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        on_valleys: bool,
+    ) -> Vec<HalfSpace> {
+        let mut cuts = Vec::new();
+        for (k, other) in self.lines.iter().enumerate() {
+            let meets = match other.kind {
+                RoofLineKind::Ridge => other.touches(line.from),
+                RoofLineKind::Valley if on_valleys => {
+                    other.to.distance(line.from) < PLAN_TOL_IN * 1e3
+                        && other.from.distance(line.from) > PLAN_TOL_IN * 1e3
+                }
+                RoofLineKind::Valley | RoofLineKind::Hip => false,
+            };
+            if !meets || std::ptr::eq(other, line) {
+                continue;
+            }
+            let Some(mut h) = (match other.kind {
+                RoofLineKind::Ridge => self.ridge_face_at(k, line.from, up_dir, toward, CutEnd::Bottom),
+                _ => side_face(
+                    other.from,
+                    other.to,
+                    self.settings.valley.thickness_in,
+                    toward,
+                    FaceTag::Cheek,
+                    CutEnd::Bottom,
+                ),
+            }) else {
+                continue;
+            };
+            h.tag = cut_tag(&h, frame);
+            cuts.push(h);
+            bearings.push((Bearing::Line(k), h));
+        }
+        cuts
+    }
+
     /// Cuts a hip's top (`spec`) to the face of each ridge at its top node
     /// that its body would otherwise run into, bearing on it there. `down`
     /// is the hip's plan direction from the node, `toward` a point of it.
@@ -762,6 +867,40 @@ impl Ctx<'_> {
                 FaceTag::Plumb,
                 Some(CutEnd::Top),
             ));
+        }
+        // A valley that starts up on the roof (where a ridge ends beside
+        // another valley's top) has no seat: its foot is cut to what is
+        // framed there, as a hip's is, or plumb at the node.
+        let seated = line.from_z.abs() < 1e-6;
+        let mut foot_bearings = Vec::new();
+        if !seated {
+            let up_dir = (line.to - line.from).normalize_or_zero();
+            let mut lower_cuts = self.foot_on_roof(line, up_dir, mid, &frame, &mut foot_bearings, false);
+            if lower_cuts.is_empty() {
+                lower_cuts.extend(HalfSpace::through(
+                    line.from.extend(line.from_z),
+                    (line.from - line.to).extend(0.0),
+                    FaceTag::Plumb,
+                    Some(CutEnd::Bottom),
+                ));
+            }
+            let spec = PieceSpec {
+                kind: MemberKind::Valley,
+                size,
+                frame,
+                plan_line: [line.from, line.to],
+                slope,
+                top_planes: Vec::new(),
+                upper_cuts,
+                lower_cuts,
+                seat: Vec::new(),
+                has_tail: false,
+                drop_in: 0.0,
+                plumb_square: hip_square(slope, pl, pr),
+            };
+            let bearings =
+                ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
+            return Some((spec, bearings, false));
         }
         let has_tail = pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
         // Over an inside corner each half ends at its own side's fascia.

@@ -142,6 +142,13 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             ridge_pieces[li].push(specs.len());
             specs.push(spec);
         }
+        // An end cut back to a hip or valley passing by bears on it.
+        for (k, mating, at_start) in ctx.ridge_end_clearances(line) {
+            let piece = if at_start { ridge_pieces[li].first() } else { ridge_pieces[li].last() };
+            if let Some(&cut) = piece {
+                joint_specs.push(JointSpec { cut, bearing: Bearing::Line(k), mating });
+            }
+        }
     }
     let ridge_piece_at = |li: usize, p: DVec2, specs: &[PieceSpec]| -> Option<usize> {
         let line = lines.get(li)?;
