@@ -227,11 +227,45 @@ impl Renderer {
         }
     }
 
-    /// Draws the scene into the part of the window egui gave the view.
-    fn paint(&mut self, info: &egui::PaintCallbackInfo, painter: &egui_glow::Painter, frame: &FrameInput) {
+    /// What decides the drawing of `frame` in a view of `size_px`, with its
+    /// meshes and overlay uploaded.
+    fn prepare(&mut self, frame: &FrameInput, size_px: [u32; 2]) -> ViewKey {
         self.upload([&frame.roof_scene, &frame.scene]);
         let picked = if frame.style.client_view { None } else { frame.picked };
         self.update_highlight(&frame.scene, picked);
+        ViewKey {
+            scenes: [Arc::as_ptr(&frame.roof_scene) as usize, Arc::as_ptr(&frame.scene) as usize],
+            camera: frame.camera,
+            style: frame.style,
+            picked,
+            size_px,
+        }
+    }
+
+    /// Draws the view's texture while the window is still being laid out
+    /// (the window's GL context is current then), so that software GL's
+    /// rasterizer threads fill it while this thread lays out and hands over
+    /// the rest of the window, rather than after; the paint callback then
+    /// finds it drawn and copies it.
+    fn draw_ahead(&mut self, frame: &FrameInput, size_px: [u32; 2]) {
+        let key = self.prepare(frame, size_px);
+        self.drawn = match self.drawn.take() {
+            Some(drawn) if drawn.key == key => Some(drawn),
+            earlier => {
+                let drawn = self.draw_view(key, earlier);
+                // GL takes up a change of framebuffer at the next draw: a
+                // clear of one pixel of the window's depths (which nothing
+                // reads; egui clears the window before painting it) sends
+                // the view's drawing to the rasterizer threads now.
+                let pixel = ScissorBox { x: 0, y: 0, width: 1, height: 1 };
+                RenderTarget::screen(&self.context, 1, 1).clear_partially(pixel, ClearState::depth(1.0));
+                Some(drawn)
+            }
+        };
+    }
+
+    /// Draws the scene into the part of the window egui gave the view.
+    fn paint(&mut self, info: &egui::PaintCallbackInfo, painter: &egui_glow::Painter, frame: &FrameInput) {
         let [screen_w, screen_h] = info.screen_size_px;
         let target = match painter.intermediate_fbo() {
             Some(fbo) => RenderTarget::from_framebuffer(&self.context, screen_w, screen_h, fbo),
@@ -251,13 +285,7 @@ impl Renderer {
             width: px(clip_px.width_px),
             height: px(clip_px.height_px),
         };
-        let key = ViewKey {
-            scenes: [Arc::as_ptr(&frame.roof_scene) as usize, Arc::as_ptr(&frame.scene) as usize],
-            camera: frame.camera,
-            style: frame.style,
-            picked,
-            size_px: [viewport.width, viewport.height],
-        };
+        let key = self.prepare(frame, [viewport.width, viewport.height]);
         let drawn = match self.drawn.take() {
             Some(drawn) if drawn.key == key => drawn,
             earlier => self.draw_view(key, earlier),
@@ -605,7 +633,6 @@ pub fn viewport_ui(
         response.clone().on_hover_text_at_pointer(text);
     }
 
-    let renderer = Arc::clone(renderer);
     let frame = FrameInput {
         roof_scene: Arc::clone(roof_scene),
         scene: Arc::clone(scene),
@@ -613,6 +640,15 @@ pub fn viewport_ui(
         style,
         picked,
     };
+    // The size the paint callback will be given, worked out as egui does;
+    // should it differ after all, the callback draws the view itself.
+    let ppp = ui.ctx().pixels_per_point();
+    let span = |low: f32, high: f32| px((ppp * high).round() as i32 - (ppp * low).round() as i32);
+    let size_px = [span(rect.min.x, rect.max.x), span(rect.min.y, rect.max.y)];
+    if let Ok(mut renderer) = renderer.lock() {
+        renderer.draw_ahead(&frame, size_px);
+    }
+    let renderer = Arc::clone(renderer);
     let callback = egui_glow::CallbackFn::new(move |info, painter| {
         // A poisoned lock means an earlier draw panicked; skipping the draw
         // keeps the rest of the window usable.
