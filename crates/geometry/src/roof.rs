@@ -442,9 +442,12 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
     let node_time = |n: usize| sk.nodes.get(n).map_or(0.0, |x| x.time);
     let group = plane_groups(&sk.lines, tol);
     let canonical = |w: usize| group.get(w).copied().unwrap_or(w);
-    let mut members: HashMap<usize, Vec<usize>> = HashMap::new();
+    // Each group's walls in wall order, listed under its lowest wall.
+    let mut members: Vec<Vec<usize>> = vec![Vec::new(); sk.lines.len()];
     for w in 0..sk.lines.len() {
-        members.entry(canonical(w)).or_default().push(w);
+        if let Some(m) = members.get_mut(canonical(w)) {
+            m.push(w);
+        }
     }
     let mut planes = Vec::new();
     let mut gables = Vec::new();
@@ -503,10 +506,7 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         };
         let outline = to_3d(&with_holes(face, holes, &node_pos));
         let eave = eave_outline(w, &sk.lines, &sk.nodes, face, &sides);
-        let coplanar_walls: Vec<usize> = members
-            .get(&canonical(w))
-            .map(|m| m.iter().copied().filter(|&o| o != w).collect())
-            .unwrap_or_default();
+        let coplanar_walls = others_in_group(members.get(canonical(w)).map_or(&[], Vec::as_slice), w);
         planes.push(RoofPlane {
             wall: w,
             rise_per_run: line.rise.unwrap_or(0.0),
@@ -552,6 +552,22 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         }
     }
     Roof { planes, lines, gables }
+}
+
+/// The walls of `group` (in wall order) other than `wall`, copied as the
+/// two runs either side of it: a long run of walls in line (a comb's
+/// thousands of gaps between teeth) makes this list, for every wall of the
+/// run, the largest part of the roof.
+fn others_in_group(group: &[usize], wall: usize) -> Vec<usize> {
+    let mut others = Vec::with_capacity(group.len().saturating_sub(1));
+    match group.binary_search(&wall) {
+        Ok(i) => {
+            others.extend_from_slice(group.get(..i).unwrap_or_default());
+            others.extend_from_slice(group.get(i + 1..).unwrap_or_default());
+        }
+        Err(_) => others.extend_from_slice(group),
+    }
+    others
 }
 
 /// Whether the planes of `a` and `b` cross in a line rising less than
