@@ -10,8 +10,6 @@ use glam::DVec3;
 use serde::Serialize;
 use thiserror::Error;
 
-use std::collections::HashMap;
-
 use glam::DVec2;
 
 // The skeleton has a folder of its own beside this file; it is declared
@@ -22,6 +20,7 @@ mod skeleton;
 use crate::{Outline, Wall, WallRoof};
 use skeleton::eaves::{EdgeSide, eave_outline};
 use skeleton::lines::WallLine;
+use skeleton::quick_hash::QuickMap;
 use skeleton::tolerance::Tolerance;
 use skeleton::{Ring, Skeleton, SkeletonError};
 
@@ -426,7 +425,9 @@ fn drop_collinear(points: Vec<DVec3>, tol: f64) -> Vec<DVec3> {
 
 /// Turns the skeleton's faces into planes, roof lines and gable faces.
 fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
-    let mut owner: HashMap<(usize, usize), usize> = HashMap::new();
+    let edges: usize = sk.faces.iter().chain(sk.holes.iter().flatten()).map(Vec::len).sum();
+    let mut owner: QuickMap<(usize, usize), usize> =
+        QuickMap::with_capacity_and_hasher(edges, Default::default());
     for (w, face) in sk.faces.iter().enumerate() {
         let loops = std::iter::once(face).chain(sk.holes.get(w).into_iter().flatten());
         for lp in loops {
@@ -451,7 +452,7 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
     }
     let mut planes = Vec::new();
     let mut gables = Vec::new();
-    let mut segments: HashMap<(usize, usize), Vec<(usize, usize)>> = HashMap::new();
+    let mut segments: QuickMap<(usize, usize), Vec<(usize, usize)>> = QuickMap::default();
     for (w, face) in sk.faces.iter().enumerate() {
         let Some(line) = sk.lines.get(w) else {
             continue;

@@ -1,6 +1,6 @@
 //! Chaining the traced boundary arcs of each wall's face into one polygon.
 
-use std::collections::HashMap;
+use super::quick_hash::QuickMap;
 
 use glam::DVec2;
 
@@ -17,7 +17,8 @@ pub(crate) type FaceBoundary = (Vec<NodeId>, Vec<Vec<NodeId>>);
 /// of each walk in order (without repeating the first), or `None` if the
 /// arcs do not close into boundaries.
 pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> Option<FaceBoundary> {
-    let mut count: HashMap<(NodeId, NodeId), i64> = HashMap::new();
+    let mut count: QuickMap<(NodeId, NodeId), i64> =
+        QuickMap::with_capacity_and_hasher(arcs.len() + 1, Default::default());
     for &arc in std::iter::once(&first).chain(arcs) {
         if arc.0 == arc.1 {
             continue;
@@ -28,7 +29,8 @@ pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> 
             _ => *count.entry(arc).or_insert(0) += 1,
         }
     }
-    let mut out: HashMap<NodeId, Vec<NodeId>> = HashMap::new();
+    let mut out: QuickMap<NodeId, Vec<NodeId>> =
+        QuickMap::with_capacity_and_hasher(arcs.len() + 1, Default::default());
     let mut total = 0usize;
     let mut keys: Vec<_> = count.iter().filter(|(_, c)| **c > 0).map(|(k, c)| (*k, *c)).collect();
     keys.sort_unstable();

@@ -24,6 +24,7 @@ pub(crate) mod eaves;
 mod events;
 mod faces;
 pub(crate) mod lines;
+pub(crate) mod quick_hash;
 mod resolve;
 mod sweep_index;
 pub(crate) mod tolerance;
@@ -35,6 +36,7 @@ use glam::DVec2;
 
 use events::{Event, EventKind};
 use lines::WallLine;
+use quick_hash::QuickMap;
 use resolve::Site;
 use sweep_index::SweepIndex;
 use tolerance::Tolerance;
@@ -98,7 +100,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         wall_start_node: vec![0; n],
         wall_end_node: vec![0; n],
         batch_nodes: Vec::new(),
-        batch_cells: std::collections::HashMap::new(),
+        batch_cells: QuickMap::default(),
         tol,
         changed_edges: Vec::new(),
         split_scratch: Vec::new(),
@@ -332,7 +334,7 @@ fn cluster(wf: &Wavefront, batch: &[(Event, Option<EdgeId>)]) -> Vec<Site> {
             }
         }
     }
-    let mut groups: std::collections::HashMap<usize, Vec<usize>> = std::collections::HashMap::new();
+    let mut groups: QuickMap<usize, Vec<usize>> = QuickMap::default();
     for i in 0..raw.len() {
         let r = root(&mut parent, i);
         groups.entry(r).or_default().push(i);

@@ -2,10 +2,9 @@
 //! events, split events and vertex events alike, by re-pairing the wall
 //! lines that meet there in angular order.
 
-use std::collections::HashSet;
-
 use glam::DVec2;
 
+use super::quick_hash::QuickSet;
 use super::wavefront::{EdgeId, VertexId, Wavefront};
 
 /// One wall-line ray at the event point: an edge arriving or leaving.
@@ -42,7 +41,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
     let at_p = |wf: &Wavefront, v: VertexId| wf.alive(v) && (wf.pos(v, t) - p).length() <= near;
 
     // Gather the vertices standing at the point, walking along their cycles.
-    let mut members: HashSet<VertexId> = HashSet::new();
+    let mut members: QuickSet<VertexId> = QuickSet::default();
     let mut stack: Vec<VertexId> = site.vertices.iter().copied().filter(|&v| at_p(wf, v)).collect();
     let mut through: Vec<EdgeId> = Vec::new();
     let mut pending_lines = site.through_lines.clone();
@@ -94,7 +93,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
 
     // Runs of consecutive members; each leaves one arriving and one leaving edge.
     let mut rays: Vec<Ray> = Vec::new();
-    let mut seen: HashSet<VertexId> = HashSet::new();
+    let mut seen: QuickSet<VertexId> = QuickSet::default();
     let mut sorted: Vec<VertexId> = members.iter().copied().collect();
     sorted.sort_unstable();
     let mut dead_edges: Vec<EdgeId> = Vec::new();

@@ -1,10 +1,9 @@
 //! The wavefront: cycles of moving vertices joined by pieces of wall lines.
 
-use std::collections::HashMap;
-
 use glam::DVec2;
 
 use super::lines::WallLine;
+use super::quick_hash::QuickMap;
 use super::tolerance::Tolerance;
 
 /// Index of a wavefront vertex.
@@ -115,7 +114,7 @@ pub(crate) struct Wavefront {
     pub batch_nodes: Vec<NodeId>,
     /// The batch's nodes by plan cell, so finding one near a point does
     /// not search them all.
-    pub batch_cells: HashMap<(i64, i64), Vec<NodeId>>,
+    pub batch_cells: QuickMap<(i64, i64), Vec<NodeId>>,
     /// Tolerances.
     pub tol: Tolerance,
     /// Edge pieces added or given a new end since the split index last
