@@ -158,6 +158,13 @@ pub(crate) struct SweepIndex {
     full_search: bool,
     /// Pairs met in the cells scanned, tested once the scan is done.
     met: Vec<(VertexId, EdgeId)>,
+    /// For each piece, the last scan that met it (so a pair met in several
+    /// cells is tested once).
+    piece_seen: Vec<u64>,
+    /// For each vertex, the last scan that met it.
+    vertex_seen: Vec<u64>,
+    /// Scans so far.
+    scans: u64,
 }
 
 impl SweepIndex {
@@ -211,6 +218,9 @@ impl SweepIndex {
             slack: 4.0 * wf.tol.time,
             ceiling,
             met: Vec::new(),
+            piece_seen: Vec::new(),
+            vertex_seen: Vec::new(),
+            scans: 0,
         }
     }
 
@@ -542,8 +552,27 @@ impl SweepIndex {
         if outside && let (Some(own), Some(other)) = (own_cells.last_mut(), other_cells.last_mut()) {
             visit(own, other);
         }
-        met.sort_unstable();
-        met.dedup();
+        // Each pair once. The order the pairs are tried in changes nothing:
+        // whether a line's candidate is pushed depends only on whether some
+        // piece met on it passes, and the queue orders what it holds by
+        // what the events name.
+        self.scans += 1;
+        let scan = self.scans;
+        let seen = if is_vertex { &mut self.piece_seen } else { &mut self.vertex_seen };
+        met.retain(|&(v, e)| {
+            let other = if is_vertex { e } else { v };
+            if seen.len() <= other {
+                seen.resize(other + 1, 0);
+            }
+            match seen.get_mut(other) {
+                Some(s) if *s == scan => false,
+                Some(s) => {
+                    *s = scan;
+                    true
+                }
+                None => true,
+            }
+        });
         for &(v, e) in &met {
             let line = wf.edges.get(e).filter(|x| x.alive).map(|x| x.line);
             if let Some(line) = line {
