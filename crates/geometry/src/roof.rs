@@ -354,8 +354,50 @@ fn plane_groups(lines: &[WallLine], tol: &Tolerance) -> Vec<usize> {
     let mut order: Vec<usize> =
         (0..lines.len()).filter(|&i| lines.get(i).is_some_and(|l| l.rise.is_some())).collect();
     order.sort_by(|&a, &b| bin(a).cmp(&bin(b)).then(offset(a).total_cmp(&offset(b))));
-    for (k, &a) in order.iter().enumerate() {
-        let Some(la) = lines.get(a) else { continue };
+    // Two walls whose line, pitch and direction bin are the same to the bit.
+    let same = |a: usize, b: usize| match (lines.get(a), lines.get(b)) {
+        (Some(x), Some(y)) => {
+            bin(a) == bin(b)
+                && x.offset.to_bits() == y.offset.to_bits()
+                && x.normal.x.to_bits() == y.normal.x.to_bits()
+                && x.normal.y.to_bits() == y.normal.y.to_bits()
+                && x.rise.map(f64::to_bits) == y.rise.map(f64::to_bits)
+        }
+        _ => false,
+    };
+    // Whether `b`, after `a` in the order, is among the walls `a` is tested against.
+    let reaches = |a: usize, b: usize| match (lines.get(a), lines.get(b)) {
+        (Some(x), Some(y)) => bin(b) == bin(a) && y.offset - x.offset <= tol.point,
+        _ => false,
+    };
+    let mut k = 0;
+    while let Some(&a) = order.get(k) {
+        let Some(la) = lines.get(a) else {
+            k += 1;
+            continue;
+        };
+        // A run of walls on one line at one pitch (a comb's thousands of
+        // gaps between teeth) that no wall before or after reaches: every
+        // pair is coplanar, and the pairwise pass below would give each of
+        // them the run's lowest wall, at a cost growing with the square of
+        // the run. The run's own labels are still untouched here.
+        let mut end = k + 1;
+        while order.get(end).is_some_and(|&b| same(a, b)) {
+            end += 1;
+        }
+        let reached_from_before = k > 0 && order.get(k - 1).is_some_and(|&p| reaches(p, a));
+        let reaches_after = order.get(end).is_some_and(|&b| reaches(a, b));
+        if end - k > 1 && !reached_from_before && !reaches_after && coplanar(la, la, tol) {
+            let run = order.get(k..end).unwrap_or_default();
+            let low = run.iter().copied().min().unwrap_or(a);
+            for &b in run {
+                if let Some(x) = group.get_mut(b) {
+                    *x = low;
+                }
+            }
+            k = end;
+            continue;
+        }
         for &b in order.iter().skip(k + 1) {
             let Some(lb) = lines.get(b) else { break };
             if bin(b) != bin(a) || lb.offset - la.offset > tol.point {
@@ -371,6 +413,7 @@ fn plane_groups(lines: &[WallLine], tol: &Tolerance) -> Vec<usize> {
                 }
             }
         }
+        k += 1;
     }
     // Settle chains so every wall names its group's lowest wall.
     for i in 0..group.len() {
