@@ -29,27 +29,18 @@ pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> 
             _ => *count.entry(arc).or_insert(0) += 1,
         }
     }
-    let mut out: QuickMap<NodeId, Vec<NodeId>> =
-        QuickMap::with_capacity_and_hasher(arcs.len() + 1, Default::default());
-    let mut total = 0usize;
     let mut keys: Vec<_> = count.iter().filter(|(_, c)| **c > 0).map(|(k, c)| (*k, *c)).collect();
     keys.sort_unstable();
-    for ((a, b), c) in keys {
-        for _ in 0..c {
-            out.entry(a).or_default().push(b);
-            total += 1;
-        }
-    }
+    let mut out = Outgoing::from_sorted(&keys);
+    let total = out.targets.len();
     // The wall arc must survive; take it out first so the walk begins with it.
-    let list = out.get_mut(&first.0)?;
-    let pos = list.iter().position(|&b| b == first.1)?;
-    list.swap_remove(pos);
+    out.take(first)?;
     // Hierholzer's walk, so a face touching itself at a point still comes
     // out as one boundary.
     let mut stack = vec![first.0, first.1];
     let mut walk: Vec<NodeId> = Vec::new();
     while let Some(&top) = stack.last() {
-        match out.get_mut(&top).and_then(Vec::pop) {
+        match out.pop(top) {
             Some(next) => stack.push(next),
             None => {
                 walk.push(top);
@@ -65,13 +56,11 @@ pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> 
     let mut used = walk.len();
     let mut holes = Vec::new();
     while used < total {
-        let mut keys: Vec<NodeId> = out.iter().filter(|(_, v)| !v.is_empty()).map(|(k, _)| *k).collect();
-        keys.sort_unstable();
-        let start = *keys.first()?;
+        let start = out.lowest_left()?;
         let mut stack = vec![start];
         let mut lp: Vec<NodeId> = Vec::new();
         while let Some(&top) = stack.last() {
-            match out.get_mut(&top).and_then(Vec::pop) {
+            match out.pop(top) {
                 Some(next) => stack.push(next),
                 None => {
                     lp.push(top);
@@ -88,6 +77,75 @@ pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> 
         holes.push(lp);
     }
     Some((walk, holes))
+}
+
+/// The arcs still to walk, by the node they leave: one flat list in arc
+/// order and each node's stretch of it, so a face of thousands of nodes
+/// needs no list of its own per node.
+struct Outgoing {
+    /// Arc ends, grouped by the node the arc leaves, in arc order.
+    targets: Vec<NodeId>,
+    /// For each node left by an arc, its stretch of `targets` not yet walked.
+    stretch: QuickMap<NodeId, (usize, usize)>,
+    /// The nodes left by an arc, lowest first.
+    order: Vec<NodeId>,
+    /// Nodes of `order` before this one have no arc left.
+    cursor: usize,
+}
+
+impl Outgoing {
+    /// From arcs sorted by their nodes, each with how many times it is walked.
+    fn from_sorted(arcs: &[((NodeId, NodeId), i64)]) -> Self {
+        let mut targets = Vec::new();
+        let mut stretch: QuickMap<NodeId, (usize, usize)> =
+            QuickMap::with_capacity_and_hasher(arcs.len(), Default::default());
+        let mut order = Vec::new();
+        for &((a, b), c) in arcs {
+            if order.last() != Some(&a) {
+                order.push(a);
+                stretch.insert(a, (targets.len(), targets.len()));
+            }
+            for _ in 0..c {
+                targets.push(b);
+            }
+            if let Some(s) = stretch.get_mut(&a) {
+                s.1 = targets.len();
+            }
+        }
+        Self { targets, stretch, order, cursor: 0 }
+    }
+
+    /// Takes the last arc left leaving `from`.
+    fn pop(&mut self, from: NodeId) -> Option<NodeId> {
+        let s = self.stretch.get_mut(&from)?;
+        if s.1 <= s.0 {
+            return None;
+        }
+        s.1 -= 1;
+        self.targets.get(s.1).copied()
+    }
+
+    /// Takes out the arc `arc`, the last arc of its node moving into its place.
+    fn take(&mut self, arc: (NodeId, NodeId)) -> Option<()> {
+        let &(start, end) = self.stretch.get(&arc.0)?;
+        let pos = (start..end).find(|&i| self.targets.get(i) == Some(&arc.1))?;
+        self.targets.swap(pos, end - 1);
+        if let Some(s) = self.stretch.get_mut(&arc.0) {
+            s.1 = end - 1;
+        }
+        Some(())
+    }
+
+    /// The lowest node with an arc left.
+    fn lowest_left(&mut self) -> Option<NodeId> {
+        while let Some(&n) = self.order.get(self.cursor) {
+            if self.stretch.get(&n).is_some_and(|s| s.1 > s.0) {
+                return Some(n);
+            }
+            self.cursor += 1;
+        }
+        None
+    }
 }
 
 /// Which ring of which face: `(wall, 0)` the outer walk, `(wall, k)` hole `k - 1`.
