@@ -129,22 +129,43 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
     // the last of them can never be kept, so it is not even stored.
     let mut earliest = [f64::INFINITY; SPLIT_CANDIDATES_KEPT];
     let mut count = 0usize;
-    // The packed line coefficients keep this loop, the solve's hottest, in cache.
-    for (i, &[nx, ny, offset, speed]) in wf.packed_lines.iter().enumerate() {
+    // First every line's height, in a loop with no branches that the
+    // compiler can run two lines at a time, as infinity for a line ruled
+    // out; then a quick pass for the few worth keeping. The heights and
+    // the tests are those of one loop doing both, to the bit.
+    let mut times = std::mem::take(&mut wf.split_times);
+    times.clear();
+    let tol = wf.tol.point;
+    // The line coefficients in columns keep this loop, the solve's hottest, in cache.
+    let [nxs, nys, offsets, speeds] = &wf.line_columns;
+    let columns = nxs.iter().zip(nys).zip(offsets).zip(speeds);
+    times.extend(columns.map(|(((&nx, &ny), &offset), &speed)| {
         let d0 = nx * anchor.x + ny * anchor.y - offset - speed * t0;
         let rate = nx * vel.x + ny * vel.y - speed;
         // A vertex born at an event on a line that passes through its birth
         // point has already been resolved against it there.
-        let born_on_line = t0 > 0.0 && d0 <= wf.tol.point;
-        if d0 < -wf.tol.point || rate >= 0.0 || own.contains(&i) || born_on_line {
-            continue;
-        }
+        let born_on_line = (t0 > 0.0) & (d0 <= tol);
         let t = t0 + d0.max(0.0) / -rate;
-        if !t.is_finite() || t < after || (!inclusive && t <= after) {
-            continue;
+        let meets = !((d0 < -tol) | (rate >= 0.0) | born_on_line);
+        let (before, at) = (t < after, t <= after);
+        let in_range = t.is_finite() & !before & (inclusive | !at);
+        if meets & in_range { t } else { f64::INFINITY }
+    }));
+    for i in own {
+        if let Some(t) = times.get_mut(i) {
+            *t = f64::INFINITY;
         }
-        count += 1;
-        if t > earliest[SPLIT_CANDIDATES_KEPT - 1] {
+    }
+    // A height above `bound` cannot be kept: the latest kept so far, or
+    // any finite height while fewer than the few have been found.
+    let bound = |earliest: &[f64; SPLIT_CANDIDATES_KEPT]| {
+        let last = earliest[SPLIT_CANDIDATES_KEPT - 1];
+        if last == f64::INFINITY { f64::MAX } else { last }
+    };
+    let mut above = bound(&earliest);
+    for (i, &t) in times.iter().enumerate() {
+        count += usize::from(t != f64::INFINITY);
+        if t > above {
             continue;
         }
         found.push((t, i));
@@ -154,7 +175,9 @@ pub(crate) fn compute_splits(wf: &mut Wavefront, v: VertexId, after: f64, inclus
             earliest.swap(k - 1, k);
             k -= 1;
         }
+        above = bound(&earliest);
     }
+    wf.split_times = times;
     let mut truncated = false;
     if count > SPLIT_CANDIDATES_KEPT {
         // Keep the earliest few plus every candidate tied with the last one

@@ -88,10 +88,13 @@ pub(crate) enum SkeletonError {
 /// wall `lines` (indexed by global wall index).
 pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Result<Skeleton, SkeletonError> {
     let n = lines.len();
-    let packed_lines = lines.iter().map(|l| [l.normal.x, l.normal.y, l.offset, l.speed]).collect();
+    let packed_lines: Vec<[f64; 4]> =
+        lines.iter().map(|l| [l.normal.x, l.normal.y, l.offset, l.speed]).collect();
+    let line_columns = [0, 1, 2, 3].map(|k| packed_lines.iter().map(|c| c[k]).collect());
     let mut wf = Wavefront {
         lines,
         packed_lines,
+        line_columns,
         vertices: Vec::new(),
         edges: Vec::new(),
         nodes: Vec::new(),
@@ -104,6 +107,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         tol,
         changed_edges: Vec::new(),
         split_scratch: Vec::new(),
+        split_times: Vec::new(),
     };
     let mut index = SweepIndex::new(&wf);
     let mut heap: BinaryHeap<Event> = BinaryHeap::new();
