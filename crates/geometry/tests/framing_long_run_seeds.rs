@@ -451,3 +451,61 @@ fn a_valley_starting_up_on_the_roof_ends_at_its_foot() {
         assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
     }
 }
+
+/// Seed 14396: a long block whose north walls are a hair out of line,
+/// with a courtyard, mixed pitches.
+#[rustfmt::skip]
+const SEED_14396: [WallRow; 10] = [
+    (0.0, 0.0, 0.6666666666666666, 3.0),
+    (416.7000281707565, 0.0, 0.16666666666666666, 7.0),
+    (416.7000281707565, 127.00789338448286, 1.1666666666666667, 14.0),
+    (379.63789587385213, 127.0732128006649, 0.75, 11.0),
+    (352.92915735559393, 127.00789338448286, 1.0, 13.0),
+    (324.8714902263165, 127.10446953676988, 0.16666666666666666, 20.0),
+    (298.63078269042336, 127.00789338448286, 0.934610673042, 18.0),
+    (240.16477929253116, 127.00789338448286, 0.5833333333333334, 14.0),
+    (93.70955161054103, 126.72228627040664, 0.25, 19.0),
+    (0.0, 127.00789338448286, 0.8333333333333334, 19.0),
+];
+
+#[rustfmt::skip]
+const SEED_14396_COURTYARD: [WallRow; 4] = [
+    (174.05117151453283, 11.996553292943858, 1.4166666666666667, 18.0),
+    (199.5958737392342, 11.996553292943858, 1.0, 2.0),
+    (199.5958737392342, 43.366565126019644, 0.7525664509664406, 4.0),
+    (174.05117151453283, 43.366565126019644, 0.75, 22.0),
+];
+
+#[test]
+fn a_ridge_ending_near_a_hips_top_is_not_cut_back_to_its_side() {
+    let frame = framed(&SEED_14396, &[&SEED_14396_COURTYARD]);
+    // The ridge along x = 230.61 ends at (230.61, 84.58); a hip 1.78 in
+    // long in plan rises from there to (228.87, 84.96), where the long hip
+    // from the east wall ends. The ridge end's west corner (229.86, 84.58)
+    // is 1.06 in from that hip's top, inside its 1-1/2 in thickness of
+    // its end, where the hip is cut to what it meets: not beside its
+    // length. Cut back to the hip's side there, the ridge end stood off
+    // the hip by 0.56 in. It keeps its end, and every joint at it fits.
+    // Derivation.
+    let ridge = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::Ridge
+                && p.plan_line.iter().all(|q| (q.x - 230.611).abs() < 0.01)
+                && p.plan_line.iter().any(|q| (q.y - 84.579).abs() < 0.01)
+        })
+        .expect("the ridge along x = 230.61");
+    let at_ridge: Vec<_> = frame.joints.iter().filter(|j| j.pieces.contains(&ridge)).collect();
+    assert!(!at_ridge.is_empty());
+    for j in at_ridge {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+    assert!(
+        !frame
+            .joints
+            .iter()
+            .any(|j| j.pieces[0] == ridge && frame.pieces[j.pieces[1]].kind == MemberKind::Hip),
+        "the ridge's end is cut to a hip"
+    );
+}

@@ -270,13 +270,19 @@ impl Ctx<'_> {
                 }
                 let Some(odir) = (other.to - other.from).try_normalize() else { continue };
                 let corners = [end + dir.perp() * (t / 2.0), end - dir.perp() * (t / 2.0)];
+                let run = other.from.distance(other.to);
                 let runs_in = corners.iter().any(|&c| {
                     if distance_to_segment(c, other.from, other.to) >= ot / 2.0 - OVERLAP_TOL_IN {
                         return false;
                     }
+                    // Only beside the member's length: near its ends it is
+                    // cut to what it meets there, which this end may be.
+                    let along = (c - other.from).dot(odir);
+                    if along < ot || along > run - ot {
+                        return false;
+                    }
                     // Only where the boards are at one height there.
-                    let run = other.from.distance(other.to);
-                    let f = ((c - other.from).dot(odir) / run).clamp(0.0, 1.0);
+                    let f = (along / run).clamp(0.0, 1.0);
                     let o_top = self.heel + other.from_z + f * (other.to_z - other.from_z);
                     let o_bottom = o_top - od * (1.0 + ((other.to_z - other.from_z) / run).powi(2)).sqrt();
                     o_bottom < top && o_top > bottom
