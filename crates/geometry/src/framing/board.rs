@@ -2,6 +2,8 @@
 
 use glam::{DVec2, DVec3};
 
+use super::corners::{corners, corners_of_parts};
+use super::solid::FaceScratch;
 use super::{BoardSize, ConvexPart, CutEnd, FaceTag, HalfSpace, MemberKind, Solid};
 
 /// A board's frame: its top edge's centre line and three unit directions.
@@ -128,9 +130,11 @@ impl PieceSpec {
                 .collect(),
             _ => Vec::new(),
         };
+        let mut scratch = FaceScratch::default();
         for (half, wall) in halves {
             let Some(wall) = wall else {
-                parts.extend(ConvexPart::from_half_spaces(&half));
+                let vertices = corners(&half);
+                parts.extend(ConvexPart::from_corners(&half, vertices, &mut scratch));
                 continue;
             };
             let inside = wall.inside;
@@ -147,38 +151,45 @@ impl PieceSpec {
             let below_plate = HalfSpace { normal: DVec3::Z, offset: 0.0, tag: FaceTag::Interior, end: None };
             let inside_tag = if self.has_tail { FaceTag::Interior } else { FaceTag::Tail };
             let inside_end = if self.has_tail { None } else { Some(CutEnd::Tail) };
-            let mut body = half.clone();
-            body.push(HalfSpace { tag: inside_tag, end: inside_end, ..inside });
-            body.push(above_plate(FaceTag::Seat));
+            // Each part is the half's planes and two or three more.
+            let mut extra: Vec<Vec<HalfSpace>> = Vec::with_capacity(5);
+            let mut body =
+                vec![HalfSpace { tag: inside_tag, end: inside_end, ..inside }, above_plate(FaceTag::Seat)];
+            let inside_plate = wall.plate_inner.map(|plate| HalfSpace {
+                normal: -plate.normal,
+                offset: -plate.offset,
+                tag: FaceTag::Interior,
+                end: None,
+            });
             if let Some(plate) = wall.plate_inner {
-                body.push(HalfSpace {
-                    normal: -plate.normal,
-                    offset: -plate.offset,
-                    tag: FaceTag::Interior,
-                    end: None,
-                });
-                let mut past_above = half.clone();
-                past_above.push(HalfSpace { tag: FaceTag::Interior, end: None, ..plate });
-                past_above.push(HalfSpace { end: None, ..above_plate(FaceTag::Interior) });
-                parts.extend(ConvexPart::from_half_spaces(&past_above));
+                body.extend(inside_plate);
+                extra.push(vec![
+                    HalfSpace { tag: FaceTag::Interior, end: None, ..plate },
+                    HalfSpace { end: None, ..above_plate(FaceTag::Interior) },
+                ]);
                 // The notch's inner plumb cut bears on the plate's inner face.
-                let mut past_below = half.clone();
-                past_below.push(HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..plate });
-                past_below.push(below_plate);
-                parts.extend(ConvexPart::from_half_spaces(&past_below));
+                extra.push(vec![
+                    HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..plate },
+                    below_plate,
+                ]);
             }
-            parts.extend(ConvexPart::from_half_spaces(&body));
+            extra.push(body);
             if self.has_tail {
-                let mut tail_top = half.clone();
-                tail_top.push(outside);
                 let mut interior_plate = above_plate(FaceTag::Interior);
                 interior_plate.end = None;
-                tail_top.push(interior_plate);
-                parts.extend(ConvexPart::from_half_spaces(&tail_top));
-                let mut tail_bottom = half;
-                tail_bottom.push(HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..outside });
-                tail_bottom.push(below_plate);
-                parts.extend(ConvexPart::from_half_spaces(&tail_bottom));
+                extra.push(vec![outside, interior_plate]);
+                extra.push(vec![
+                    HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..outside },
+                    below_plate,
+                ]);
+            }
+            let extras: Vec<&[HalfSpace]> = extra.iter().map(Vec::as_slice).collect();
+            let mut planes = Vec::with_capacity(half.len() + 3);
+            for (more, vertices) in extra.iter().zip(corners_of_parts(&half, &extras)) {
+                planes.clear();
+                planes.extend(half.iter().copied());
+                planes.extend(more.iter().copied());
+                parts.extend(ConvexPart::from_corners(&planes, vertices, &mut scratch));
             }
         }
         Solid { parts }

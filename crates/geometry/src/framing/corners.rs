@@ -8,7 +8,9 @@
 //! rather than avoided: the cross products of every pair of normals are
 //! worked out once (each triple's point is then three scaled sums), a pair
 //! of parallel planes skips its whole row of triples, and the plane that
-//! last ruled a point out is tried first.
+//! last ruled a point out is tried first. The parts of one piece share most
+//! of their planes ([`corners_of_parts`]): each shared triple is worked out
+//! and tested against the shared planes once for all of them.
 //!
 //! Clipping a large box by each plane in turn was tried as well: it
 //! finds where the corners lie, and trying only the triples of planes
@@ -79,6 +81,165 @@ pub fn corners(planes: &[HalfSpace]) -> Vec<DVec3> {
         }
     }
     vertices
+}
+
+/// The point where planes `i < j < k` meet, if they meet in one finite
+/// point, worked out as [`corners`] does; `cross(x, y)` is normal x cross
+/// normal y.
+fn triple_point(
+    planes: &[HalfSpace],
+    i: usize,
+    j: usize,
+    k: usize,
+    cross: impl Fn(usize, usize) -> DVec3,
+) -> Option<DVec3> {
+    let (a, b, c) = (planes.get(i)?, planes.get(j)?, planes.get(k)?);
+    let bc = cross(j, k);
+    let det = a.normal.dot(bc);
+    if det.abs() < PARALLEL_DET {
+        return None;
+    }
+    let p = (bc * a.offset + cross(k, i) * b.offset + cross(i, j) * c.offset) / det;
+    p.is_finite().then_some(p)
+}
+
+/// The corners of several parts cut by mostly the same planes: part `p`
+/// is the intersection of `common` and `extras[p]`, and gets exactly what
+/// [`corners`] gives for `common` followed by `extras[p]`.
+///
+/// The parts of one piece share its board's faces and end cuts and differ
+/// in two or three planes at the seat. Each triple of planes any part has
+/// is worked out once, and tested once against the common planes: the
+/// extra planes of every part are put in one list that keeps each part's
+/// order, so a part's triples, in its own order, are the shared list's
+/// triples it has, in the shared order. A part whose extra planes cannot
+/// keep their order in that list is searched on its own.
+pub fn corners_of_parts(common: &[HalfSpace], extras: &[&[HalfSpace]]) -> Vec<Vec<DVec3>> {
+    // The extra planes, distinct to the bit, in an order every part keeps
+    // where it can: a plane new to the list goes right after the part's
+    // plane before it.
+    let mut shared_extras: Vec<HalfSpace> = Vec::with_capacity(8);
+    for part in extras {
+        let mut after: Option<usize> = None;
+        for h in *part {
+            let at = match shared_extras.iter().position(|e| same_plane(e, h)) {
+                Some(at) => at,
+                None => {
+                    let at = after.map_or(0, |a| a + 1);
+                    shared_extras.insert(at, *h);
+                    at
+                }
+            };
+            after = Some(at);
+        }
+    }
+    let planes: Vec<HalfSpace> = common.iter().chain(&shared_extras).copied().collect();
+    let n = planes.len();
+    // Which parts have each plane, as bits (a part's planes in increasing
+    // order, or it is searched alone).
+    let mut has: Vec<u64> = vec![0; n];
+    let mut alone: Vec<bool> = vec![false; extras.len()];
+    for (p, part) in extras.iter().enumerate() {
+        let mut last = common.len().checked_sub(1);
+        for h in *part {
+            let at = shared_extras.iter().position(|e| same_plane(e, h)).map(|e| e + common.len());
+            match at {
+                Some(at) if last.is_none_or(|l| at > l) => last = Some(at),
+                _ => alone[p] = true,
+            }
+        }
+    }
+    // Each part searched together gets a bit.
+    let mut bit_of: Vec<Option<u32>> = vec![None; extras.len()];
+    let mut bits = 0u32;
+    for (p, part) in extras.iter().enumerate() {
+        if alone.get(p).copied().unwrap_or(true) || bits == 64 {
+            continue;
+        }
+        bit_of[p] = Some(bits);
+        for h in has.iter_mut().take(common.len()) {
+            *h |= 1 << bits;
+        }
+        for e in *part {
+            let at = shared_extras.iter().position(|x| same_plane(x, e)).map(|e| e + common.len());
+            if let Some(h) = at.and_then(|at| has.get_mut(at)) {
+                *h |= 1 << bits;
+            }
+        }
+        bits += 1;
+    }
+    let mut crosses: Vec<DVec3> = Vec::with_capacity(n * n);
+    for a in &planes {
+        crosses.extend(planes.iter().map(|b| a.normal.cross(b.normal)));
+    }
+    let cross = |x: usize, y: usize| crosses.get(x * n + y).copied().unwrap_or(DVec3::ZERO);
+    // Every triple some part has whose point lies inside the common planes,
+    // in triple order, with the parts that have it.
+    let mut candidates: Vec<(DVec3, u64)> = Vec::with_capacity(64);
+    let longest_normal = planes.iter().map(|h| h.normal.length()).fold(0.0, f64::max);
+    let mut last_out = 0;
+    for (i, a) in planes.iter().enumerate() {
+        let with_a = has.get(i).copied().unwrap_or(0);
+        for (j, b) in planes.iter().enumerate().skip(i + 1) {
+            let with_ab = with_a & has.get(j).copied().unwrap_or(0);
+            if with_ab == 0 {
+                continue;
+            }
+            let ab = a.normal.cross(b.normal);
+            // As in `corners`: no triple of this row meets.
+            if ab.length() * longest_normal < PARALLEL_DET * 0.1 {
+                continue;
+            }
+            for k in j + 1..n {
+                let with_abc = with_ab & has.get(k).copied().unwrap_or(0);
+                if with_abc == 0 {
+                    continue;
+                }
+                let Some(p) = triple_point(&planes, i, j, k, cross) else { continue };
+                let inside = |h: &HalfSpace| h.distance(p) <= CORNER_TOL_IN;
+                if common.get(last_out).is_some_and(|h| !inside(h)) {
+                    continue;
+                }
+                if let Some(out) = common.iter().position(|h| !inside(h)) {
+                    last_out = out;
+                    continue;
+                }
+                candidates.push((p, with_abc));
+            }
+        }
+    }
+    extras
+        .iter()
+        .zip(bit_of)
+        .map(|(part, bit)| {
+            let Some(bit) = bit else {
+                return corners(&with_common(common, part));
+            };
+            let mut vertices: Vec<DVec3> = Vec::with_capacity(16);
+            for &(p, parts) in &candidates {
+                // NaN counts as outside, as a failed comparison.
+                let inside = |h: &HalfSpace| h.distance(p) <= CORNER_TOL_IN;
+                if parts & (1 << bit) == 0 || part.iter().any(|h| !inside(h)) {
+                    continue;
+                }
+                if !vertices.iter().any(|v| v.distance_squared(p) < SAME_CORNER_IN * SAME_CORNER_IN) {
+                    vertices.push(p);
+                }
+            }
+            vertices
+        })
+        .collect()
+}
+
+/// `common` followed by `extra`.
+fn with_common(common: &[HalfSpace], extra: &[HalfSpace]) -> Vec<HalfSpace> {
+    common.iter().chain(extra).copied().collect()
+}
+
+/// Whether two planes are the same plane to the bit (their tags aside).
+fn same_plane(a: &HalfSpace, b: &HalfSpace) -> bool {
+    a.offset.to_bits() == b.offset.to_bits()
+        && a.normal.to_array().map(f64::to_bits) == b.normal.to_array().map(f64::to_bits)
 }
 
 #[cfg(test)]
@@ -176,6 +337,46 @@ mod tests {
             let found = corners(&planes);
             let bits = |v: &[DVec3]| v.iter().map(|p| p.to_array().map(f64::to_bits)).collect::<Vec<_>>();
             assert_eq!(bits(&found), bits(&expected), "case {case}: {planes:?}");
+        }
+    }
+
+    #[test]
+    fn parts_sharing_planes_get_each_parts_own_corners_to_the_bit() {
+        let mut rng = Lcg(20261202);
+        let bits = |v: &[DVec3]| v.iter().map(|p| p.to_array().map(f64::to_bits)).collect::<Vec<_>>();
+        for case in 0..1000 {
+            let common = cut_board(&mut rng);
+            // A pool of seat-like planes, some level through the board, some
+            // square to it, one the very same as a board face, and the
+            // reverse of some of them (as inside and outside a wall are).
+            let along = common[0].normal;
+            let mut pool: Vec<HalfSpace> = Vec::new();
+            for _ in 0..4 {
+                let through = common[1].normal * -common[1].offset + along * rng.range(0.0, 300.0);
+                let normal = match (rng.unit() * 3.0) as u32 {
+                    0 => DVec3::Z,
+                    1 => along,
+                    _ => DVec3::new(rng.range(-1.0, 1.0), rng.range(-1.0, 1.0), rng.range(-1.0, 1.0)),
+                };
+                let h = plane(through, normal);
+                pool.push(h);
+                pool.push(HalfSpace { normal: -h.normal, offset: -h.offset, ..h });
+            }
+            pool.push(common[2]);
+            let parts: Vec<Vec<HalfSpace>> = (0..1 + (rng.unit() * 5.0) as usize)
+                .map(|_| {
+                    (0..(rng.unit() * 4.0) as usize)
+                        .filter_map(|_| pool.get((rng.unit() * pool.len() as f64) as usize).copied())
+                        .collect()
+                })
+                .collect();
+            let extras: Vec<&[HalfSpace]> = parts.iter().map(Vec::as_slice).collect();
+            let found = corners_of_parts(&common, &extras);
+            assert_eq!(found.len(), parts.len());
+            for (part, got) in parts.iter().zip(&found) {
+                let planes: Vec<HalfSpace> = common.iter().chain(part).copied().collect();
+                assert_eq!(bits(got), bits(&corners(&planes)), "case {case}: {planes:?}");
+            }
         }
     }
 

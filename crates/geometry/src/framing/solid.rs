@@ -127,24 +127,30 @@ impl ConvexPart {
     /// Intersects the half-spaces; `None` when the result has no volume or
     /// is unbounded (no corners on some side).
     pub fn from_half_spaces(planes: &[HalfSpace]) -> Option<Self> {
-        let vertices = corners(planes);
+        Self::from_corners(planes, corners(planes), &mut FaceScratch::default())
+    }
+
+    /// As [`ConvexPart::from_half_spaces`], given the corners of `planes`
+    /// and scratch buffers to reuse.
+    pub(crate) fn from_corners(
+        planes: &[HalfSpace],
+        vertices: Vec<DVec3>,
+        scratch: &mut FaceScratch,
+    ) -> Option<Self> {
         if vertices.len() < 4 {
             return None;
         }
         let mut faces: Vec<Face> = Vec::with_capacity(planes.len());
         let mut kept = Vec::with_capacity(planes.len());
-        // Scratch reused for every plane: only the faces kept allocate.
-        let mut on: Vec<DVec3> = Vec::with_capacity(vertices.len());
-        let mut keyed: Vec<(f64, DVec3)> = Vec::with_capacity(vertices.len());
-        let mut ordered: Vec<DVec3> = Vec::with_capacity(vertices.len());
+        let FaceScratch { on, keyed, ordered } = scratch;
         for plane in planes {
             on.clear();
             on.extend(vertices.iter().copied().filter(|v| plane.distance(*v).abs() <= ON_PLANE_IN * 10.0));
             if on.len() < 3 {
                 continue;
             }
-            order_around(&on, plane.normal, &mut keyed, &mut ordered);
-            if polygon_area(&ordered, plane.normal) < MIN_FACE_AREA_SQ_IN {
+            order_around(on, plane.normal, keyed, ordered);
+            if polygon_area(ordered, plane.normal) < MIN_FACE_AREA_SQ_IN {
                 continue;
             }
             // Two planes may coincide (a cut flush with a box face); keep
@@ -187,6 +193,18 @@ impl ConvexPart {
             .map(|f| polygon_area(&f.vertices, f.normal) * f.normal.dot(f.vertices[0] - origin) / 3.0)
             .sum()
     }
+}
+
+/// Buffers reused while building the faces of many parts: only the faces
+/// kept allocate.
+#[derive(Debug, Default)]
+pub(crate) struct FaceScratch {
+    /// The corners on one plane.
+    on: Vec<DVec3>,
+    /// Those corners with their sort keys.
+    keyed: Vec<(f64, DVec3)>,
+    /// Those corners in order round the face.
+    ordered: Vec<DVec3>,
 }
 
 /// A member's solid: a union of convex parts meeting face to face.
