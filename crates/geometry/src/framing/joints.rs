@@ -110,13 +110,36 @@ pub fn check_fit(
             None => fit.max_hang = fit.max_hang.max(-near_depth(p)),
         }
     }
+    // Only depths above the overlap so far can raise it: a part is left
+    // as soon as one plane puts the corner below that (most corners lie
+    // well outside most planes), and the rest are measured in full.
     for p in cut.vertices() {
-        fit.max_overlap = fit.max_overlap.max(near_depth(p));
+        let floor = fit.max_overlap;
+        let depth =
+            near.iter().filter_map(|part| depth_above(part, p, floor)).fold(f64::NEG_INFINITY, f64::max);
+        fit.max_overlap = fit.max_overlap.max(depth);
     }
     for p in near.iter().flat_map(|part| part.vertices.iter().copied()) {
-        fit.max_overlap = fit.max_overlap.max(cut.depth_of(p));
+        let floor = fit.max_overlap;
+        let depth =
+            cut.parts.iter().filter_map(|part| depth_above(part, p, floor)).fold(f64::NEG_INFINITY, f64::max);
+        fit.max_overlap = fit.max_overlap.max(depth);
     }
     fit
+}
+
+/// `part`'s depth at `p` as [`ConvexPart::depth_of`] gives it, or `None`
+/// where some plane puts it below `floor`.
+///
+/// Leaving out a part whose depth lies below `floor` changes nothing in the
+/// largest depth over parts once that is taken with `floor` itself (which
+/// is how the overlap is gathered): every part left out is strictly below
+/// it, so neither the larger value nor the sign of a zero can change.
+fn depth_above(part: &ConvexPart, p: glam::DVec3, floor: f64) -> Option<f64> {
+    if part.planes.iter().any(|h| -h.distance(p) < floor) {
+        return None;
+    }
+    Some(part.depth_of(p))
 }
 
 /// How far past the cut piece's box a bearing part may lie and still be
