@@ -2,7 +2,7 @@
 
 use glam::{DVec2, DVec3};
 
-use super::corners::{corners, corners_of_parts};
+use super::corners::{PartsScratch, corners, corners_of_parts};
 use super::solid::FaceScratch;
 use super::{BoardSize, ConvexPart, CutEnd, FaceTag, HalfSpace, MemberKind, Solid};
 
@@ -59,6 +59,23 @@ impl BoardFrame {
     }
 }
 
+/// Buffers reused while cutting many pieces' solids.
+#[derive(Debug, Default)]
+pub struct SolidScratch {
+    /// The board's planes and cuts.
+    base: Vec<HalfSpace>,
+    /// Those and one half's own planes.
+    half: Vec<HalfSpace>,
+    /// One part's planes.
+    planes: Vec<HalfSpace>,
+    /// Each part's corners.
+    corners: Vec<Vec<DVec3>>,
+    /// For the corner search.
+    parts_scratch: PartsScratch,
+    /// For the face builder.
+    faces: FaceScratch,
+}
+
 /// The wall a seated member bears on, for one half of it.
 #[derive(Debug, Clone, PartialEq)]
 pub struct SeatWall {
@@ -110,35 +127,37 @@ impl PieceSpec {
     /// Cuts the solid: the board less everything its cuts remove, split
     /// into convex parts at the seat.
     pub fn solid(&self) -> Solid {
-        let mut base = Vec::new();
+        self.solid_with(&mut SolidScratch::default())
+    }
+
+    /// As [`PieceSpec::solid`], reusing `scratch` from piece to piece.
+    pub fn solid_with(&self, scratch: &mut SolidScratch) -> Solid {
+        let SolidScratch { base, half, planes, corners: corner_lists, parts_scratch, faces } = scratch;
+        base.clear();
         // Cuts first, so a cut flush with a board face keeps its tag.
         base.extend(self.upper_cuts.iter().copied());
         base.extend(self.lower_cuts.iter().copied());
         base.extend(self.top_planes.iter().copied());
         base.extend(self.frame.box_planes(self.size));
-        let mut parts = Vec::new();
-        let halves: Vec<(Vec<HalfSpace>, Option<&SeatWall>)> = match self.seat.as_slice() {
-            [] => vec![(base, None)],
-            [wall] => vec![(base, Some(wall))],
-            [left, right] => [(true, left), (false, right)]
-                .into_iter()
-                .map(|(is_left, wall)| {
-                    let mut half = base.clone();
-                    half.extend(self.frame.centre_half(is_left));
-                    (half, Some(wall))
-                })
-                .collect(),
-            _ => Vec::new(),
+        let mut parts = Vec::with_capacity(if self.has_tail { 3 } else { 1 } * self.seat.len().max(1));
+        let halves: [Option<(Option<bool>, Option<&SeatWall>)>; 2] = match self.seat.as_slice() {
+            [] => [Some((None, None)), None],
+            [wall] => [Some((None, Some(wall))), None],
+            [left, right] => [Some((Some(true), Some(left))), Some((Some(false), Some(right)))],
+            _ => [None, None],
         };
-        let mut scratch = FaceScratch::default();
-        for (half, wall) in halves {
+        for (centre, wall) in halves.into_iter().flatten() {
+            half.clear();
+            half.extend(base.iter().copied());
+            if let Some(is_left) = centre {
+                half.extend(self.frame.centre_half(is_left));
+            }
             let Some(wall) = wall else {
-                let vertices = corners(&half);
-                parts.extend(ConvexPart::from_corners(&half, vertices, &mut scratch));
+                let vertices = corners(half);
+                parts.extend(ConvexPart::from_corners(half, vertices, faces));
                 continue;
             };
             let inside = wall.inside;
-            let mut half = half;
             half.extend(wall.half_cuts.iter().copied());
             let outside = HalfSpace {
                 normal: -inside.normal,
@@ -151,45 +170,42 @@ impl PieceSpec {
             let below_plate = HalfSpace { normal: DVec3::Z, offset: 0.0, tag: FaceTag::Interior, end: None };
             let inside_tag = if self.has_tail { FaceTag::Interior } else { FaceTag::Tail };
             let inside_end = if self.has_tail { None } else { Some(CutEnd::Tail) };
-            // Each part is the half's planes and two or three more.
-            let mut extra: Vec<Vec<HalfSpace>> = Vec::with_capacity(5);
-            let mut body =
-                vec![HalfSpace { tag: inside_tag, end: inside_end, ..inside }, above_plate(FaceTag::Seat)];
-            let inside_plate = wall.plate_inner.map(|plate| HalfSpace {
-                normal: -plate.normal,
-                offset: -plate.offset,
-                tag: FaceTag::Interior,
-                end: None,
-            });
-            if let Some(plate) = wall.plate_inner {
-                body.extend(inside_plate);
-                extra.push(vec![
-                    HalfSpace { tag: FaceTag::Interior, end: None, ..plate },
-                    HalfSpace { end: None, ..above_plate(FaceTag::Interior) },
-                ]);
-                // The notch's inner plumb cut bears on the plate's inner face.
-                extra.push(vec![
-                    HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..plate },
-                    below_plate,
-                ]);
-            }
-            extra.push(body);
-            if self.has_tail {
-                let mut interior_plate = above_plate(FaceTag::Interior);
-                interior_plate.end = None;
-                extra.push(vec![outside, interior_plate]);
-                extra.push(vec![
-                    HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..outside },
-                    below_plate,
-                ]);
-            }
-            let extras: Vec<&[HalfSpace]> = extra.iter().map(Vec::as_slice).collect();
-            let mut planes = Vec::with_capacity(half.len() + 3);
-            for (more, vertices) in extra.iter().zip(corners_of_parts(&half, &extras)) {
+            // Each part is the half's planes and two or three more: past
+            // the plate above and below it (over a corner), the body, and
+            // the tail's top and bottom.
+            let plate = wall.plate_inner.unwrap_or(inside);
+            let inside_plate =
+                HalfSpace { normal: -plate.normal, offset: -plate.offset, tag: FaceTag::Interior, end: None };
+            let past_above = [
+                HalfSpace { tag: FaceTag::Interior, end: None, ..plate },
+                HalfSpace { end: None, ..above_plate(FaceTag::Interior) },
+            ];
+            // The notch's inner plumb cut bears on the plate's inner face.
+            let past_below =
+                [HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..plate }, below_plate];
+            let body_planes = [
+                HalfSpace { tag: inside_tag, end: inside_end, ..inside },
+                above_plate(FaceTag::Seat),
+                inside_plate,
+            ];
+            let body = if wall.plate_inner.is_some() { &body_planes[..] } else { &body_planes[..2] };
+            let tail_top = [outside, HalfSpace { end: None, ..above_plate(FaceTag::Interior) }];
+            let tail_bottom =
+                [HalfSpace { tag: FaceTag::Heel, end: Some(CutEnd::Seat), ..outside }, below_plate];
+            let all: [&[HalfSpace]; 5] = [&past_above, &past_below, body, &tail_top, &tail_bottom];
+            let extras = match (wall.plate_inner.is_some(), self.has_tail) {
+                (true, true) => &all[..],
+                (true, false) => &all[..3],
+                (false, true) => &all[2..],
+                (false, false) => &all[2..3],
+            };
+            corner_lists.clear();
+            corners_of_parts(half, extras, parts_scratch, corner_lists);
+            for (more, vertices) in extras.iter().zip(corner_lists.drain(..)) {
                 planes.clear();
                 planes.extend(half.iter().copied());
                 planes.extend(more.iter().copied());
-                parts.extend(ConvexPart::from_corners(&planes, vertices, &mut scratch));
+                parts.extend(ConvexPart::from_corners(planes, vertices, faces));
             }
         }
         Solid { parts }

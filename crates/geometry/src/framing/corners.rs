@@ -105,7 +105,8 @@ fn triple_point(
 
 /// The corners of several parts cut by mostly the same planes: part `p`
 /// is the intersection of `common` and `extras[p]`, and gets exactly what
-/// [`corners`] gives for `common` followed by `extras[p]`.
+/// [`corners`] gives for `common` followed by `extras[p]`. The corners are
+/// pushed onto `out`, one list per part in order.
 ///
 /// The parts of one piece share its board's faces and end cuts and differ
 /// in two or three planes at the seat. Each triple of planes any part has
@@ -114,11 +115,17 @@ fn triple_point(
 /// order, so a part's triples, in its own order, are the shared list's
 /// triples it has, in the shared order. A part whose extra planes cannot
 /// keep their order in that list is searched on its own.
-pub fn corners_of_parts(common: &[HalfSpace], extras: &[&[HalfSpace]]) -> Vec<Vec<DVec3>> {
+pub fn corners_of_parts(
+    common: &[HalfSpace],
+    extras: &[&[HalfSpace]],
+    scratch: &mut PartsScratch,
+    out: &mut Vec<Vec<DVec3>>,
+) {
+    let PartsScratch { shared_extras, planes, has, bit_of, crosses, candidates } = scratch;
     // The extra planes, distinct to the bit, in an order every part keeps
     // where it can: a plane new to the list goes right after the part's
     // plane before it.
-    let mut shared_extras: Vec<HalfSpace> = Vec::with_capacity(8);
+    shared_extras.clear();
     for part in extras {
         let mut after: Option<usize> = None;
         for h in *part {
@@ -133,30 +140,31 @@ pub fn corners_of_parts(common: &[HalfSpace], extras: &[&[HalfSpace]]) -> Vec<Ve
             after = Some(at);
         }
     }
-    let planes: Vec<HalfSpace> = common.iter().chain(&shared_extras).copied().collect();
+    planes.clear();
+    planes.extend(common.iter().chain(shared_extras.iter()).copied());
     let n = planes.len();
-    // Which parts have each plane, as bits (a part's planes in increasing
-    // order, or it is searched alone).
-    let mut has: Vec<u64> = vec![0; n];
-    let mut alone: Vec<bool> = vec![false; extras.len()];
-    for (p, part) in extras.iter().enumerate() {
+    // Which parts have each plane, as bits; a part gets a bit when its
+    // planes are in increasing order in the shared list, else it is
+    // searched alone.
+    has.clear();
+    has.resize(n, 0);
+    bit_of.clear();
+    let mut bits = 0u32;
+    for part in extras {
         let mut last = common.len().checked_sub(1);
+        let mut in_order = bits < 64;
         for h in *part {
             let at = shared_extras.iter().position(|e| same_plane(e, h)).map(|e| e + common.len());
             match at {
                 Some(at) if last.is_none_or(|l| at > l) => last = Some(at),
-                _ => alone[p] = true,
+                _ => in_order = false,
             }
         }
-    }
-    // Each part searched together gets a bit.
-    let mut bit_of: Vec<Option<u32>> = vec![None; extras.len()];
-    let mut bits = 0u32;
-    for (p, part) in extras.iter().enumerate() {
-        if alone.get(p).copied().unwrap_or(true) || bits == 64 {
+        if !in_order {
+            bit_of.push(None);
             continue;
         }
-        bit_of[p] = Some(bits);
+        bit_of.push(Some(bits));
         for h in has.iter_mut().take(common.len()) {
             *h |= 1 << bits;
         }
@@ -168,14 +176,14 @@ pub fn corners_of_parts(common: &[HalfSpace], extras: &[&[HalfSpace]]) -> Vec<Ve
         }
         bits += 1;
     }
-    let mut crosses: Vec<DVec3> = Vec::with_capacity(n * n);
-    for a in &planes {
+    crosses.clear();
+    for a in planes.iter() {
         crosses.extend(planes.iter().map(|b| a.normal.cross(b.normal)));
     }
     let cross = |x: usize, y: usize| crosses.get(x * n + y).copied().unwrap_or(DVec3::ZERO);
     // Every triple some part has whose point lies inside the common planes,
     // in triple order, with the parts that have it.
-    let mut candidates: Vec<(DVec3, u64)> = Vec::with_capacity(64);
+    candidates.clear();
     let longest_normal = planes.iter().map(|h| h.normal.length()).fold(0.0, f64::max);
     let mut last_out = 0;
     for (i, a) in planes.iter().enumerate() {
@@ -195,7 +203,7 @@ pub fn corners_of_parts(common: &[HalfSpace], extras: &[&[HalfSpace]]) -> Vec<Ve
                 if with_abc == 0 {
                     continue;
                 }
-                let Some(p) = triple_point(&planes, i, j, k, cross) else { continue };
+                let Some(p) = triple_point(planes, i, j, k, cross) else { continue };
                 let inside = |h: &HalfSpace| h.distance(p) <= CORNER_TOL_IN;
                 if common.get(last_out).is_some_and(|h| !inside(h)) {
                     continue;
@@ -208,27 +216,42 @@ pub fn corners_of_parts(common: &[HalfSpace], extras: &[&[HalfSpace]]) -> Vec<Ve
             }
         }
     }
-    extras
-        .iter()
-        .zip(bit_of)
-        .map(|(part, bit)| {
-            let Some(bit) = bit else {
-                return corners(&with_common(common, part));
-            };
-            let mut vertices: Vec<DVec3> = Vec::with_capacity(16);
-            for &(p, parts) in &candidates {
-                // NaN counts as outside, as a failed comparison.
-                let inside = |h: &HalfSpace| h.distance(p) <= CORNER_TOL_IN;
-                if parts & (1 << bit) == 0 || part.iter().any(|h| !inside(h)) {
-                    continue;
-                }
-                if !vertices.iter().any(|v| v.distance_squared(p) < SAME_CORNER_IN * SAME_CORNER_IN) {
-                    vertices.push(p);
-                }
+    for (part, bit) in extras.iter().zip(bit_of.iter()) {
+        let Some(bit) = *bit else {
+            out.push(corners(&with_common(common, part)));
+            continue;
+        };
+        let mut vertices: Vec<DVec3> = Vec::with_capacity(16);
+        for &(p, parts) in candidates.iter() {
+            // NaN counts as outside, as a failed comparison.
+            let inside = |h: &HalfSpace| h.distance(p) <= CORNER_TOL_IN;
+            if parts & (1 << bit) == 0 || part.iter().any(|h| !inside(h)) {
+                continue;
             }
-            vertices
-        })
-        .collect()
+            if !vertices.iter().any(|v| v.distance_squared(p) < SAME_CORNER_IN * SAME_CORNER_IN) {
+                vertices.push(p);
+            }
+        }
+        out.push(vertices);
+    }
+}
+
+/// Buffers [`corners_of_parts`] reuses from one piece to the next.
+#[derive(Debug, Default)]
+pub struct PartsScratch {
+    /// The parts' extra planes, distinct, in the shared order.
+    shared_extras: Vec<HalfSpace>,
+    /// The common planes, then those.
+    planes: Vec<HalfSpace>,
+    /// Which parts have each plane, as bits.
+    has: Vec<u64>,
+    /// Each part's bit, or none for a part searched alone.
+    bit_of: Vec<Option<u32>>,
+    /// Normal x cross normal y, at x * planes + y.
+    crosses: Vec<DVec3>,
+    /// The triples' points inside the common planes, with the parts that
+    /// have the triple.
+    candidates: Vec<(DVec3, u64)>,
 }
 
 /// `common` followed by `extra`.
@@ -371,7 +394,8 @@ mod tests {
                 })
                 .collect();
             let extras: Vec<&[HalfSpace]> = parts.iter().map(Vec::as_slice).collect();
-            let found = corners_of_parts(&common, &extras);
+            let mut found = Vec::new();
+            corners_of_parts(&common, &extras, &mut PartsScratch::default(), &mut found);
             assert_eq!(found.len(), parts.len());
             for (part, got) in parts.iter().zip(&found) {
                 let planes: Vec<HalfSpace> = common.iter().chain(part).copied().collect();

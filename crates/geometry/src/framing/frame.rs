@@ -4,7 +4,7 @@ use glam::DVec2;
 use serde::Serialize;
 
 use super::bearing_stretch::lands_on_bearing;
-use super::board::PieceSpec;
+use super::board::{PieceSpec, SolidScratch};
 use super::builders::{Bearing, Ctx};
 use super::checks::piece_checks;
 use super::joints::{Joint, check_fit, part_bounds};
@@ -274,7 +274,8 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         })
         .collect();
 
-    let solids: Vec<_> = specs.iter().map(PieceSpec::solid).collect();
+    let mut scratch = SolidScratch::default();
+    let solids: Vec<_> = specs.iter().map(|s| s.solid_with(&mut scratch)).collect();
     let measured: Vec<Measured> =
         specs.iter().zip(&solids).map(|(s, solid)| measure(s, solid, settings)).collect();
     // A piece its cuts leave nothing of (a layout line squeezed out at a
