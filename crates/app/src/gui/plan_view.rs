@@ -14,7 +14,7 @@ use super::edit::{PlanEdit, corner_in, locate, neighbours, ring, wall_count, wal
 use super::palette;
 use super::snap::Snap;
 use super::units::DisplayUnits;
-use super::viewport::{Renderer, fill_by_clearing};
+use super::viewport::{PixelGrid, Renderer, fill_by_clearing};
 
 /// Room left round the drawing, in points, for the lengths written
 /// outside the walls.
@@ -166,18 +166,28 @@ pub fn plan_view_ui(
     }
     zoom_and_pan(ui, &background, state);
     let painter = ui.painter_at(rect);
-    match input.renderer {
-        Some(renderer) => fill_by_clearing(&painter, renderer, rect, ui.visuals().extreme_bg_color),
-        None => {
-            painter.rect_filled(rect, 0.0, ui.visuals().extreme_bg_color);
-        }
-    }
     let plan = input.plan;
     let transform = state.frozen.unwrap_or_else(|| {
         let (min, max) = drawing_bounds(input);
         PlanTransform::fit(min, max, rect).zoomed(state.zoom, state.pan_pt)
     });
-    grid_ui(&painter, rect, transform, input.units, ui.visuals().dark_mode);
+    let grid = grid_lines(rect, transform, input.units, ui.visuals().dark_mode);
+    // egui draws a line one point wide as one row of whole pixels at one
+    // point to a pixel, so the renderer can draw the same pixels unblended.
+    let pixel_grid = (ui.ctx().pixels_per_point() == 1.0).then(|| grid.pixels()).flatten();
+    match (input.renderer, pixel_grid) {
+        (Some(renderer), Some(pixel_grid)) => {
+            fill_by_clearing(&painter, renderer, rect, ui.visuals().extreme_bg_color, pixel_grid);
+        }
+        (Some(renderer), None) => {
+            fill_by_clearing(&painter, renderer, rect, ui.visuals().extreme_bg_color, PixelGrid::default());
+            grid.draw(&painter, rect);
+        }
+        (None, _) => {
+            painter.rect_filled(rect, 0.0, ui.visuals().extreme_bg_color);
+            grid.draw(&painter, rect);
+        }
+    }
     roof_ui(&painter, input, transform);
 
     let faults = input.derived.problem.as_ref().map(|p| p.walls.clone()).unwrap_or_default();
@@ -467,8 +477,17 @@ fn drawing_bounds(input: &PlanViewInput<'_>) -> (DVec2, DVec2) {
     points.fold((first, first), |(min, max), p| (min.min(p), max.max(p)))
 }
 
-/// A faint grid every foot (or 100 mm), or every ten when that is too fine.
-fn grid_ui(painter: &egui::Painter, rect: Rect, transform: PlanTransform, units: DisplayUnits, dark: bool) {
+/// A faint grid every foot (or 100 mm), or every ten when that is too
+/// fine: where its lines fall on the screen.
+struct GridLines {
+    /// Screen x of each line running up the view, in points.
+    xs: Vec<f32>,
+    /// Screen y of each line running across it, in points.
+    ys: Vec<f32>,
+    colour: Color32,
+}
+
+fn grid_lines(rect: Rect, transform: PlanTransform, units: DisplayUnits, dark: bool) -> GridLines {
     let [_, coarse] = units.snap_steps_in();
     let mut step = coarse;
     while step * transform.points_per_in < 8.0 {
@@ -476,23 +495,42 @@ fn grid_ui(painter: &egui::Painter, rect: Rect, transform: PlanTransform, units:
     }
     let colour = if dark { Color32::from_gray(50) } else { Color32::from_gray(215) };
     let (low, high) = (transform.to_plan(rect.left_bottom()), transform.to_plan(rect.right_top()));
+    let mut xs = Vec::new();
     let mut x = (low.x / step).floor() * step;
     while x <= high.x {
-        let sx = transform.to_screen(DVec2::new(x, 0.0)).x;
-        painter.line_segment(
-            [Pos2::new(sx, rect.top()), Pos2::new(sx, rect.bottom())],
-            Stroke::new(1.0, colour),
-        );
+        xs.push(transform.to_screen(DVec2::new(x, 0.0)).x);
         x += step;
     }
+    let mut ys = Vec::new();
     let mut y = (low.y / step).floor() * step;
     while y <= high.y {
-        let sy = transform.to_screen(DVec2::new(0.0, y)).y;
-        painter.line_segment(
-            [Pos2::new(rect.left(), sy), Pos2::new(rect.right(), sy)],
-            Stroke::new(1.0, colour),
-        );
+        ys.push(transform.to_screen(DVec2::new(0.0, y)).y);
         y += step;
+    }
+    GridLines { xs, ys, colour }
+}
+
+impl GridLines {
+    fn draw(&self, painter: &egui::Painter, rect: Rect) {
+        let stroke = Stroke::new(1.0, self.colour);
+        for &sx in &self.xs {
+            painter.line_segment([Pos2::new(sx, rect.top()), Pos2::new(sx, rect.bottom())], stroke);
+        }
+        for &sy in &self.ys {
+            painter.line_segment([Pos2::new(rect.left(), sy), Pos2::new(rect.right(), sy)], stroke);
+        }
+    }
+
+    /// The pixel columns and rows egui would fill for these lines at one
+    /// pixel to a point (it puts a one-pixel line's centre on the nearest
+    /// pixel centre); `None` where a position is not a number.
+    fn pixels(&self) -> Option<PixelGrid> {
+        let pixel = |at: f32| at.is_finite().then(|| (at - 0.5).round() as i32);
+        Some(PixelGrid {
+            columns: self.xs.iter().map(|&x| pixel(x)).collect::<Option<_>>()?,
+            rows: self.ys.iter().map(|&y| pixel(y)).collect::<Option<_>>()?,
+            colour: self.colour,
+        })
     }
 }
 
@@ -521,6 +559,24 @@ fn roof_ui(painter: &egui::Painter, input: &PlanViewInput<'_>, transform: PlanTr
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn grid_pixels_are_those_egui_fills_for_a_one_pixel_line() {
+        use egui::emath::GuiRounding as _;
+        let positions = [100.0_f32, 100.3, 100.5, 100.7, 101.49, 0.2, 639.999];
+        let grid = GridLines { xs: positions.to_vec(), ys: positions.to_vec(), colour: Color32::GRAY };
+        let pixels = grid.pixels().unwrap();
+        // Reference: egui's tessellator puts a one-pixel line's centre on
+        // `round_to_pixel_center` at one pixel to a point; that pixel is
+        // the one whose centre it is.
+        for (&at, (&column, &row)) in positions.iter().zip(pixels.columns.iter().zip(&pixels.rows)) {
+            let centre = at.round_to_pixel_center(1.0);
+            assert_eq!(column as f32 + 0.5, centre, "x {at}");
+            assert_eq!(row as f32 + 0.5, centre, "y {at}");
+        }
+        let bad = GridLines { xs: vec![f32::NAN], ys: Vec::new(), colour: Color32::GRAY };
+        assert_eq!(bad.pixels(), None);
+    }
 
     #[test]
     fn plan_points_go_to_the_screen_and_back_with_y_up() {
