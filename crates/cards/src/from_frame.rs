@@ -714,6 +714,19 @@ fn card_cuts(
                 top_mark: None,
                 notes: vec![format!("{} long on the side face", length(*length_in))],
             }),
+            Cut::PlateLevel { square, length_in, depth_off_in, .. } => cuts.push(CardCut {
+                face: CutFace::Seat,
+                place: "lower edge, level on the top of plate".into(),
+                square: Some(side_square(*square, MarkAlong::Against, member, style)),
+                settings: vec![],
+                angles: None,
+                mark: edge_mark(side, CutFace::Seat, 0.0),
+                top_mark: None,
+                notes: vec![
+                    format!("{} long on the side face", length(*length_in)),
+                    format!("takes up to {} off the depth, plumb", length(*depth_off_in)),
+                ],
+            }),
             Cut::Backing { left_deg, right_deg, .. } => cuts.push(CardCut {
                 face: CutFace::Backing,
                 place: "full length, top edge".into(),

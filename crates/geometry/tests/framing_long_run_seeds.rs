@@ -7,7 +7,7 @@ mod framing_support;
 
 use framing_support::parry_fit;
 use glam::dvec2;
-use pitchframe_geometry::framing::{Frame, FramingSettings, FramingWarning, MemberKind, frame_roof};
+use pitchframe_geometry::framing::{Cut, Frame, FramingSettings, FramingWarning, MemberKind, frame_roof};
 use pitchframe_geometry::{Outline, Roof, Wall, WallRoof, check_roof};
 
 /// One wall: its first corner, rise per run (0 for a gable) and overhang.
@@ -185,6 +185,29 @@ fn a_hip_running_low_beside_a_wall_is_cut_level_with_the_plate() {
         assert_eq!(p.kind, MemberKind::Hip);
         let lowest = p.solid.vertices().map(|v| v.z).fold(f64::INFINITY, f64::min);
         assert!(lowest > -1e-6, "{} reaches {lowest} in below the plates' top", p.label);
+        // The level cut is in the member's cut list, as long as the
+        // solid's face on the plates' top and as deep as the warning says.
+        let member = frame.members.iter().find(|m| m.label == p.label).unwrap();
+        let level: Vec<(f64, f64)> = member
+            .cuts
+            .iter()
+            .filter_map(|c| match c {
+                Cut::PlateLevel { length_in, depth_off_in, .. } => Some((*length_in, *depth_off_in)),
+                _ => None,
+            })
+            .collect();
+        assert_eq!(level.len(), 1, "{}: {:?}", p.label, member.cuts);
+        let dir = (p.plan_line[1] - p.plan_line[0]).normalize();
+        let on_plate: Vec<f64> =
+            p.solid.vertices().filter(|v| v.z.abs() < 1e-6).map(|v| v.truncate().dot(dir)).collect();
+        let extent = on_plate.iter().copied().fold(f64::NEG_INFINITY, f64::max)
+            - on_plate.iter().copied().fold(f64::INFINITY, f64::min);
+        assert!((level[0].0 - extent).abs() < 1e-6 && level[0].0 > 1.0, "{level:?} against {extent}");
+        let warned = frame.warnings.iter().find_map(|w| match w {
+            FramingWarning::HipCutLevelAtPlate { label, cut_in } if *label == p.label => Some(*cut_in),
+            _ => None,
+        });
+        assert_eq!(warned, Some(level[0].1));
     }
     let foot = dvec2(0.046_612_367, 266.796_437_859);
     let on_valley: Vec<_> = frame

@@ -164,6 +164,11 @@ fn cut_text(units: DisplayUnits, cut: &Cut) -> String {
         Cut::Soffit { length_in, .. } => {
             format!("Soffit cut, level, {} long", inches_text(units, *length_in))
         }
+        Cut::PlateLevel { length_in, depth_off_in, .. } => format!(
+            "Level cut at the plate: {} long, up to {} off the depth",
+            inches_text(units, *length_in),
+            inches_text(units, *depth_off_in)
+        ),
         Cut::Backing { left_deg, right_deg, .. } => {
             format!("Backing: {left_deg:.1}° left, {right_deg:.1}° right")
         }

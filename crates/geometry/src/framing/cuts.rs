@@ -171,6 +171,19 @@ pub enum Cut {
         /// Length of the level cut along the side face.
         length_in: f64,
     },
+    /// A level cut along the lower edge of a hip up on the roof that would
+    /// otherwise run down into a wall's plate: it bears on the plate there.
+    PlateLevel {
+        /// Always the seat (where the member bears on the plate).
+        end: CutEnd,
+        /// Square figures of the level line on the side face, as for the
+        /// seat.
+        square: [f64; 2],
+        /// Length of the level cut along the side face.
+        length_in: f64,
+        /// The most it takes off the member's depth, plumb.
+        depth_off_in: f64,
+    },
     /// Backing: the hip's top bevelled into each roof plane.
     Backing {
         /// Along the whole length.
@@ -197,6 +210,7 @@ impl Cut {
             | Self::Seat { end, .. }
             | Self::Tail { end, .. }
             | Self::Soffit { end, .. }
+            | Self::PlateLevel { end, .. }
             | Self::Backing { end, .. }
             | Self::SquareEnd { end } => *end,
         }

@@ -223,7 +223,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         if peak_without_ridge {
             warnings_extra.push((index, FramingWarning::HipsMeetWithoutRidge { label: String::new() }));
         }
-        if let Some(cut_in) = plate_level_cut(&spec) {
+        if let Some(cut_in) = super::measure::plate_level_depth(&spec) {
             warnings_extra.push((index, FramingWarning::HipCutLevelAtPlate { label: String::new(), cut_in }));
         }
         specs.push(spec);
@@ -487,18 +487,6 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         })
         .collect();
     Ok(Frame { members, pieces, joints: joints.into_iter().map(|(j, _)| j).collect(), warnings })
-}
-
-/// How much a level cut at the plates' top takes off an unseated member's
-/// lower edge (plumb, at its lower end, where it is lowest), if it has one.
-fn plate_level_cut(spec: &PieceSpec) -> Option<f64> {
-    let level = spec.seat.is_empty()
-        && spec.lower_cuts.iter().any(|h| h.tag == FaceTag::Seat && h.normal.z < -1.0 + 1e-12);
-    if !level || spec.frame.up.z <= 1e-9 {
-        return None;
-    }
-    let plumb_depth = spec.size.depth_in / spec.frame.up.z;
-    Some((plumb_depth - spec.frame.origin.z).max(0.0))
 }
 
 /// The items whose index maps to a new one.

@@ -92,6 +92,7 @@ fn serde_json_like(cuts: &[super::Cut]) -> Vec<i64> {
             }
             Cut::Tail { faces, .. } => out.extend(faces.iter().flat_map(face)),
             Cut::Soffit { length_in, .. } => out.push(q(*length_in)),
+            Cut::PlateLevel { length_in, depth_off_in, .. } => out.extend([q(*length_in), q(*depth_off_in)]),
             Cut::Backing { left_deg, right_deg, .. } => out.extend([q(*left_deg), q(*right_deg)]),
             Cut::SquareEnd { .. } => {}
         }

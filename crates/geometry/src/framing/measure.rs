@@ -184,6 +184,7 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
             );
             cuts.extend(cut);
             hand = hand.or(cut_hand);
+            cuts.extend(plate_level(spec, solid, plan_dir));
         }
         let backing: Vec<&super::Face> = solid.faces().filter(|f| f.tag == FaceTag::Backing).collect();
         let normals = distinct_normals(&backing);
@@ -295,6 +296,35 @@ fn own_plumb(spec: &PieceSpec, square: [f64; 2]) -> [f64; 2] {
 }
 
 /// The birdsmouth, read from the seat faces.
+/// The level cut at the plate of a member with no seat, where its solid
+/// has one (the cut took something off).
+fn plate_level(spec: &PieceSpec, solid: &Solid, plan_dir: glam::DVec2) -> Option<Cut> {
+    let depth_off_in = plate_level_depth(spec)?;
+    let along: Vec<f64> = faces_of(solid, CutEnd::Seat, &[FaceTag::Seat])
+        .iter()
+        .flat_map(|f| f.vertices.iter().map(|p| p.truncate().dot(plan_dir)))
+        .collect();
+    if along.is_empty() {
+        return None;
+    }
+    let (lo, hi) =
+        along.iter().fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), a| (lo.min(*a), hi.max(*a)));
+    Some(Cut::PlateLevel { end: CutEnd::Seat, square: spec.plumb_square, length_in: hi - lo, depth_off_in })
+}
+
+/// How much of its depth, plumb, a member with no seat loses to a level
+/// cut at the top of plate (at its lower end, where it is lowest), where
+/// its lower cuts have one.
+pub(super) fn plate_level_depth(spec: &PieceSpec) -> Option<f64> {
+    let level = spec.seat.is_empty()
+        && spec.lower_cuts.iter().any(|h| h.tag == FaceTag::Seat && h.normal.z < -1.0 + 1e-12);
+    if !level || spec.frame.up.z <= 1e-9 {
+        return None;
+    }
+    let plumb_depth = spec.size.depth_in / spec.frame.up.z;
+    Some((plumb_depth - spec.frame.origin.z).max(0.0))
+}
+
 fn seat_cut(spec: &PieceSpec, solid: &Solid) -> Cut {
     let fr = &spec.frame;
     let plan_dir = fr.along.truncate().normalize_or_zero();
