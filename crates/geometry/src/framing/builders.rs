@@ -879,7 +879,31 @@ impl Ctx<'_> {
         // framed there, as a hip's is, or plumb at the node.
         let seated = line.from_z.abs() < 1e-6;
         let mut foot_bearings = Vec::new();
-        if !seated {
+        let (lower_cuts, seat, has_tail) = if seated {
+            let has_tail = pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
+            // Over an inside corner each half ends at its own side's fascia.
+            let half = |p: &PlaneFrame| -> Option<SeatWall> {
+                let mut half_cuts = Vec::new();
+                if has_tail {
+                    half_cuts.extend(self.fascia_side_tail(p));
+                    if let TailCut::PlumbAndLevel { plumb_height_in } = self.settings.tail {
+                        let z = self.heel - p.slope * p.overhang_in - plumb_height_in;
+                        half_cuts.extend(HalfSpace::through(
+                            DVec3::new(0.0, 0.0, z),
+                            -DVec3::Z,
+                            FaceTag::Soffit,
+                            Some(CutEnd::Tail),
+                        ));
+                    }
+                }
+                Some(SeatWall {
+                    inside: p.wall_side(0.0, true, FaceTag::Interior, None)?,
+                    half_cuts,
+                    plate_inner: self.plate_inner(p),
+                })
+            };
+            (Vec::new(), vec![half(pl)?, half(pr)?], has_tail)
+        } else {
             let up_dir = (line.to - line.from).normalize_or_zero();
             let mut lower_cuts = self.foot_on_roof(line, up_dir, mid, &frame, &mut foot_bearings, false);
             if lower_cuts.is_empty() {
@@ -890,47 +914,8 @@ impl Ctx<'_> {
                     Some(CutEnd::Bottom),
                 ));
             }
-            let spec = PieceSpec {
-                kind: MemberKind::Valley,
-                size,
-                frame,
-                plan_line: [line.from, line.to],
-                slope,
-                top_planes: Vec::new(),
-                upper_cuts,
-                lower_cuts,
-                seat: Vec::new(),
-                has_tail: false,
-                drop_in: 0.0,
-                plumb_square: hip_square(slope, pl, pr),
-            };
-            let bearings =
-                ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
-            return Some((spec, bearings, false));
-        }
-        let has_tail = pl.overhang_in > 0.0 && pr.overhang_in > 0.0;
-        // Over an inside corner each half ends at its own side's fascia.
-        let half = |p: &PlaneFrame| -> Option<SeatWall> {
-            let mut half_cuts = Vec::new();
-            if has_tail {
-                half_cuts.extend(self.fascia_side_tail(p));
-                if let TailCut::PlumbAndLevel { plumb_height_in } = self.settings.tail {
-                    let z = self.heel - p.slope * p.overhang_in - plumb_height_in;
-                    half_cuts.extend(HalfSpace::through(
-                        DVec3::new(0.0, 0.0, z),
-                        -DVec3::Z,
-                        FaceTag::Soffit,
-                        Some(CutEnd::Tail),
-                    ));
-                }
-            }
-            Some(SeatWall {
-                inside: p.wall_side(0.0, true, FaceTag::Interior, None)?,
-                half_cuts,
-                plate_inner: self.plate_inner(p),
-            })
+            (lower_cuts, Vec::new(), false)
         };
-        let seat = vec![half(pl)?, half(pr)?];
         let spec = PieceSpec {
             kind: MemberKind::Valley,
             size,
@@ -939,14 +924,16 @@ impl Ctx<'_> {
             slope,
             top_planes: Vec::new(),
             upper_cuts,
-            lower_cuts: Vec::new(),
+            lower_cuts,
             seat,
             has_tail,
             drop_in: 0.0,
             plumb_square: hip_square(slope, pl, pr),
         };
-        // Ridge bearings are resolved to pieces by the caller.
-        let bearings = ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).collect();
+        // Ridge bearings are resolved to pieces by the caller; a foot up on
+        // the roof bears on what it was cut to there.
+        let bearings =
+            ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
         Some((spec, bearings, false))
     }
 }

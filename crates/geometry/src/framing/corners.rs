@@ -47,24 +47,16 @@ pub fn corners(planes: &[HalfSpace]) -> Vec<DVec3> {
     let cross = |x: usize, y: usize| crosses.get(x * n + y).copied().unwrap_or(DVec3::ZERO);
     let longest_normal = planes.iter().map(|h| h.normal.length()).fold(0.0, f64::max);
     let mut last_out = 0;
-    for (i, a) in planes.iter().enumerate() {
-        for (j, b) in planes.iter().enumerate().skip(i + 1) {
+    for i in 0..n {
+        for j in i + 1..n {
             let ab = cross(i, j);
             // Every triple with a and b has |det| <= |a x b| |c| (up to
             // round-off near 1e-16), below PARALLEL_DET: none meets.
             if ab.length() * longest_normal < PARALLEL_DET * 0.1 {
                 continue;
             }
-            for (k, c) in planes.iter().enumerate().skip(j + 1) {
-                let bc = cross(j, k);
-                let det = a.normal.dot(bc);
-                if det.abs() < PARALLEL_DET {
-                    continue;
-                }
-                let p = (bc * a.offset + cross(k, i) * b.offset + ab * c.offset) / det;
-                if !p.is_finite() {
-                    continue;
-                }
+            for k in j + 1..n {
+                let Some(p) = triple_point(planes, i, j, k, cross) else { continue };
                 // NaN counts as outside, as a failed comparison.
                 let inside = |h: &HalfSpace| h.distance(p) <= CORNER_TOL_IN;
                 if planes.get(last_out).is_some_and(|h| !inside(h)) {
