@@ -266,11 +266,7 @@ impl Renderer {
 
     /// Draws the scene into the part of the window egui gave the view.
     fn paint(&mut self, info: &egui::PaintCallbackInfo, painter: &egui_glow::Painter, frame: &FrameInput) {
-        let [screen_w, screen_h] = info.screen_size_px;
-        let target = match painter.intermediate_fbo() {
-            Some(fbo) => RenderTarget::from_framebuffer(&self.context, screen_w, screen_h, fbo),
-            None => RenderTarget::screen(&self.context, screen_w, screen_h),
-        };
+        let target = window_target(&self.context, info, painter);
         let view_px = info.viewport_in_pixels();
         let viewport = Viewport {
             x: view_px.left_px,
@@ -278,13 +274,7 @@ impl Renderer {
             width: px(view_px.width_px),
             height: px(view_px.height_px),
         };
-        let clip_px = info.clip_rect_in_pixels();
-        let scissor = ScissorBox {
-            x: clip_px.left_px,
-            y: clip_px.from_bottom_px,
-            width: px(clip_px.width_px),
-            height: px(clip_px.height_px),
-        };
+        let scissor = clip_scissor(info);
         let key = self.prepare(frame, [viewport.width, viewport.height]);
         let drawn = match self.drawn.take() {
             Some(drawn) if drawn.key == key => drawn,
@@ -696,17 +686,9 @@ pub fn fill_by_clearing(
     let callback = egui_glow::CallbackFn::new(move |info, painter| {
         let Ok(renderer) = renderer.lock() else { return };
         let [screen_w, screen_h] = info.screen_size_px;
-        let target = match painter.intermediate_fbo() {
-            Some(fbo) => RenderTarget::from_framebuffer(&renderer.context, screen_w, screen_h, fbo),
-            None => RenderTarget::screen(&renderer.context, screen_w, screen_h),
-        };
+        let target = window_target(&renderer.context, &info, painter);
         let clip_px = info.clip_rect_in_pixels();
-        let scissor = ScissorBox {
-            x: clip_px.left_px,
-            y: clip_px.from_bottom_px,
-            width: px(clip_px.width_px),
-            height: px(clip_px.height_px),
-        };
+        let scissor = clip_scissor(&info);
         target.clear_partially(scissor, ClearState::color(r, g, b, a));
         if let Some(lines) = grid_model(&renderer.context, &grid, [screen_w, screen_h], clip_px) {
             let [w, h] = [screen_w as f32, screen_h as f32];
@@ -825,5 +807,29 @@ fn labels_ui(ui: &egui::Ui, rect: egui::Rect, scene: &Scene, camera: &OrbitCamer
         painter.rect_filled(label_rect, 3.0, fill);
         painter.galley(label_rect.min + egui::vec2(2.0, 2.0), galley, text);
         placed.push(label_rect);
+    }
+}
+
+/// The window egui paints into (its offscreen buffer where it has one).
+fn window_target(
+    context: &Context,
+    info: &egui::PaintCallbackInfo,
+    painter: &egui_glow::Painter,
+) -> RenderTarget<'static> {
+    let [screen_w, screen_h] = info.screen_size_px;
+    match painter.intermediate_fbo() {
+        Some(fbo) => RenderTarget::from_framebuffer(context, screen_w, screen_h, fbo),
+        None => RenderTarget::screen(context, screen_w, screen_h),
+    }
+}
+
+/// The part of the window a paint callback may draw in.
+fn clip_scissor(info: &egui::PaintCallbackInfo) -> ScissorBox {
+    let clip_px = info.clip_rect_in_pixels();
+    ScissorBox {
+        x: clip_px.left_px,
+        y: clip_px.from_bottom_px,
+        width: px(clip_px.width_px),
+        height: px(clip_px.height_px),
     }
 }
