@@ -140,11 +140,8 @@ impl Tally {
         println!("{title}: {}", self.total);
         let mut kinds: Vec<_> = self.kinds.iter().collect();
         kinds.sort_by(|a, b| b.1.0.cmp(&a.1.0).then(a.0.cmp(b.0)));
-        for (kind, (n, seeds, example)) in kinds.iter().take(10) {
+        for (kind, (n, seeds, example)) in &kinds {
             println!("  {n:>9}  {kind}\n             seeds {seeds:?}; first: {example}");
-        }
-        if kinds.len() > 10 {
-            println!("  ... and {} more kinds", kinds.len() - 10);
         }
     }
 }
