@@ -532,3 +532,261 @@ fn a_ridge_ending_near_a_hips_top_is_not_cut_back_to_its_side() {
         "the ridge's end is cut to a hip"
     );
 }
+
+#[test]
+fn ridges_meeting_across_a_left_out_hip_are_cut_to_each_other() {
+    let frame = framed(&SEED_168, &[]);
+    // A hip 0.65 in long in plan, too short to cut, runs from (998.61,
+    // 30.50), where the ridge along y = 30.50 and the valley from the
+    // inside corner (856.26, 115.92) end, to (999.25, 30.64), where the
+    // ridge along x = 999.25 and the hip from the corner (1026.06, 0) end.
+    // That second node is a hip end: its ridge runs on 3/4 in past it
+    // and the king common along x = 999.25 bears on its end. The first
+    // ridge's square end ran 0.11 in past the second ridge's west face
+    // (999.245 - 3/4 = 998.495 in), into that ridge and the king; the
+    // valley's top ran into the second ridge beside it. Were the short hip
+    // not there, both ridges would meet at one node and the first would
+    // butt against the second's side: it is cut back to that face and
+    // bears on it, and the valley's top is cut to it too. Derivation.
+    let ridge_face_x = 999.245_001 - FramingSettings::default().ridge.thickness_in / 2.0;
+    let first = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::Ridge
+                && p.plan_line.iter().any(|q| q.distance(dvec2(998.607, 30.504)) < 0.01)
+        })
+        .expect("the ridge ending at (998.61, 30.50)");
+    let eastmost = frame.pieces[first].solid.vertices().map(|v| v.x).fold(f64::NEG_INFINITY, f64::max);
+    assert!(
+        (eastmost - ridge_face_x).abs() < 0.01,
+        "the ridge reaches x = {eastmost}, the face is at {ridge_face_x}"
+    );
+    let second = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Ridge && p.plan_line.iter().all(|q| (q.x - 999.245).abs() < 0.01))
+        .expect("the ridge along x = 999.25");
+    assert!(frame.joints.iter().any(|j| j.pieces == [first, second]), "the first ridge bears on the second");
+    // Every joint of the pieces at the two nodes fits within 1/64 in, by
+    // the frame's own check and by parry.
+    let at_nodes = |i: usize| {
+        frame.pieces[i]
+            .plan_line
+            .iter()
+            .any(|q| q.distance(dvec2(998.607, 30.504)) < 1.0 || q.distance(dvec2(999.245, 30.641)) < 1.0)
+    };
+    let joints: Vec<_> = frame.joints.iter().filter(|j| at_nodes(j.pieces[0])).collect();
+    let kinds: Vec<MemberKind> = joints.iter().map(|j| frame.pieces[j.pieces[0]].kind).collect();
+    for kind in [MemberKind::Ridge, MemberKind::KingCommon, MemberKind::Valley] {
+        assert!(kinds.contains(&kind), "{kinds:?}");
+    }
+    for j in joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        let (gap, overlap, mating) = parry_fit::fit(&frame, j.pieces[0], j.pieces[1]);
+        assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "{:?}: parry {gap} / {overlap}", j.members);
+    }
+}
+
+/// Seed 44494: a long block with two wings and a courtyard, mixed
+/// pitches, walls 11, 14 and 20 gables.
+#[rustfmt::skip]
+const SEED_44494: [WallRow; 23] = [
+    (0.0, 0.01586331455067062, 0.5, 18.0),
+    (0.01586331455067062, 0.0, 0.6934422384434443, 13.0),
+    (352.49722247667813, 0.0, 0.6934422384434443, 8.0),
+    (352.5172606770331, 0.0, 0.6934422384434443, 12.0),
+    (705.0144831537112, 0.0, 0.6934422384434443, 2.0),
+    (881.2681039421391, 0.0, 0.6934422384434443, 23.0),
+    (1057.5217247305668, 0.0, 1.0833333333333333, 5.0),
+    (1057.5217247305668, 140.033383397598, 0.4518360570907635, 16.0),
+    (983.5116798664656, 140.033383397598, 0.4518360570907635, 19.0),
+    (881.2681039421391, 140.033383397598, 1.1301961809014613, 18.0),
+    (881.2681039421391, 700.1669169879899, 1.4166666666666667, 18.0),
+    (705.0333771538145, 700.1669169879899, 0.0, 20.0),
+    (705.0144831537112, 700.1480229878866, 1.0833333333333333, 13.0),
+    (705.0144831537112, 280.066766795196, 1.0833333333333333, 1.0),
+    (705.0144831537112, 140.033383397598, 0.0, 16.0),
+    (528.7608623652834, 140.033383397598, 0.5, 17.0),
+    (528.7608623652834, 420.100150192794, 0.8333333333333334, 19.0),
+    (352.5072415768556, 420.100150192794, 1.0, 18.0),
+    (352.5072415768556, 140.033383397598, 1.4166666666666667, 18.0),
+    (176.2536207884278, 140.033383397598, 1.0833333333333333, 10.0),
+    (176.2536207884278, 280.0530071310392, 0.0, 19.0),
+    (176.239861124271, 280.066766795196, 1.1666666666666667, 16.0),
+    (0.0, 280.066766795196, 0.5833333333333334, 23.0),
+];
+
+#[rustfmt::skip]
+const SEED_44494_COURTYARD: [WallRow; 4] = [
+    (424.6884324121936, 145.18867368323563, 0.16666666666666666, 17.0),
+    (521.7148247939859, 145.18867368323563, 1.4166666666666667, 18.0),
+    (521.7148247939859, 242.9528254507184, 1.0833333333333333, 20.0),
+    (424.6884324121936, 242.9528254507184, 1.5, 4.0),
+];
+
+#[test]
+fn a_ridge_running_low_over_a_plate_is_cut_level_with_it() {
+    let frame = framed(&SEED_44494, &[&SEED_44494_COURTYARD]);
+    // The ridge along x = 523.55 between wall 15's plane (x = 528.76,
+    // 6/12) and the courtyard's east wall's plane (x = 521.71, 17/12) is
+    // only 2.60 in above the plates: 1.84 in from the courtyard's wall
+    // line, it stands over that wall's plate, and a 2x10 ridge's 9-1/4 in
+    // reaches 1.36 in below the plates' top. Its south end is cut back to
+    // the side of the valley rising from the courtyard's corner (521.71,
+    // 145.19), 2.8 to 5.2 in from that corner, partly over the plate of
+    // the courtyard's south wall, where the valley is notched down to the
+    // plate's top: the ridge's end below the plate faced nothing, a gap
+    // of 3/4 in. Cut level with the plate's top, as a hip
+    // running as low is, it bears on the plate and its end on the valley
+    // above it. Derivation.
+    let ridge = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Ridge && p.plan_line.iter().all(|q| (q.x - 523.553).abs() < 0.01))
+        .expect("the ridge along x = 523.55");
+    let label = &frame.pieces[ridge].label;
+    let lowest = frame.pieces[ridge].solid.vertices().map(|v| v.z).fold(f64::INFINITY, f64::min);
+    assert!(lowest > -1e-6, "{label} reaches {lowest} in below the plates' top");
+    let flagged = frame.warnings.iter().any(|w| {
+        matches!(w, FramingWarning::HipCutLevelAtPlate { label: l, cut_in } if l == label && (cut_in - 1.357).abs() < 0.01)
+    });
+    assert!(flagged, "{label} is not flagged cut level at the plate: {:?}", frame.warnings);
+    let member = frame.members.iter().find(|m| &m.label == label).unwrap();
+    assert!(member.cuts.iter().any(|c| matches!(c, Cut::PlateLevel { .. })), "{:?}", member.cuts);
+    let on_valley: Vec<_> = frame
+        .joints
+        .iter()
+        .filter(|j| j.pieces[0] == ridge && frame.pieces[j.pieces[1]].kind == MemberKind::Valley)
+        .collect();
+    assert_eq!(on_valley.len(), 1);
+    // Its joint on the valley and every rafter's on it fit within 1/64
+    // in, by the frame's own check; the valley joint's overlap by parry
+    // too. (Parry's gap casts from every end face of the ridge: the square
+    // end beside the cheek bears on nothing and stands 0.10 in off the
+    // valley's side.)
+    for j in on_valley.iter().copied().chain(frame.joints.iter().filter(|j| j.pieces[1] == ridge)) {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+    let (_, overlap, mating) = parry_fit::fit(&frame, ridge, on_valley[0].pieces[1]);
+    assert!(mating >= 1 && overlap < FIT_IN, "parry overlap {overlap}");
+}
+
+/// Seed 802: a block with a wing north, mixed pitches.
+#[rustfmt::skip]
+const SEED_802: [WallRow; 8] = [
+    (0.0, 0.0, 0.7918483700027051, 3.0),
+    (400.1383069917886, 0.0, 0.16666666666666666, 23.0),
+    (400.1383069917886, 422.1505198457505, 0.3333333333333333, 13.0),
+    (266.7588713278591, 422.1505198457505, 0.25, 3.0),
+    (266.7588713278591, 624.5703976443671, 1.4166666666666667, 11.0),
+    (133.37943566392954, 624.5703976443671, 0.8789636669510356, 10.0),
+    (133.37943566392954, 422.1505198457505, 0.75, 15.0),
+    (0.0, 422.1505198457505, 0.16666666666666666, 20.0),
+];
+
+#[test]
+fn a_hip_of_a_few_inches_between_two_ridge_ends_is_left_out_and_flagged() {
+    let frame = framed(&SEED_802, &[]);
+    // The wing's ridge along x = 162.915 (3/12 and 9/12 either side) ends
+    // at (162.915, 387.536), where the valley from the wing's west inside
+    // corner (133.38, 422.15) ends too; the block's ridge along x =
+    // 160.055 starts at (160.055, 386.583), where the hip from the corner
+    // (0, 422.15) ends. The ridge steps 2.86 in sideways and 0.72 in up,
+    // and a hip of hypot(2.860, 0.953) = 3.01 in plan runs between the two
+    // ends, under a 2x10 hip's 9-1/4 in depth: cut to the first ridge's
+    // end at its foot and to the king and ridge at its top, its foot's
+    // face looked along the other ridge, and was read as overlapping it
+    // by 45 in. It is left out for a fitted block, the members meeting it
+    // flagged, and every joint at the two nodes fits. Derivation.
+    let (p, q) = (dvec2(162.915, 387.536), dvec2(160.055, 386.583));
+    let near = |a: glam::DVec2, b: glam::DVec2| a.distance(b) < 0.01;
+    assert!(
+        !frame.pieces.iter().any(|piece| piece.kind == MemberKind::Hip
+            && piece.plan_line.iter().any(|e| near(*e, p))
+            && piece.plan_line.iter().any(|e| near(*e, q))),
+        "the short hip is cut"
+    );
+    let flagged: Vec<&str> = frame
+        .warnings
+        .iter()
+        .filter_map(|w| match w {
+            FramingWarning::ShortMemberLeftOut { label, left_out: MemberKind::Hip, length_in } => {
+                assert!((length_in - 3.0146).abs() < 0.001, "{length_in}");
+                Some(label.as_str())
+            }
+            _ => None,
+        })
+        .collect();
+    let flagged_kinds: Vec<MemberKind> = frame
+        .pieces
+        .iter()
+        .filter(|piece| flagged.contains(&piece.label.as_str()))
+        .map(|piece| piece.kind)
+        .collect();
+    assert!(
+        flagged_kinds.contains(&MemberKind::Ridge) && flagged_kinds.contains(&MemberKind::Valley),
+        "{flagged:?}"
+    );
+    // Every joint of a piece ending within a foot of either node fits
+    // within 1/64 in, by the frame's own check and by parry.
+    let at_nodes =
+        |i: usize| frame.pieces[i].plan_line.iter().any(|e| e.distance(p) < 12.0 || e.distance(q) < 12.0);
+    let joints: Vec<_> = frame.joints.iter().filter(|j| at_nodes(j.pieces[0])).collect();
+    assert!(joints.len() >= 3, "{joints:?}");
+    for j in joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        let (gap, overlap, mating) = parry_fit::fit(&frame, j.pieces[0], j.pieces[1]);
+        assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "{:?}: parry {gap} / {overlap}", j.members);
+    }
+}
+
+/// Seed 17954: a block with wings, mixed pitches.
+#[rustfmt::skip]
+const SEED_17954: [WallRow; 10] = [
+    (0.0, 152.63269294799187, 1.0975321779937868, 12.0),
+    (276.5093405478862, 152.63269294799187, 0.4166666666666667, 15.0),
+    (276.5093405478862, 228.9490394219878, 1.0, 19.0),
+    (469.2187041065037, 228.9490394219878, 1.221652264269619, 10.0),
+    (469.2187041065037, 305.26538589598374, 1.221652264269619, 14.0),
+    (469.2187041065037, 381.5817323699797, 0.6666666666666666, 15.0),
+    (744.6376001321535, 381.5817323699797, 1.5, 14.0),
+    (744.6376001321535, 457.89807884397567, 0.3333333333333333, 1.0),
+    (276.5093405478862, 457.89807884397567, 0.3333333333333333, 15.0),
+    (0.0, 457.89807884397567, 0.4166666666666667, 2.0),
+];
+
+#[test]
+fn a_corner_on_the_side_of_a_board_its_line_runs_along_is_no_overlap() {
+    let frame = framed(&SEED_17954, &[]);
+    // The valley from (276.51, 228.95) ends at (139.14, 286.19), where the
+    // ridge along y = 286.19 ends; a hip 1.42 in long, too short to cut,
+    // runs from there to (138.26, 285.08), where the ridge along x =
+    // 138.26 starts. The valley's top is cut to the first ridge's side and
+    // to the second's east face (x = 138.255 + 3/4 = 139.005). A corner of
+    // its cheek on the second ridge lies on the first ridge's south face
+    // (y = 286.186 - 3/4 = 285.436), and the line square to the cheek
+    // from there runs along that face for the first ridge's whole 284 in:
+    // it was read as the valley passing through that board, an overlap of
+    // 284 in, where the boards only touch. Every joint at the node fits
+    // within 1/64 in by the frame's own check, and its overlap is parry's
+    // contact depth within 1/64 in (the two checks measure one thing).
+    // Derivation.
+    let node = dvec2(139.140, 286.186);
+    let valley = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Valley && p.plan_line[1].distance(node) < 0.01)
+        .expect("the valley ending at (139.14, 286.19)");
+    let on_ridges: Vec<_> = frame
+        .joints
+        .iter()
+        .filter(|j| j.pieces[0] == valley && frame.pieces[j.pieces[1]].kind == MemberKind::Ridge)
+        .collect();
+    assert_eq!(on_ridges.len(), 2, "{on_ridges:?}");
+    for j in on_ridges {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        let (_, overlap, mating) = parry_fit::fit(&frame, j.pieces[0], j.pieces[1]);
+        assert!(mating >= 1 && (j.max_overlap - overlap).abs() < FIT_IN, "{:?}: parry {overlap}", j.members);
+    }
+}

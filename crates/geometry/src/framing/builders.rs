@@ -79,6 +79,39 @@ pub struct Ctx<'a> {
     pub heel: f64,
     /// The settings.
     pub settings: &'a FramingSettings,
+    /// For each roof line, whether it is a hip or valley left out
+    /// ([`left_out_lines`]).
+    pub left_out: &'a [bool],
+}
+
+/// Which roof lines are hips or valleys too short to cut, left out of the
+/// frame and fitted by hand at their nodes (with a block where one is
+/// needed): one shorter in plan than its own thickness (a wedge of a
+/// fraction of an inch), and a hip shorter in plan than its own depth that
+/// runs from one ridge's end to another's (where a ridge steps sideways
+/// or up by a few inches, as uneven wings make it), whose cheek cuts
+/// at both ends would leave a block, not a rafter.
+pub fn left_out_lines(lines: &[PlanLine], settings: &FramingSettings) -> Vec<bool> {
+    let ridge_ends_at = |p: DVec2| {
+        lines.iter().any(|l| {
+            l.kind == RoofLineKind::Ridge
+                && (l.from.distance(p) < PLAN_TOL_IN * 1e3 || l.to.distance(p) < PLAN_TOL_IN * 1e3)
+        })
+    };
+    lines
+        .iter()
+        .map(|l| {
+            let run = l.from.distance(l.to);
+            match l.kind {
+                RoofLineKind::Hip => {
+                    run < settings.hip.thickness_in
+                        || (run < settings.hip.depth_in && ridge_ends_at(l.from) && ridge_ends_at(l.to))
+                }
+                RoofLineKind::Valley => run < settings.valley.thickness_in,
+                RoofLineKind::Ridge => false,
+            }
+        })
+        .collect()
 }
 
 /// A hip or valley: its spec, the pieces it bears on with the mating
@@ -226,7 +259,7 @@ impl Ctx<'_> {
     /// of a valley passing by), each with the line's index and whether it
     /// is at the ridge's start: that end is cut back to the face and bears
     /// on it. Not at a hip end, where kings bear on the ridge's end.
-    pub fn ridge_end_clearances(&self, line: &PlanLine) -> Vec<(usize, HalfSpace, bool)> {
+    pub fn ridge_end_clearances(&self, li: usize, line: &PlanLine) -> Vec<(usize, HalfSpace, bool)> {
         let Some(dir) = (line.to - line.from).try_normalize() else {
             return Vec::new();
         };
@@ -243,20 +276,17 @@ impl Ctx<'_> {
                 .any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3);
             // Nor at a node of a hip or valley too short to cut, fitted
             // by hand (flagged).
-            let short_here = self.lines.iter().any(|l| {
-                let t = match l.kind {
-                    RoofLineKind::Hip => self.settings.hip.thickness_in,
-                    RoofLineKind::Valley => self.settings.valley.thickness_in,
-                    RoofLineKind::Ridge => return false,
-                };
-                l.from.distance(l.to) < t && l.touches(node)
-            });
+            let short_here =
+                self.lines.iter().zip(self.left_out).any(|(l, &left_out)| left_out && l.touches(node));
+            // Far enough back along the ridge to be clear of the member.
+            let inside = node - out_dir * (len / 2.0).min(12.0);
+            if short_here && !hip_end {
+                out.extend(self.ridge_end_across_short_line(li, line, node, out_dir, at_start));
+            }
             if hip_end || short_here {
                 continue;
             }
             let end = node;
-            // Far enough back along the ridge to be clear of the member.
-            let inside = node - out_dir * (len / 2.0).min(12.0);
             for (k, other) in self.lines.iter().enumerate() {
                 let (ot, od) = match other.kind {
                     RoofLineKind::Hip => (self.settings.hip.thickness_in, self.settings.hip.depth_in),
@@ -265,7 +295,7 @@ impl Ctx<'_> {
                     }
                     RoofLineKind::Ridge => continue,
                 };
-                if other.touches(node) || other.from.distance(other.to) < ot {
+                if other.touches(node) || self.left_out.get(k).copied().unwrap_or(false) {
                     continue;
                 }
                 let Some(odir) = (other.to - other.from).try_normalize() else { continue };
@@ -300,6 +330,151 @@ impl Ctx<'_> {
             }
         }
         out
+    }
+
+    /// The other ends of the hips and valleys too short to cut (left out)
+    /// that start or end at `node`.
+    fn across_short_lines(&self, node: DVec2) -> Vec<DVec2> {
+        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
+        self.lines
+            .iter()
+            .zip(self.left_out)
+            .filter(|(_, left_out)| **left_out)
+            .filter_map(|(l, _)| {
+                if near(l.from) {
+                    Some(l.to)
+                } else if near(l.to) {
+                    Some(l.from)
+                } else {
+                    None
+                }
+            })
+            .collect()
+    }
+
+    /// Where ridge `li` ends at `node`, one end of a hip or valley too
+    /// short to cut, with no hip end of its own there (no kings bear on
+    /// its end), and another ridge meets the short line's other end: were
+    /// the short line not there, the two would meet at one node and this
+    /// end would butt against the other ridge's side, or against its end
+    /// where the two are in line (the ridge stepping sideways by less than
+    /// its thickness). It is cut back to that face wherever its end would
+    /// run into the other ridge as that one is laid out, and bears on it,
+    /// unless a rafter bearing on the end would lose its bearing.
+    fn ridge_end_across_short_line(
+        &self,
+        li: usize,
+        line: &PlanLine,
+        node: DVec2,
+        out_dir: DVec2,
+        at_start: bool,
+    ) -> Vec<(usize, HalfSpace, bool)> {
+        let t = self.settings.ridge.thickness_in;
+        let top = self.ridge_top(line);
+        let bottom = top - self.settings.ridge.depth_in;
+        let len = line.from.distance(line.to);
+        let inside = node - out_dir * (len / 2.0).min(12.0);
+        let end = node + out_dir * self.ridge_end_offset(li, -out_dir, node);
+        let corners = [end + out_dir.perp() * (t / 2.0), end - out_dir.perp() * (t / 2.0)];
+        let hip_end_at = |p: DVec2| {
+            self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && l.to.distance(p) < PLAN_TOL_IN * 1e3)
+        };
+        let mut out = Vec::new();
+        for far in self.across_short_lines(node) {
+            for (k, other) in self.lines.iter().enumerate() {
+                if k == li || other.kind != RoofLineKind::Ridge || !other.touches(far) || other.touches(node)
+                {
+                    continue;
+                }
+                let Some(odir) = (other.to - other.from).try_normalize() else { continue };
+                // A ridge in line with this one, a little to one side (the
+                // ridge steps sideways there by less than its thickness), is
+                // butted end to end; one at an angle, against its side.
+                let in_line = odir.perp_dot(out_dir).abs() <= 1e-6;
+                // Where two ridges both end there with no hip end, the
+                // earlier keeps its end and the later is cut to it.
+                let other_ends_here = other.from.distance(far) < PLAN_TOL_IN * 1e3
+                    || other.to.distance(far) < PLAN_TOL_IN * 1e3;
+                if other_ends_here && !hip_end_at(far) && k > li {
+                    continue;
+                }
+                // The other ridge as laid out: its ends run past (or stop
+                // short of) its nodes by its own end offsets.
+                let o_start = -self.ridge_end_offset(k, odir, other.from);
+                let o_end = other.from.distance(other.to) + self.ridge_end_offset(k, odir, other.to);
+                let o_top = self.ridge_top(other);
+                let o_bottom = o_top - self.settings.ridge.depth_in;
+                if !(o_bottom < top && o_top > bottom) {
+                    continue;
+                }
+                let runs_in = corners.iter().any(|&c| {
+                    let along = (c - other.from).dot(odir);
+                    let across = (c - other.from).perp_dot(odir).abs();
+                    across < t / 2.0 - OVERLAP_TOL_IN
+                        && along > o_start + OVERLAP_TOL_IN
+                        && along < o_end - OVERLAP_TOL_IN
+                });
+                if !runs_in || distance_to_segment(inside, other.from, other.to) < t / 2.0 {
+                    continue;
+                }
+                let end_tag = if at_start { CutEnd::Start } else { CutEnd::End };
+                let face = if in_line {
+                    // The other's laid-out end in the node's cluster, and
+                    // the direction from it into that ridge.
+                    let (at, into) = if other.from.distance(far) < other.to.distance(far) {
+                        (other.from + odir * o_start, odir)
+                    } else {
+                        (other.from + odir * o_end, -odir)
+                    };
+                    HalfSpace::through(at.extend(0.0), into.extend(0.0), FaceTag::End, Some(end_tag))
+                } else {
+                    side_face(other.from, other.to, t, inside, FaceTag::Cheek, end_tag)
+                };
+                let Some(mut h) = face else {
+                    continue;
+                };
+                if h.normal.truncate().dot(out_dir).abs() > 1.0 - 1e-9 {
+                    h.tag = FaceTag::End;
+                }
+                if self.rafter_loses_ridge_end(li, node, out_dir, &h, top) {
+                    continue;
+                }
+                out.push((k, h, at_start));
+            }
+        }
+        out
+    }
+
+    /// Whether cutting ridge `li`'s end at `node` (outward `out_dir`) back
+    /// to `h` would leave part of a rafter bearing on that end with nothing
+    /// behind it: the end is then left as it is.
+    fn rafter_loses_ridge_end(
+        &self,
+        li: usize,
+        node: DVec2,
+        out_dir: DVec2,
+        h: &HalfSpace,
+        top: f64,
+    ) -> bool {
+        let t = self.settings.ridge.thickness_in;
+        // How far in from the node the cut crosses each side of the ridge.
+        let cut_back = [1.0, -1.0]
+            .iter()
+            .filter_map(|&sign| {
+                let side = node + out_dir.perp() * (sign * t / 2.0);
+                let d0 = h.distance(side.extend(top));
+                let d1 = h.distance((side - out_dir).extend(top));
+                ((d0 - d1).abs() > 1e-12).then(|| d0 / (d0 - d1))
+            })
+            .fold(f64::NEG_INFINITY, f64::max);
+        if !cut_back.is_finite() || cut_back <= 0.0 {
+            return false;
+        }
+        let half = self.settings.rafter.thickness_in / 2.0;
+        self.rafters.iter().any(|r| {
+            r.upper_edge == EdgeKind::Line(li)
+                && (r.upper - node).dot(-out_dir) - half < cut_back + OVERLAP_TOL_IN
+        })
     }
 
     /// The ridge's pieces, split so none is longer than the longest stock,
@@ -346,7 +521,15 @@ impl Ctx<'_> {
         let Some(frame0) = BoardFrame::new(line.from.extend(top), dir, 0.0) else {
             return Vec::new();
         };
-        let clearances = self.ridge_end_clearances(line);
+        let clearances = self.ridge_end_clearances(li, line);
+        // A ridge so low near a wall (a narrow plane beside it) that its
+        // lower edge would run down into the wall's plate is cut level
+        // with the plate's top, as a hip there is, and bears on it.
+        let sides: Vec<&PlaneFrame> = line.planes.iter().filter_map(|&pi| self.planes.get(pi)).collect();
+        let plate_level = match sides.as_slice() {
+            [a, b] => self.hangs_into_plate(&frame0, self.settings.ridge, len, [a, b]),
+            _ => false,
+        };
         let last = cuts_at.len().saturating_sub(2);
         cuts_at
             .windows(2)
@@ -360,6 +543,14 @@ impl Ctx<'_> {
                 let hi = HalfSpace::through(pb.extend(top), frame0.along, FaceTag::End, Some(CutEnd::End))?;
                 let mut upper_cuts = vec![hi];
                 let mut lower_cuts = vec![lo];
+                if plate_level {
+                    lower_cuts.extend(HalfSpace::through(
+                        DVec3::ZERO,
+                        -DVec3::Z,
+                        FaceTag::Seat,
+                        Some(CutEnd::Seat),
+                    ));
+                }
                 for (_, h, at_start) in &clearances {
                     match (*at_start, k == 0, k == last) {
                         (true, true, _) => lower_cuts.push(*h),
@@ -753,6 +944,14 @@ impl Ctx<'_> {
             drop_in,
             plumb_square: hip_square(slope, pl, pr),
         };
+        if !seated && !foot_without_ridge {
+            // A foot at one end of a hip or valley too short to cut is also
+            // cut to the ridges at its other end, as if they met at one node.
+            let across = self.ridges_across_short_lines(line.from);
+            if !across.is_empty() {
+                self.clear_ridges_at(&across, &mut spec, &mut bearings, up_dir, mid, CutEnd::Bottom);
+            }
+        }
         if king_missing && !peak_without_ridge {
             // One side's king is there, the other side has none (a valley
             // comes up to the node on that side): the ridge running on
@@ -822,10 +1021,61 @@ impl Ctx<'_> {
         down: DVec2,
         toward: DVec2,
     ) {
-        for (k, other) in self.lines.iter().enumerate() {
-            if other.kind != RoofLineKind::Ridge || !other.touches(line.to) {
-                continue;
+        let at_node: Vec<(usize, DVec2)> = self
+            .lines
+            .iter()
+            .enumerate()
+            .filter(|(_, other)| other.kind == RoofLineKind::Ridge && other.touches(line.to))
+            .map(|(k, _)| (k, line.to))
+            .collect();
+        self.clear_ridges(&at_node, spec, bearings, down, toward);
+    }
+
+    /// The ridges meeting the other end of a hip or valley too short to
+    /// cut that ends at `node`, but not `node` itself, each with the point
+    /// where it meets that end: were the short line not there, they would
+    /// meet at `node`.
+    fn ridges_across_short_lines(&self, node: DVec2) -> Vec<(usize, DVec2)> {
+        let mut out = Vec::new();
+        for far in self.across_short_lines(node) {
+            for (k, other) in self.lines.iter().enumerate() {
+                let new = !out.iter().any(|(j, _)| *j == k);
+                if other.kind == RoofLineKind::Ridge && other.touches(far) && !other.touches(node) && new {
+                    out.push((k, far));
+                }
             }
+        }
+        out
+    }
+
+    /// Cuts a hip's or valley's top (`spec`) to the face of each ridge of
+    /// `ridges` (by line, with the node where it is met) that its body
+    /// would otherwise run into, bearing on it there. `down` is the
+    /// member's plan direction from the node, `toward` a point of it.
+    fn clear_ridges(
+        &self,
+        ridges_at: &[(usize, DVec2)],
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        down: DVec2,
+        toward: DVec2,
+    ) {
+        self.clear_ridges_at(ridges_at, spec, bearings, down, toward, CutEnd::Top);
+    }
+
+    /// As [`Ctx::clear_ridges`], at the member's top or (`CutEnd::Bottom`)
+    /// its foot, `away` being its plan direction from the node there.
+    fn clear_ridges_at(
+        &self,
+        ridges_at: &[(usize, DVec2)],
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        away: DVec2,
+        toward: DVec2,
+        end: CutEnd,
+    ) {
+        for &(k, node) in ridges_at {
+            let Some(other) = self.lines.get(k) else { continue };
             let solid = spec.solid();
             let ridges: Vec<_> = self.ridge_specs(k, other).iter().map(PieceSpec::solid).collect();
             let runs_in = ridges.iter().any(|r| {
@@ -835,9 +1085,13 @@ impl Ctx<'_> {
             if !runs_in {
                 continue;
             }
-            if let Some(mut h) = self.ridge_face_at(k, line.to, down, toward, CutEnd::Top) {
+            if let Some(mut h) = self.ridge_face_at(k, node, away, toward, end) {
                 h.tag = cut_tag(&h, &spec.frame);
-                spec.upper_cuts.push(h);
+                if end == CutEnd::Bottom {
+                    spec.lower_cuts.push(h);
+                } else {
+                    spec.upper_cuts.push(h);
+                }
                 bearings.push((Bearing::Line(k), h));
             }
         }
@@ -916,7 +1170,7 @@ impl Ctx<'_> {
             }
             (lower_cuts, Vec::new(), false)
         };
-        let spec = PieceSpec {
+        let mut spec = PieceSpec {
             kind: MemberKind::Valley,
             size,
             frame,
@@ -930,10 +1184,19 @@ impl Ctx<'_> {
             drop_in: 0.0,
             plumb_square: hip_square(slope, pl, pr),
         };
+        // A top against a ridge at one end of a hip or valley too short to
+        // cut is also cut to the ridges at the short line's other end, as
+        // if they all met at one node. (A top meeting no ridge at its node
+        // is left: what starts there, a hip's foot, bears on it.)
+        let across = if ridges.is_empty() { Vec::new() } else { self.ridges_across_short_lines(line.to) };
         // Ridge bearings are resolved to pieces by the caller; a foot up on
         // the roof bears on what it was cut to there.
-        let bearings =
+        let mut bearings: Vec<(Bearing, HalfSpace)> =
             ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
+        if !across.is_empty() {
+            let down = (line.from - line.to).normalize_or_zero();
+            self.clear_ridges(&across, &mut spec, &mut bearings, down, mid);
+        }
         Some((spec, bearings, false))
     }
 }

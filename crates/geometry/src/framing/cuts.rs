@@ -171,8 +171,9 @@ pub enum Cut {
         /// Length of the level cut along the side face.
         length_in: f64,
     },
-    /// A level cut along the lower edge of a hip up on the roof that would
-    /// otherwise run down into a wall's plate: it bears on the plate there.
+    /// A level cut along the lower edge of a hip up on the roof, or of a
+    /// ridge, that would otherwise run down into a wall's plate: it bears
+    /// on the plate there.
     PlateLevel {
         /// Always the seat (where the member bears on the plate).
         end: CutEnd,

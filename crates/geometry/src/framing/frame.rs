@@ -5,7 +5,7 @@ use serde::Serialize;
 
 use super::bearing_stretch::lands_on_bearing;
 use super::board::{PieceSpec, SolidScratch};
-use super::builders::{Bearing, Ctx};
+use super::builders::{Bearing, Ctx, left_out_lines};
 use super::checks::piece_checks;
 use super::joints::{Joint, check_fit, part_bounds};
 use super::labels::label_pieces;
@@ -117,7 +117,9 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         rafters.extend(rafter_lines(i, p, &planes, &lines, &kings, origin, settings));
     }
 
-    let ctx = Ctx { planes: &planes, lines: &lines, rafters: &rafters, heel, settings };
+    let left_out_line = left_out_lines(&lines, settings);
+    let ctx =
+        Ctx { planes: &planes, lines: &lines, rafters: &rafters, heel, settings, left_out: &left_out_line };
     let mut specs: Vec<PieceSpec> = Vec::new();
     let mut joint_specs: Vec<JointSpec> = Vec::new();
     let mut warnings_extra: Vec<(usize, FramingWarning)> = Vec::new();
@@ -139,11 +141,15 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
                     mating: flipped,
                 });
             }
+            if let Some(cut_in) = super::measure::plate_level_depth(&spec) {
+                let w = FramingWarning::HipCutLevelAtPlate { label: String::new(), cut_in };
+                warnings_extra.push((specs.len(), w));
+            }
             ridge_pieces[li].push(specs.len());
             specs.push(spec);
         }
         // An end cut back to a hip or valley passing by bears on it.
-        for (k, mating, at_start) in ctx.ridge_end_clearances(line) {
+        for (k, mating, at_start) in ctx.ridge_end_clearances(li, line) {
             let piece = if at_start { ridge_pieces[li].first() } else { ridge_pieces[li].last() };
             if let Some(&cut) = piece {
                 joint_specs.push(JointSpec { cut, bearing: Bearing::Line(k), mating });
@@ -188,19 +194,17 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
 
     // Hips and valleys.
     let mut line_piece: Vec<Option<usize>> = vec![None; lines.len()];
-    // A hip or valley shorter in plan than its own thickness would be a
-    // wedge of a fraction of an inch: it is not cut, and the members
+    // A hip or valley too short to cut is not cut, and the members
     // meeting it are flagged to be fitted at the node by hand.
     let mut left_out: Vec<Option<(MemberKind, f64)>> = vec![None; lines.len()];
     for (li, line) in lines.iter().enumerate() {
-        let (kind, thickness) = match line.kind {
-            RoofLineKind::Hip => (MemberKind::Hip, settings.hip.thickness_in),
-            RoofLineKind::Valley => (MemberKind::Valley, settings.valley.thickness_in),
+        let kind = match line.kind {
+            RoofLineKind::Hip => MemberKind::Hip,
+            RoofLineKind::Valley => MemberKind::Valley,
             RoofLineKind::Ridge => continue,
         };
-        let run = line.from.distance(line.to);
-        if run < thickness {
-            left_out[li] = Some((kind, run));
+        if left_out_line[li] {
+            left_out[li] = Some((kind, line.from.distance(line.to)));
         }
     }
     for (li, line) in lines.iter().enumerate() {
@@ -258,7 +262,8 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
                 Bearing::Piece(i) => Some(i),
                 Bearing::Line(li) => match lines.get(li).map(|l| l.kind) {
                     Some(RoofLineKind::Ridge) => {
-                        let end = if j.mating.end == Some(CutEnd::Bottom) { 0 } else { 1 };
+                        let end =
+                            if matches!(j.mating.end, Some(CutEnd::Bottom | CutEnd::Start)) { 0 } else { 1 };
                         let cut_point = specs.get(j.cut)?.plan_line[end];
                         ridge_piece_at(li, cut_point, &specs)
                     }

@@ -92,8 +92,11 @@ pub fn check_fit(
                     Some(-part.depth_of(p).max(0.0))
                 } else if exit >= back - tol {
                     // The part lies behind the corner, where the cut
-                    // piece also is: the piece passes through it.
-                    Some(enter)
+                    // piece also is: the piece passes through it, unless
+                    // the line only runs along the part's face (a corner
+                    // on the side of a board the line follows).
+                    let mid = p + mating.normal * ((enter.max(back) + exit) / 2.0);
+                    (part.depth_of(mid) > tol).then_some(enter)
                 } else {
                     // Met only past where the line has left the cut
                     // piece: another board the piece never reaches.

@@ -129,6 +129,7 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
     if spec.kind == MemberKind::Ridge {
         cuts.push(Cut::SquareEnd { end: CutEnd::Start });
         cuts.push(Cut::SquareEnd { end: CutEnd::End });
+        cuts.extend(plate_level(spec, solid, plan_dir));
     } else {
         // The upper end.
         let upper_faces = faces_of(solid, CutEnd::Top, &[FaceTag::Plumb, FaceTag::Cheek]);

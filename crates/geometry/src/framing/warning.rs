@@ -68,11 +68,12 @@ pub enum FramingWarning {
         /// The longest stock, inches.
         longest_stock_in: f64,
     },
-    /// A hip starting up on the roof runs so low beside a wall (a long
-    /// narrow roof plane along it) that its lower edge would go down into
-    /// the wall's plate: it is cut level with the top of plate along its
-    /// length, losing up to `cut_in` of its depth there, and bears on the
-    /// plate. Check the plan: walls nearly in line often make such planes.
+    /// A hip starting up on the roof, or a ridge, runs so low beside a
+    /// wall (a long narrow roof plane along it) that its lower edge would
+    /// go down into the wall's plate: it is cut level with the top of plate
+    /// along its length, losing up to `cut_in` of its depth there, and
+    /// bears on the plate. Check the plan: walls nearly in line often make
+    /// such planes.
     HipCutLevelAtPlate {
         /// The hip.
         label: String,
@@ -80,9 +81,11 @@ pub enum FramingWarning {
         cut_in: f64,
     },
     /// A hip or valley between two nodes closer together than its own
-    /// thickness (a fraction of an inch on an irregular plan) is not cut:
-    /// this member's end there was cut to where that piece would be, and
-    /// is fitted at the node by hand, with a block where the gap needs one.
+    /// thickness (a fraction of an inch on an irregular plan), or a hip
+    /// shorter than its own depth from one ridge's end to another's, is
+    /// not cut: this member's end there was cut to where that piece would
+    /// be, and is fitted at the node by hand, with a block where the gap
+    /// needs one.
     ShortMemberLeftOut {
         /// The member whose end meets the left-out piece.
         label: String,
