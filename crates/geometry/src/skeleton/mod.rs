@@ -108,6 +108,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         changed_edges: Vec::new(),
         split_scratch: Vec::new(),
         split_times: Vec::new(),
+        split_lows: Vec::new(),
     };
     let mut index = SweepIndex::new(&wf);
     let mut heap: BinaryHeap<Event> = BinaryHeap::new();

@@ -127,6 +127,8 @@ pub(crate) struct Wavefront {
     pub split_scratch: Vec<(f64, usize)>,
     /// Each line's split height in the full search, kept between calls.
     pub split_times: Vec<f64>,
+    /// The lowest split height of each run of lines in the full search.
+    pub split_lows: Vec<f64>,
 }
 
 /// Velocity and corner kind of the crossing of lines `a` (arriving) and `b` (leaving).
