@@ -173,8 +173,8 @@ fn split_heights<const BORN: bool, const INCLUSIVE: bool>(
         // A vertex born at an event on a line that passes through its birth
         // point has already been resolved against it there: then the line
         // must lie beyond the tolerance, otherwise only not behind it.
-        let ahead = if BORN { !(d0 <= tol) } else { !(d0 < -tol) };
-        let meets = ahead & !(rate >= 0.0);
+        let behind = if BORN { d0 <= tol } else { d0 < -tol };
+        let meets = !(behind | (rate >= 0.0));
         // Finite and not before `after` (nor at it unless `INCLUSIVE`):
         // `after` is always a finite height, so a height at or past it is
         // neither NaN nor minus infinity.
