@@ -515,7 +515,47 @@ fn vec3(v: DVec3) -> Vec3 {
     Vec3::new(v.x as f32, v.y as f32, v.z as f32)
 }
 
+/// The triangles as an indexed mesh. A face of `n` corners is drawn as a
+/// fan of `n - 2` triangles, each sharing two corners and the normal with
+/// the one before it: those corners are sent once, so software OpenGL runs
+/// the vertex shader `n` times a face rather than `3 (n - 2)`. The triangles
+/// and their order are unchanged.
 fn cpu_mesh(triangles: &Triangles) -> CpuMesh {
+    if u32::try_from(triangles.corners.len()).is_err() {
+        return unindexed_mesh(triangles);
+    }
+    let mut positions: Vec<Vec3> = Vec::with_capacity(triangles.corners.len());
+    let mut normals: Vec<Vec3> = Vec::with_capacity(triangles.corners.len());
+    let mut indices: Vec<u32> = Vec::with_capacity(triangles.corners.len());
+    let mut previous: Option<(Vec3, [u32; 3])> = None;
+    for (corners, &normal) in triangles.corners.chunks_exact(3).zip(&triangles.normals) {
+        let normal = vec3(normal);
+        let mut these = [0; 3];
+        for (slot, &corner) in these.iter_mut().zip(corners) {
+            let corner = vec3(corner);
+            let shared = previous.filter(|&(n, _)| n == normal).and_then(|(_, before)| {
+                before.into_iter().find(|&index| positions[index as usize] == corner)
+            });
+            *slot = shared.unwrap_or_else(|| {
+                positions.push(corner);
+                normals.push(normal);
+                // Fewer corners than u32 holds: checked above.
+                (positions.len() - 1) as u32
+            });
+        }
+        indices.extend_from_slice(&these);
+        previous = Some((normal, these));
+    }
+    CpuMesh {
+        positions: Positions::F32(positions),
+        indices: Indices::U32(indices),
+        normals: Some(normals),
+        ..Default::default()
+    }
+}
+
+/// The triangles as a mesh of three corners each, for one too large to index.
+fn unindexed_mesh(triangles: &Triangles) -> CpuMesh {
     let positions = triangles.corners.iter().map(|&p| vec3(p)).collect();
     let normals = triangles.normals.iter().flat_map(|&n| [vec3(n); 3]).collect();
     CpuMesh {
@@ -831,5 +871,46 @@ fn clip_scissor(info: &egui::PaintCallbackInfo) -> ScissorBox {
         y: clip_px.from_bottom_px,
         width: px(clip_px.width_px),
         height: px(clip_px.height_px),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// The corners the mesh draws, three per triangle, in drawing order.
+    fn drawn_corners(mesh: &CpuMesh) -> Vec<(Vec3, Vec3)> {
+        let (Positions::F32(positions), Some(normals)) = (&mesh.positions, &mesh.normals) else {
+            return Vec::new();
+        };
+        match &mesh.indices {
+            Indices::U32(indices) => {
+                indices.iter().map(|&i| (positions[i as usize], normals[i as usize])).collect()
+            }
+            _ => positions.iter().copied().zip(normals.iter().copied()).collect(),
+        }
+    }
+
+    #[test]
+    fn an_indexed_mesh_draws_the_same_triangles_with_a_corner_sent_once_a_face() {
+        // A board's end: a pentagon fanned into three triangles, and a
+        // square bar of four quads (common practice, no source: a flat face
+        // of n corners needs n vertices).
+        let mut triangles = Triangles::default();
+        let pentagon = [
+            DVec3::new(0.0, 0.0, 0.0),
+            DVec3::new(4.0, 0.0, 0.0),
+            DVec3::new(5.0, 3.0, 0.0),
+            DVec3::new(2.0, 5.0, 0.0),
+            DVec3::new(-1.0, 3.0, 0.0),
+        ];
+        triangles.push_convex_polygon(&pentagon, DVec3::Z, DVec3::ZERO);
+        triangles.push_bar(DVec3::new(0.0, 0.0, 1.0), DVec3::new(10.0, 0.0, 1.0), 1.5);
+        let indexed = cpu_mesh(&triangles);
+        let unindexed = unindexed_mesh(&triangles);
+        assert_eq!(drawn_corners(&indexed), drawn_corners(&unindexed));
+        let Positions::F32(positions) = &indexed.positions else { panic!("f32 positions") };
+        assert_eq!(positions.len(), 5 + 4 * 4);
+        assert_eq!(triangles.len(), 3 + 4 * 2);
     }
 }
