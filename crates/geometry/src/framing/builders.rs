@@ -1028,7 +1028,7 @@ impl Ctx<'_> {
             .filter(|(_, other)| other.kind == RoofLineKind::Ridge && other.touches(line.to))
             .map(|(k, _)| (k, line.to))
             .collect();
-        self.clear_ridges(&at_node, spec, bearings, down, toward);
+        self.clear_ridges_at(&at_node, spec, bearings, down, toward, CutEnd::Top);
     }
 
     /// The ridges meeting the other end of a hip or valley too short to
@@ -1048,23 +1048,11 @@ impl Ctx<'_> {
         out
     }
 
-    /// Cuts a hip's or valley's top (`spec`) to the face of each ridge of
-    /// `ridges` (by line, with the node where it is met) that its body
-    /// would otherwise run into, bearing on it there. `down` is the
-    /// member's plan direction from the node, `toward` a point of it.
-    fn clear_ridges(
-        &self,
-        ridges_at: &[(usize, DVec2)],
-        spec: &mut PieceSpec,
-        bearings: &mut Vec<(Bearing, HalfSpace)>,
-        down: DVec2,
-        toward: DVec2,
-    ) {
-        self.clear_ridges_at(ridges_at, spec, bearings, down, toward, CutEnd::Top);
-    }
-
-    /// As [`Ctx::clear_ridges`], at the member's top or (`CutEnd::Bottom`)
-    /// its foot, `away` being its plan direction from the node there.
+    /// Cuts a hip's or valley's top (`CutEnd::Top`) or foot (`CutEnd::Bottom`)
+    /// of `spec` to the face of each ridge of `ridges_at` (by line, with the
+    /// node where it is met) that its body would otherwise run into, bearing
+    /// on it there. `away` is the member's plan direction from the node,
+    /// `toward` a point of it.
     fn clear_ridges_at(
         &self,
         ridges_at: &[(usize, DVec2)],
@@ -1195,7 +1183,7 @@ impl Ctx<'_> {
             ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
         if !across.is_empty() {
             let down = (line.from - line.to).normalize_or_zero();
-            self.clear_ridges(&across, &mut spec, &mut bearings, down, mid);
+            self.clear_ridges_at(&across, &mut spec, &mut bearings, down, mid, CutEnd::Top);
         }
         Some((spec, bearings, false))
     }
