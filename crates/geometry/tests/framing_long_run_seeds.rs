@@ -790,3 +790,51 @@ fn a_corner_on_the_side_of_a_board_its_line_runs_along_is_no_overlap() {
         assert!(mating >= 1 && (j.max_overlap - overlap).abs() < FIT_IN, "{:?}: parry {overlap}", j.members);
     }
 }
+
+/// Seed 38: a block with two wings north, every wall 8/12.
+#[rustfmt::skip]
+const SEED_38: [WallRow; 12] = [
+    (0.0, 0.0, 0.6666666666666666, 13.0),
+    (603.1978048994264, 0.0, 0.6666666666666666, 16.0),
+    (603.1978048994264, 96.31344341668854, 0.6666666666666666, 2.0),
+    (454.16812824515915, 96.31344341668854, 0.6666666666666666, 14.0),
+    (454.16812824515915, 416.29219332771777, 0.6666666666666666, 12.0),
+    (405.8687966655539, 416.29219332771777, 0.6666666666666666, 13.0),
+    (405.79382552970014, 263.4127625932426, 0.6666666666666666, 8.0),
+    (405.8687966655539, 96.31344341668854, 0.6666666666666666, 14.0),
+    (324.15353950381257, 96.15455731743667, 0.6666666666666666, 19.0),
+    (246.92178147982983, 96.31344341668854, 0.6666666666666666, 19.0),
+    (246.92178147982983, 416.29219332771777, 0.6666666666666666, 17.0),
+    (0.0, 416.29219332771777, 0.6666666666666666, 24.0),
+];
+
+#[test]
+fn a_hip_on_the_kings_of_a_ridge_a_hair_off_square_fits() {
+    let frame = framed(&SEED_38, &[]);
+    // The ridge from the east hip end (555.041, 48.1567) runs west to
+    // (406.011, 48.1568): its ends 6.2e-5 in apart across, 4.2e-7 rad off
+    // the x axis, where the walls are square. Each king at that hip end is
+    // cut to the ridge's end or side as the ridge lies; each hip's top
+    // cheek is cut to the side of a king, square to the walls. The corner
+    // of the cheek at the hip's top is 3e-7 in (0.75 in x 4.2e-7) off the
+    // king's top cut, and the joint check read it along the cheek's normal
+    // as a gap of 0.75 in, to where the two planes cross over the king's
+    // centre line. Every hip on a king fits within 1/64 in, by the frame's
+    // own check and by parry. Derivation.
+    let node = dvec2(555.041_083_191, 48.156_721_708);
+    let at_node: Vec<_> = frame
+        .joints
+        .iter()
+        .filter(|j| {
+            frame.pieces[j.pieces[0]].kind == MemberKind::Hip
+                && frame.pieces[j.pieces[1]].kind == MemberKind::KingCommon
+                && frame.pieces[j.pieces[0]].plan_line[1].distance(node) < 1e-6
+        })
+        .collect();
+    assert_eq!(at_node.len(), 4, "two hips, each on two kings");
+    for j in at_node {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        let (gap, overlap, mating) = parry_fit::fit(&frame, j.pieces[0], j.pieces[1]);
+        assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "{:?}: parry {gap} / {overlap}", j.members);
+    }
+}

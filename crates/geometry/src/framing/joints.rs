@@ -162,22 +162,75 @@ fn bounds(points: impl Iterator<Item = glam::DVec3>) -> (glam::DVec3, glam::DVec
 }
 
 /// Where the line `p + t u` enters and leaves the convex region of
-/// `planes` (the smallest and largest `t` inside), if it passes through it.
+/// `planes` grown by `tol` (the smallest and largest `t` inside), if it
+/// passes through it.
+///
+/// Grown, because a plane the line runs nearly along must not stop it
+/// where `p` is within `tol` of that plane: a king's top cut to a ridge's
+/// side a few 1e-7 rad off square to the king (as round-off leaves a
+/// ridge's end) makes such a plane for the hip cheek bearing on the king's
+/// side, and a corner of that cheek 3e-7 in outside it would, read against
+/// the plane itself, enter the king only where the two cross, 3/4 in on.
+/// Against the grown plane it enters at the king's side face, as it should.
 fn chord(planes: &[HalfSpace], p: glam::DVec3, u: glam::DVec3, tol: f64) -> Option<(f64, f64)> {
     let mut enter = f64::NEG_INFINITY;
     let mut exit = f64::INFINITY;
     for h in planes {
         let nu = h.normal.dot(u);
-        let gap = h.offset - h.normal.dot(p);
+        // How far `p` may move along the plane's normal and stay inside.
+        let room = h.offset - h.normal.dot(p) + tol;
         if nu.abs() < 1e-12 {
-            if gap < -tol {
+            if room < 0.0 {
                 return None;
             }
         } else if nu > 0.0 {
-            exit = exit.min(gap / nu);
+            exit = exit.min(room / nu);
         } else {
-            enter = enter.max(gap / nu);
+            enter = enter.max(room / nu);
         }
     }
-    (enter <= exit + tol && enter.is_finite()).then_some((enter, exit))
+    (enter <= exit && enter.is_finite()).then_some((enter, exit))
+}
+
+#[cfg(test)]
+mod tests {
+    use glam::DVec3;
+
+    use super::*;
+    use crate::framing::FaceTag;
+
+    #[test]
+    fn a_plane_the_line_nearly_runs_along_does_not_stop_it_within_tolerance() {
+        // A board 1.5 in thick (x from 0 to 1.5) whose end is the plane
+        // y + eps (x - 0.75) <= 0, eps = 4e-7 rad off square: at x = 1.5
+        // it lies 3e-7 in below y = 0. From the corner (1.5, 0, 0), 3e-7 in
+        // outside it, the line along -x meets the plane itself only at
+        // x = 0.75, where y + eps (x - 0.75) = 0: 0.75 in on. Within the
+        // 1e-6 in tolerance the corner is on the board, and the line
+        // enters at once, through the side x = 1.5. Derivation.
+        let eps = 4e-7;
+        let planes: Vec<HalfSpace> = [
+            (DVec3::new(1.5, 0.0, 0.0), DVec3::X),
+            (DVec3::ZERO, -DVec3::X),
+            (DVec3::new(0.75, 0.0, 0.0), DVec3::new(eps, 1.0, 0.0)),
+            (DVec3::new(0.0, -10.0, 0.0), -DVec3::Y),
+            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+        ]
+        .iter()
+        .filter_map(|&(p, n)| HalfSpace::through(p, n, FaceTag::Side, None))
+        .collect();
+        let corner = DVec3::new(1.5, 0.0, 0.0);
+        assert!((planes[2].distance(corner) - 3e-7).abs() < 1e-12);
+        let (enter, exit) =
+            chord(&planes, corner, -DVec3::X, 1e-6).expect("the line passes through the board");
+        assert!(enter.abs() < 2e-6, "enters {enter} in on");
+        assert!((exit - 1.5).abs() < 2e-6, "leaves {exit} in on");
+        // 1e-3 in outside the end, the corner is off the board: the line
+        // comes within the tolerance of the end plane only about
+        // (1e-3 - 1e-6) / eps = 2,500 in on, far past the board's far side
+        // 1.5 in on, so it misses.
+        let off = corner + DVec3::Y * 1e-3;
+        assert!(chord(&planes, off, -DVec3::X, 1e-6).is_none());
+    }
 }
