@@ -838,3 +838,63 @@ fn a_hip_on_the_kings_of_a_ridge_a_hair_off_square_fits() {
         assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "{:?}: parry {gap} / {overlap}", j.members);
     }
 }
+
+/// Seed 22164: a block with a wing east and a courtyard, mixed pitches.
+#[rustfmt::skip]
+const SEED_22164: [WallRow; 11] = [
+    (0.0, 612.9236208871946, 0.7000787951044956, 15.0),
+    (275.2780575905974, 612.9236208871946, 1.3333333333333333, 20.0),
+    (275.2780575905974, 474.8868435123052, 0.16666666666666666, 3.0),
+    (381.4425303527952, 474.8868435123052, 1.3333333333333333, 3.0),
+    (381.4425303527952, 423.86752236857757, 1.3333333333333333, 17.0),
+    (381.4425303527952, 372.9151001254634, 0.6666666666666666, 7.0),
+    (275.2780575905974, 372.9151001254634, 1.4166666666666667, 6.0),
+    (275.2780575905974, 154.0348776872974, 1.4166666666666667, 4.0),
+    (275.2780575905974, 0.0, 1.1073209011303269, 4.0),
+    (192.55000359940846, 0.0, 1.1073209011303269, 13.0),
+    (0.0, 0.0, 0.4166666666666667, 7.0),
+];
+
+#[rustfmt::skip]
+const SEED_22164_COURTYARD: [WallRow; 4] = [
+    (127.88563487352666, 253.5165200004261, 0.75, 9.0),
+    (168.61515941901965, 253.5165200004261, 0.3961447933733959, 17.0),
+    (168.61515941901965, 290.7989566379839, 1.0833333333333333, 14.0),
+    (127.88563487352666, 290.7989566379839, 1.2382583671084981, 19.0),
+];
+
+#[test]
+fn a_ridge_ending_at_a_left_out_hip_is_cut_back_to_a_hip_passing_by() {
+    let frame = framed(&SEED_22164, &[&SEED_22164_COURTYARD]);
+    // The ridge along x = 250.846 ends south at (250.846, 279.434), where a
+    // hip of 2.9 in to the end of the ridge along x = 251.970 is left out.
+    // The hip from (265.681, 393.309) up to that other ridge's end at
+    // (251.970, 276.764) passes the first ridge's end: at y = 279.434 its
+    // centre line is at x = 251.970 + 2.670 x 13.711 / 116.545 = 252.284
+    // and its west face 0.75 / cos 6.71 deg = 0.755 in west of that, at
+    // 251.529, while the ridge's east side is at 250.846 + 0.75 = 251.596:
+    // 0.067 in into the hip. The ridge's end is cut back to the hip's side
+    // and bears on it. Derivation.
+    let ridge = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Ridge && p.plan_line.iter().all(|q| (q.x - 250.846).abs() < 0.01))
+        .expect("the ridge along x = 250.846");
+    let hip = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::Hip
+                && p.plan_line[0].distance(dvec2(265.681, 393.309)) < 0.01
+                && p.plan_line[1].distance(dvec2(251.970, 276.764)) < 0.01
+        })
+        .expect("the hip passing the ridge's end");
+    let joint =
+        frame.joints.iter().find(|j| j.pieces == [ridge, hip]).expect("the ridge's end bears on the hip");
+    assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+    let (_, overlap, _) = parry_fit::fit(&frame, ridge, hip);
+    assert!(overlap < FIT_IN, "parry overlap {overlap}");
+    for j in frame.joints.iter().filter(|j| j.pieces.contains(&ridge) || j.pieces.contains(&hip)) {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+}

@@ -274,8 +274,11 @@ impl Ctx<'_> {
                 .lines
                 .iter()
                 .any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3);
-            // Nor at a node of a hip or valley too short to cut, fitted
-            // by hand (flagged).
+            // At a node of a hip or valley too short to cut (left out and
+            // fitted by hand), the end is also cut to the ridges at the
+            // short line's other end; a hip or valley passing by is still
+            // cleared below (the members at that other end run on past
+            // this end as they would past any other).
             let short_here =
                 self.lines.iter().zip(self.left_out).any(|(l, &left_out)| left_out && l.touches(node));
             // Far enough back along the ridge to be clear of the member.
@@ -283,7 +286,7 @@ impl Ctx<'_> {
             if short_here && !hip_end {
                 out.extend(self.ridge_end_across_short_line(li, line, node, out_dir, at_start));
             }
-            if hip_end || short_here {
+            if hip_end {
                 continue;
             }
             let end = node;
