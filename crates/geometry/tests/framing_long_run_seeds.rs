@@ -898,3 +898,72 @@ fn a_ridge_ending_at_a_left_out_hip_is_cut_back_to_a_hip_passing_by() {
         assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
     }
 }
+
+/// Seed 1352: a block with a square courtyard, 6/12 outside and 17/12
+/// round the courtyard.
+#[rustfmt::skip]
+const SEED_1352: [WallRow; 7] = [
+    (0.0, 250.62218933879558, 0.5, 4.0),
+    (372.5436449633291, 250.62218933879558, 0.5, 22.0),
+    (372.5497768481325, 250.61605745399214, 0.5, 21.0),
+    (372.5497768481325, 0.0, 0.5, 19.0),
+    (186.27488842406626, 0.0, 0.5, 18.0),
+    (186.27488842406626, 125.31109466939779, 0.5, 10.0),
+    (0.0, 125.31109466939779, 0.5, 16.0),
+];
+
+#[rustfmt::skip]
+const SEED_1352_COURTYARD: [WallRow; 4] = [
+    (180.3747651266867, 129.71422458160728, 1.4166666666666667, 15.0),
+    (234.09985359642084, 129.71422458160728, 1.4166666666666667, 7.0),
+    (234.09985359642084, 168.5900055249423, 1.4166666666666667, 9.0),
+    (180.3747651266867, 168.5900055249423, 1.4166666666666667, 20.0),
+];
+
+#[test]
+fn a_ridge_end_and_a_valley_top_beside_a_king_are_cut_back_to_its_side() {
+    let frame = framed(&SEED_1352, &[&SEED_1352_COURTYARD]);
+    // The ridge along y = 187.967 has a hip end at x = 158.261; its king
+    // from the north wall runs south along x = 158.261, its board from
+    // x = 157.511 to 159.011. A hip of 2.1 in from there to the west end
+    // of the ridge along y = 189.990 (x = 158.975, 1 in lower) is left
+    // out; that ridge's end and the top of the valley rising to it from
+    // the courtyard's corner (180.375, 168.590) ran 0.036 in and 0.35 in
+    // into the king. Both are cut back to the king's east side at
+    // x = 158.261 + 0.75 = 159.011 and bear on it. Derivation.
+    let king_face_x = 158.261_042_538 + FramingSettings::default().rafter.thickness_in / 2.0;
+    let king = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::KingCommon
+                && p.plan_line.iter().all(|q| (q.x - 158.261).abs() < 0.01)
+                && p.plan_line[0].y > 200.0
+        })
+        .expect("the king from the north wall");
+    let ridge = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Ridge && p.plan_line.iter().all(|q| (q.y - 189.990).abs() < 0.01))
+        .expect("the ridge along y = 189.990");
+    let valley = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Valley && p.plan_line[1].distance(dvec2(158.975, 189.990)) < 0.01)
+        .expect("the valley up to the ridge's end");
+    for piece in [ridge, valley] {
+        let westmost = frame.pieces[piece].solid.vertices().map(|v| v.x).fold(f64::INFINITY, f64::min);
+        assert!(westmost > king_face_x - 1e-6, "{} reaches x = {westmost}", frame.pieces[piece].label);
+        let joint = frame
+            .joints
+            .iter()
+            .find(|j| j.pieces == [piece, king])
+            .unwrap_or_else(|| panic!("{} bears on the king", frame.pieces[piece].label));
+        assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+        let (_, overlap, _) = parry_fit::fit(&frame, piece, king);
+        assert!(overlap < FIT_IN, "{}: parry overlap {overlap}", frame.pieces[piece].label);
+    }
+    for j in frame.joints.iter().filter(|j| j.pieces.contains(&king)) {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+}

@@ -6,7 +6,9 @@ use glam::{DVec2, DVec3};
 use super::board::{BoardFrame, PieceSpec, SeatWall};
 use super::layout::{EdgeKind, King, PlanLine, RafterLine};
 use super::plane_frame::{PLAN_TOL_IN, PlaneFrame, distance_to_segment};
-use super::{BoardSize, CutEnd, FaceTag, FramingSettings, HalfSpace, HipTop, MemberKind, TailCut};
+use super::{
+    BoardSize, ConvexPart, CutEnd, FaceTag, FramingSettings, HalfSpace, HipTop, MemberKind, Solid, TailCut,
+};
 use crate::RoofLineKind;
 
 /// Lengths within this of a stock length fit it: layouts in whole spaces
@@ -448,6 +450,127 @@ impl Ctx<'_> {
         out
     }
 
+    /// The king commons that ridge `li`'s ends run into (a king at another
+    /// ridge's hip end passing this ridge's end, where a hip too short to
+    /// cut is left out between the two ridges or a ridge ends beside the
+    /// king's line), each by rafter line with the king's side face the end
+    /// is cut back to and whether it is at the ridge's start: the king runs
+    /// on past the end, which bears on its side. Not at a hip end (its
+    /// kings bear on the end), not a king at less than 30 degrees to the
+    /// ridge (the end would be cut back along its length: left to a fitted
+    /// block), and not where a rafter bearing on the end would lose its
+    /// bearing.
+    pub fn ridge_end_king_clearances(&self, li: usize, line: &PlanLine) -> Vec<(usize, HalfSpace, bool)> {
+        let Some(dir) = (line.to - line.from).try_normalize() else {
+            return Vec::new();
+        };
+        let t = self.settings.ridge.thickness_in;
+        let tr = self.settings.rafter.thickness_in;
+        let top = self.ridge_top(line);
+        let len = line.from.distance(line.to);
+        let Some(frame) = BoardFrame::new(line.from.extend(top), dir, 0.0) else {
+            return Vec::new();
+        };
+        let mut out = Vec::new();
+        for (node, out_dir, at_start) in [(line.from, -dir, true), (line.to, dir, false)] {
+            let hip_end = self
+                .lines
+                .iter()
+                .any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3);
+            if hip_end {
+                continue;
+            }
+            let end = node + out_dir * self.ridge_end_offset(li, -out_dir, node);
+            let inside = node - out_dir * (len / 2.0).min(12.0);
+            // The ridge's last stretch, as long as a king crossing square to
+            // it and the ridge's own thickness: a king further in crosses
+            // the ridge, it does not meet its end.
+            let reach = 2.0 * (tr + t);
+            let mut end_box = frame.box_planes(self.settings.ridge);
+            end_box.extend(HalfSpace::through(end.extend(top), out_dir.extend(0.0), FaceTag::End, None));
+            end_box.extend(HalfSpace::through(
+                (end - out_dir * reach).extend(top),
+                -out_dir.extend(0.0),
+                FaceTag::End,
+                None,
+            ));
+            let Some(end_part) = ConvexPart::from_half_spaces(&end_box) else { continue };
+            let end_solid = Solid { parts: vec![end_part] };
+            for (ri, r) in self.rafters.iter().enumerate() {
+                if r.king.is_none() || r.upper_edge == EdgeKind::Line(li) {
+                    continue;
+                }
+                let Some(kd) = (r.upper - r.lower).try_normalize() else { continue };
+                if kd.perp_dot(out_dir).abs() < 0.5
+                    || distance_to_segment(end, r.lower, r.upper) > tr / 2.0 + t
+                {
+                    continue;
+                }
+                if distance_to_segment(inside, r.lower, r.upper) < tr / 2.0 {
+                    continue;
+                }
+                let Some((king, ..)) = self.rafter_spec(r, MemberKind::KingCommon) else { continue };
+                if !runs_into(&king.solid(), &end_solid) {
+                    continue;
+                }
+                let end_tag = if at_start { CutEnd::Start } else { CutEnd::End };
+                let Some(mut h) = side_face(r.lower, r.upper, tr, inside, FaceTag::Cheek, end_tag) else {
+                    continue;
+                };
+                if h.normal.truncate().dot(out_dir).abs() > 1.0 - 1e-9 {
+                    h.tag = FaceTag::End;
+                }
+                if self.rafter_loses_ridge_end(li, node, out_dir, &h, top) {
+                    continue;
+                }
+                out.push((ri, h, at_start));
+            }
+        }
+        out
+    }
+
+    /// Cuts the end (`end`) of `spec` at plan node `node` back to the side
+    /// of each king common whose board it would otherwise run into there
+    /// (a king passing a node where a hip too short to cut is left out, or
+    /// a ridge ends beside the king's line), bearing on the king:
+    /// `rafter_piece` gives each rafter line's piece. `toward` is a point of
+    /// the member. Kings ending at the node are left: what ends there bears
+    /// on them by its own cuts.
+    pub fn clear_kings_at(
+        &self,
+        node: DVec2,
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        toward: DVec2,
+        end: CutEnd,
+        rafter_piece: &[Option<usize>],
+    ) {
+        let tr = self.settings.rafter.thickness_in;
+        let reach = tr / 2.0 + spec.size.thickness_in + spec.size.depth_in;
+        for (ri, r) in self.rafters.iter().enumerate() {
+            if r.king.is_none()
+                || r.upper.distance(node) < PLAN_TOL_IN * 1e3
+                || distance_to_segment(node, r.lower, r.upper) > reach
+                || distance_to_segment(toward, r.lower, r.upper) < tr / 2.0
+            {
+                continue;
+            }
+            let Some(Some(piece)) = rafter_piece.get(ri) else { continue };
+            let Some((king, ..)) = self.rafter_spec(r, MemberKind::KingCommon) else { continue };
+            if !runs_into(&king.solid(), &spec.solid()) {
+                continue;
+            }
+            let Some(mut h) = side_face(r.lower, r.upper, tr, toward, FaceTag::Cheek, end) else { continue };
+            h.tag = cut_tag(&h, &spec.frame);
+            if end == CutEnd::Bottom {
+                spec.lower_cuts.push(h);
+            } else {
+                spec.upper_cuts.push(h);
+            }
+            bearings.push((Bearing::Piece(*piece), h));
+        }
+    }
+
     /// Whether cutting ridge `li`'s end at `node` (outward `out_dir`) back
     /// to `h` would leave part of a rafter bearing on that end with nothing
     /// behind it: the end is then left as it is.
@@ -524,7 +647,8 @@ impl Ctx<'_> {
         let Some(frame0) = BoardFrame::new(line.from.extend(top), dir, 0.0) else {
             return Vec::new();
         };
-        let clearances = self.ridge_end_clearances(li, line);
+        let mut clearances = self.ridge_end_clearances(li, line);
+        clearances.extend(self.ridge_end_king_clearances(li, line));
         // A ridge so low near a wall (a narrow plane beside it) that its
         // lower edge would run down into the wall's plate is cut level
         // with the plate's top, as a hip there is, and bears on it.
@@ -955,6 +1079,9 @@ impl Ctx<'_> {
                 self.clear_ridges_at(&across, &mut spec, &mut bearings, up_dir, mid, CutEnd::Bottom);
             }
         }
+        if !seated {
+            self.clear_kings_at(line.from, &mut spec, &mut bearings, mid, CutEnd::Bottom, rafter_piece);
+        }
         if king_missing && !peak_without_ridge {
             // One side's king is there, the other side has none (a valley
             // comes up to the node on that side): the ridge running on
@@ -1090,7 +1217,7 @@ impl Ctx<'_> {
 
     /// A valley: its centre line in both planes, seated over the inside
     /// corner, its top against the ridge boards it meets.
-    pub fn valley_spec(&self, line: &PlanLine) -> Option<Built> {
+    pub fn valley_spec(&self, line: &PlanLine, rafter_piece: &[Option<usize>]) -> Option<Built> {
         let (left, right) = self.sides(line)?;
         let (pl, pr) = (self.planes.get(left)?, self.planes.get(right)?);
         let size = self.settings.valley;
@@ -1188,6 +1315,14 @@ impl Ctx<'_> {
             let down = (line.from - line.to).normalize_or_zero();
             self.clear_ridges_at(&across, &mut spec, &mut bearings, down, mid, CutEnd::Top);
         }
+        self.clear_kings_at(line.to, &mut spec, &mut bearings, mid, CutEnd::Top, rafter_piece);
         Some((spec, bearings, false))
     }
+}
+
+/// Whether two solids run into each other: a corner of either deeper than
+/// [`OVERLAP_TOL_IN`] inside the other.
+fn runs_into(a: &Solid, b: &Solid) -> bool {
+    a.vertices().any(|v| b.depth_of(v) > OVERLAP_TOL_IN)
+        || b.vertices().any(|v| a.depth_of(v) > OVERLAP_TOL_IN)
 }

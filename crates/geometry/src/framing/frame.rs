@@ -192,6 +192,16 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         specs.push(spec);
     }
 
+    // A ridge's end cut back to a king common passing it bears on the king.
+    for (li, line) in lines.iter().enumerate().filter(|(_, l)| l.kind == RoofLineKind::Ridge) {
+        for (ri, mating, at_start) in ctx.ridge_end_king_clearances(li, line) {
+            let piece = if at_start { ridge_pieces[li].first() } else { ridge_pieces[li].last() };
+            if let (Some(&cut), Some(Some(king))) = (piece, rafter_piece.get(ri)) {
+                joint_specs.push(JointSpec { cut, bearing: Bearing::Piece(*king), mating });
+            }
+        }
+    }
+
     // Hips and valleys.
     let mut line_piece: Vec<Option<usize>> = vec![None; lines.len()];
     // A hip or valley too short to cut is not cut, and the members
@@ -213,7 +223,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         }
         let built = match line.kind {
             RoofLineKind::Hip => ctx.hip_spec(line, &rafter_piece),
-            RoofLineKind::Valley => ctx.valley_spec(line),
+            RoofLineKind::Valley => ctx.valley_spec(line, &rafter_piece),
             RoofLineKind::Ridge => None,
         };
         let Some((spec, bearings, peak_without_ridge)) = built else {
