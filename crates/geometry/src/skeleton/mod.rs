@@ -26,6 +26,7 @@ mod faces;
 pub(crate) mod lines;
 pub(crate) mod quick_hash;
 mod resolve;
+mod split_search;
 mod sweep_index;
 pub(crate) mod tolerance;
 mod wavefront;
@@ -90,11 +91,9 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
     let n = lines.len();
     let packed_lines: Vec<[f64; 4]> =
         lines.iter().map(|l| [l.normal.x, l.normal.y, l.offset, l.speed]).collect();
-    let line_columns = [0, 1, 2, 3].map(|k| packed_lines.iter().map(|c| c[k]).collect());
     let mut wf = Wavefront {
         lines,
         packed_lines,
-        line_columns,
         vertices: Vec::new(),
         edges: Vec::new(),
         nodes: Vec::new(),
@@ -107,8 +106,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         tol,
         changed_edges: Vec::new(),
         split_scratch: Vec::new(),
-        split_times: Vec::new(),
-        split_lows: Vec::new(),
+        line_blocks: None,
     };
     let mut index = SweepIndex::new(&wf);
     let mut heap: BinaryHeap<Event> = BinaryHeap::new();

@@ -4,6 +4,7 @@ use glam::DVec2;
 
 use super::lines::WallLine;
 use super::quick_hash::QuickMap;
+use super::split_search::LineBlocks;
 use super::tolerance::Tolerance;
 
 /// Index of a wavefront vertex.
@@ -95,9 +96,6 @@ pub(crate) struct Wavefront {
     pub lines: Vec<WallLine>,
     /// Each line's `[normal.x, normal.y, offset, speed]`, packed for the split search.
     pub packed_lines: Vec<[f64; 4]>,
-    /// The same coefficients a column each (normal x, normal y, offset,
-    /// speed), so the full split search reads them two lines at a time.
-    pub line_columns: [Vec<f64>; 4],
     /// All vertices ever created.
     pub vertices: Vec<Vertex>,
     /// All edge pieces ever created.
@@ -125,10 +123,8 @@ pub(crate) struct Wavefront {
     pub changed_edges: Vec<EdgeId>,
     /// Scratch space for the full split search, kept between calls.
     pub split_scratch: Vec<(f64, usize)>,
-    /// Each line's split height in the full search, kept between calls.
-    pub split_times: Vec<f64>,
-    /// The lowest split height of each run of lines in the full search.
-    pub split_lows: Vec<f64>,
+    /// The lines in blocks for the full split search, made at its first use.
+    pub line_blocks: Option<LineBlocks>,
 }
 
 /// Velocity and corner kind of the crossing of lines `a` (arriving) and `b` (leaving).
