@@ -116,16 +116,24 @@ pub fn check_fit(
     // Only depths above the overlap so far can raise it: a part is left
     // as soon as one plane puts the corner below that (most corners lie
     // well outside most planes), and the rest are measured in full.
+    // Neighbouring corners are mostly ruled out by the same plane: the
+    // plane that last ruled one out is tried first.
+    let mut first = 0;
     for p in cut.vertices() {
         let floor = fit.max_overlap;
-        let depth =
-            near.iter().filter_map(|part| depth_above(part, p, floor)).fold(f64::NEG_INFINITY, f64::max);
+        let depth = near
+            .iter()
+            .filter_map(|part| depth_above(part, p, floor, &mut first))
+            .fold(f64::NEG_INFINITY, f64::max);
         fit.max_overlap = fit.max_overlap.max(depth);
     }
     for p in near.iter().flat_map(|part| part.vertices.iter().copied()) {
         let floor = fit.max_overlap;
-        let depth =
-            cut.parts.iter().filter_map(|part| depth_above(part, p, floor)).fold(f64::NEG_INFINITY, f64::max);
+        let depth = cut
+            .parts
+            .iter()
+            .filter_map(|part| depth_above(part, p, floor, &mut first))
+            .fold(f64::NEG_INFINITY, f64::max);
         fit.max_overlap = fit.max_overlap.max(depth);
     }
     fit
@@ -138,11 +146,25 @@ pub fn check_fit(
 /// largest depth over parts once that is taken with `floor` itself (which
 /// is how the overlap is gathered): every part left out is strictly below
 /// it, so neither the larger value nor the sign of a zero can change.
-fn depth_above(part: &ConvexPart, p: glam::DVec3, floor: f64) -> Option<f64> {
-    if part.planes.iter().any(|h| -h.distance(p) < floor) {
+///
+/// Plane `first` is tried first, and set to the plane that rules `p` out;
+/// whether some plane does is the same in any order, and a depth is taken
+/// over every plane in the part's order, as `depth_of` takes it, so the
+/// answer does not depend on `first`.
+fn depth_above(part: &ConvexPart, p: glam::DVec3, floor: f64, first: &mut usize) -> Option<f64> {
+    if part.planes.get(*first).is_some_and(|h| -h.distance(p) < floor) {
         return None;
     }
-    Some(part.depth_of(p))
+    let mut depth = f64::INFINITY;
+    for (m, h) in part.planes.iter().enumerate() {
+        let d = -h.distance(p);
+        if d < floor {
+            *first = m;
+            return None;
+        }
+        depth = depth.min(d);
+    }
+    Some(depth)
 }
 
 /// How far past the cut piece's box a bearing part may lie and still be
