@@ -98,6 +98,23 @@ pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
             if *left_out == MemberKind::Valley { "valley" } else { "hip" },
             length(*length_in)
         ),
+        FramingWarning::JointDoesNotFit { bears_on, gap_in, overlap_in, .. } => {
+            // Misfits from 1/64 in up: sixteenths or whole millimetres would
+            // round the smaller ones to nothing.
+            let fine = |inches: f64| {
+                if style == LengthStyle::Millimetres {
+                    format!("{:.1} mm", inches * 25.4)
+                } else {
+                    Length::from_inches(inches).format(LengthStyle::DecimalInches)
+                }
+            };
+            format!(
+                "does not fit {bears_on} as framed (gap {}, overlap {}): fit this joint in place, with a \
+                 block or a cut by hand, before cutting the run",
+                fine(*gap_in),
+                fine(*overlap_in)
+            )
+        }
         FramingWarning::HipCutLevelAtPlate { cut_in, .. } => format!(
             "runs so low beside a wall it would go into the plate: cut its lower edge level with the top \
              of plate, up to {} off its depth; walls nearly in line often cause this",

@@ -34,3 +34,23 @@ fn table_snapshot() {
     let deck = common::sample_deck();
     insta::assert_snapshot!(cut_list_table(&deck.members, LengthStyle::FeetInches));
 }
+
+#[test]
+fn a_joint_that_does_not_fit_is_told_with_both_members_and_its_fit() {
+    // A hip's top 1.1418 in short of the king it bears on (as the joint
+    // check measures on an irregular plan). Misfits from 1/64 in up are
+    // printed to thousandths of an inch or tenths of a millimetre, as
+    // sixteenths would round the smaller ones to nothing:
+    // 1.1418 x 25.4 = 29.0 mm. Derivation.
+    let warning = pitchframe_geometry::framing::FramingWarning::JointDoesNotFit {
+        label: "H7".to_string(),
+        bears_on: "KC4".to_string(),
+        gap_in: 1.1418,
+        overlap_in: 0.0,
+    };
+    let inches = pitchframe_cards::warning_words(&warning, LengthStyle::FeetInches);
+    assert!(inches.contains("KC4"), "{inches}");
+    assert!(inches.contains("1.142\"") && inches.contains("0.000\""), "{inches}");
+    let mm = pitchframe_cards::warning_words(&warning, LengthStyle::Millimetres);
+    assert!(mm.contains("29.0 mm") && mm.contains("0.0 mm"), "{mm}");
+}

@@ -7,7 +7,7 @@ use super::bearing_stretch::lands_on_bearing;
 use super::board::{PieceSpec, SolidScratch};
 use super::builders::{Bearing, Ctx, left_out_lines};
 use super::checks::piece_checks;
-use super::joints::{Joint, check_fit, part_bounds};
+use super::joints::{JOINT_FIT_IN, Joint, check_fit, part_bounds};
 use super::labels::label_pieces;
 use super::layout::{PlanLine, RafterLine, rafter_lines};
 use super::measure::{Measured, measure};
@@ -408,8 +408,19 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         };
         piece_warnings[i].push(w);
     }
+    for (joint, _) in &joints {
+        // A NaN reading is no fit either.
+        if !(joint.max_gap < JOINT_FIT_IN && joint.max_overlap < JOINT_FIT_IN) {
+            piece_warnings[joint.pieces[0]].push(FramingWarning::JointDoesNotFit {
+                label: joint.members[0].clone(),
+                bears_on: joint.members[1].clone(),
+                gap_in: joint.max_gap,
+                overlap_in: joint.max_overlap,
+            });
+        }
+    }
     for (joint, hang) in &joints {
-        if *hang <= 1.0 / 64.0 {
+        if *hang <= JOINT_FIT_IN {
             continue;
         }
         let [a, b] = joint.pieces;

@@ -4,6 +4,10 @@ use serde::Serialize;
 
 use super::{ConvexPart, HalfSpace, Solid};
 
+/// A joint fits when neither its gap nor its overlap reaches this, inches:
+/// 1/64 in, finer than a pencil line (common practice, no source).
+pub const JOINT_FIT_IN: f64 = 1.0 / 64.0;
+
 /// A joint between two placed pieces.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct Joint {

@@ -27,7 +27,7 @@ mod warning;
 pub use cuts::{Cut, CutFace, MiterSetup};
 pub use error::FramingError;
 pub use frame::{Frame, frame_roof};
-pub use joints::Joint;
+pub use joints::{JOINT_FIT_IN, Joint};
 pub use member::{Hand, Hands, Member, MemberKind};
 pub use piece::PlacedPiece;
 pub use settings::{BoardSize, FramingSettings, Heel, HipTop, LayoutStart, Saws, TailCut};

@@ -94,6 +94,21 @@ pub enum FramingWarning {
         /// Its plan length, inches.
         length_in: f64,
     },
+    /// Two pieces meet with a gap or an overlap of 1/64 in or more, as the
+    /// joint check measures their solids: the geometry there needs a
+    /// fitted block or a cut by hand (a node where lines of an irregular
+    /// plan crowd together). Fit this joint in place before cutting the
+    /// run.
+    JointDoesNotFit {
+        /// The member cut to fit.
+        label: String,
+        /// The member it bears on.
+        bears_on: String,
+        /// Largest gap between the mating faces, inches.
+        gap_in: f64,
+        /// Largest overlap of the two pieces, inches.
+        overlap_in: f64,
+    },
     /// Hips meet at a point with no ridge (a peak, or where two hips merge
     /// into one on an irregular plan): the ends there are cut plumb, square
     /// to the hip, at the theoretical point, and need a fitted block or hub.
@@ -112,7 +127,8 @@ impl FramingWarning {
             | Self::StockLengthExceeded { label, .. }
             | Self::HipsMeetWithoutRidge { label }
             | Self::HipCutLevelAtPlate { label, .. }
-            | Self::ShortMemberLeftOut { label, .. } => label,
+            | Self::ShortMemberLeftOut { label, .. }
+            | Self::JointDoesNotFit { label, .. } => label,
             Self::HipTooShallow { jack, .. } => jack,
             Self::RidgeTooShallow { rafter, .. } => rafter,
         }
