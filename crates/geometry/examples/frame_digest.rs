@@ -27,11 +27,9 @@ use std::hash::Hasher;
 use std::io::Write as _;
 use std::panic::{AssertUnwindSafe, catch_unwind};
 
-use glam::{DVec2, dvec2};
 use pitchframe_geometry::framing::{FramingSettings, frame_roof};
-use pitchframe_geometry::{Outline, OutlineError};
 use pitchframe_geometry::{
-    OutlineFeatures, OutlineShape, Plan, Roof, Wall, WallRoof, demo_plan, random_outline_or_refusal,
+    Outline, OutlineFeatures, OutlineShape, Plan, Roof, demo_plan, many_wings, random_outline_or_refusal,
 };
 
 /// Feeds formatted text straight into a hasher, so a large frame's text
@@ -51,35 +49,6 @@ fn digest_of(value: &impl std::fmt::Debug) -> u64 {
     // Writing into a hasher cannot fail.
     let _ = write!(w, "{value:?}");
     w.0.finish()
-}
-
-/// The frame benchmark's 200 ft x 120 ft plan: a 40 ft deep block with ten
-/// 16 ft wings running 40 ft out each side, hipped at 6/12 (built as
-/// `benches/frame.rs` builds it).
-fn many_wings() -> Result<Outline, OutlineError> {
-    let ft = 12.0;
-    let (len, depth, wing, reach) = (200.0 * ft, 40.0 * ft, 16.0 * ft, 40.0 * ft);
-    let starts: Vec<f64> = (0..10).map(|i| (2.0 + 20.0 * f64::from(i)) * ft).collect();
-    let mut corners: Vec<DVec2> = vec![dvec2(0.0, 0.0)];
-    for &x in &starts {
-        corners.extend([dvec2(x, 0.0), dvec2(x, -reach), dvec2(x + wing, -reach), dvec2(x + wing, 0.0)]);
-    }
-    corners.push(dvec2(len, 0.0));
-    corners.push(dvec2(len, depth));
-    for &x in starts.iter().rev() {
-        corners.extend([
-            dvec2(x + wing, depth),
-            dvec2(x + wing, depth + reach),
-            dvec2(x, depth + reach),
-            dvec2(x, depth),
-        ]);
-    }
-    corners.push(dvec2(0.0, depth));
-    let walls = corners
-        .into_iter()
-        .map(|corner| Wall { corner, roof: WallRoof::Pitched { rise_per_run: 0.5 }, overhang_in: 16.0 })
-        .collect();
-    Outline::new(walls, Vec::new())
 }
 
 /// The frame benchmark's settings for the demo house.
@@ -120,7 +89,7 @@ fn fixed_cases() -> Vec<(String, Outline, FramingSettings)> {
             cases.push((format!("{name}-default"), o, FramingSettings::default()));
         }
     }
-    if let Ok(o) = many_wings() {
+    if let Ok(o) = many_wings(0.5) {
         cases.push(("large".to_string(), o, FramingSettings { spacing_in: 12.0, ..bench_settings() }));
     }
     if let Some(plan) = plan_file("crates/app/benches/many-wings.toml")
@@ -158,7 +127,7 @@ fn main() {
             let n: usize = words.get(2).and_then(|w| w.parse().ok()).unwrap_or(1);
             let (outline, settings) = match words.get(1).map(String::as_str) {
                 Some("large") => {
-                    (many_wings().ok(), FramingSettings { spacing_in: 12.0, ..bench_settings() })
+                    (many_wings(0.5).ok(), FramingSettings { spacing_in: 12.0, ..bench_settings() })
                 }
                 _ => (demo_plan().ok().and_then(|p| p.outline().ok()), bench_settings()),
             };

@@ -7,7 +7,9 @@
 //! main roof and the wing), a valley, hip jacks, valley jacks and cripple
 //! jacks, so every member kind appears.
 
-use crate::{Plan, PlanError};
+use glam::{DVec2, dvec2};
+
+use crate::{Outline, OutlineError, Plan, PlanError, Wall, WallRoof};
 
 /// The demo plan as TOML, exactly as a user would write it.
 pub const DEMO_PLAN_TOML: &str = r#"# Pitchframe demo: an invented L-shaped house.
@@ -50,4 +52,37 @@ pitch = "9/12"
 /// The demo plan, parsed.
 pub fn demo_plan() -> Result<Plan, PlanError> {
     Plan::from_toml(DEMO_PLAN_TOML)
+}
+
+/// A large invented plan for benchmarks and tests: a 200 ft x 40 ft block
+/// with ten 16 ft wide wings running 40 ft out on each side (200 ft x
+/// 120 ft overall), every wall pitched at `rise_per_run` with a 16 in
+/// overhang. Hipped at 6/12 and framed at 12 in centres it has about two
+/// thousand members.
+pub fn many_wings(rise_per_run: f64) -> Result<Outline, OutlineError> {
+    let ft = 12.0;
+    let (len, depth, wing, reach) = (200.0 * ft, 40.0 * ft, 16.0 * ft, 40.0 * ft);
+    let starts: Vec<f64> = (0..10).map(|i| (2.0 + 20.0 * f64::from(i)) * ft).collect();
+    let mut corners: Vec<DVec2> = vec![dvec2(0.0, 0.0)];
+    // South side, west to east, wings reaching down.
+    for &x in &starts {
+        corners.extend([dvec2(x, 0.0), dvec2(x, -reach), dvec2(x + wing, -reach), dvec2(x + wing, 0.0)]);
+    }
+    corners.push(dvec2(len, 0.0));
+    corners.push(dvec2(len, depth));
+    // North side, east to west, wings reaching up.
+    for &x in starts.iter().rev() {
+        corners.extend([
+            dvec2(x + wing, depth),
+            dvec2(x + wing, depth + reach),
+            dvec2(x, depth + reach),
+            dvec2(x, depth),
+        ]);
+    }
+    corners.push(dvec2(0.0, depth));
+    let walls = corners
+        .into_iter()
+        .map(|corner| Wall { corner, roof: WallRoof::Pitched { rise_per_run }, overhang_in: 16.0 })
+        .collect();
+    Outline::new(walls, Vec::new())
 }

@@ -48,5 +48,5 @@ pub use roof_check::{RoofDefect, check_roof};
 pub mod demo;
 pub mod plan;
 
-pub use demo::{DEMO_PLAN_TOML, demo_plan};
+pub use demo::{DEMO_PLAN_TOML, demo_plan, many_wings};
 pub use plan::{FramingInput, Plan, PlanError, PlanWall};

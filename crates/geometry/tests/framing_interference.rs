@@ -67,7 +67,7 @@ fn a_pyramid_and_a_plan_of_many_wings_have_no_interference() {
     framing_support::assert_joints_fit(&frame);
     check("pyramid", &frame);
 
-    let o = framing_support::many_wings(0.5);
+    let o = pitchframe_geometry::many_wings(0.5).unwrap_or_else(|e| panic!("test outline: {e}"));
     let r = Roof::solve(&o).unwrap();
     let frame = frame_roof(&o, &r, &spaced(16.0)).unwrap();
     assert!(frame.pieces.len() > 900);

@@ -151,28 +151,3 @@ pub fn l_hip(width: f64, slope: f64, overhang_in: f64) -> (Outline, Roof) {
     ];
     (o, Roof { planes, lines, gables: Vec::new() })
 }
-
-/// A 200 ft x 40 ft block with ten 16 ft wings 40 ft out on each side
-/// (200 ft x 120 ft overall), every wall at `slope`; the benchmark's plan.
-pub fn many_wings(slope: f64) -> Outline {
-    let ft = 12.0;
-    let (len, depth, wing, reach) = (200.0 * ft, 40.0 * ft, 16.0 * ft, 40.0 * ft);
-    let starts: Vec<f64> = (0..10).map(|i| (2.0 + 20.0 * f64::from(i)) * ft).collect();
-    let mut corners: Vec<DVec2> = vec![dvec2(0.0, 0.0)];
-    for &x in &starts {
-        corners.extend([dvec2(x, 0.0), dvec2(x, -reach), dvec2(x + wing, -reach), dvec2(x + wing, 0.0)]);
-    }
-    corners.push(dvec2(len, 0.0));
-    corners.push(dvec2(len, depth));
-    for &x in starts.iter().rev() {
-        corners.extend([
-            dvec2(x + wing, depth),
-            dvec2(x + wing, depth + reach),
-            dvec2(x, depth + reach),
-            dvec2(x, depth),
-        ]);
-    }
-    corners.push(dvec2(0.0, depth));
-    let slopes = vec![slope; corners.len()];
-    outline(&corners, &slopes, 16.0)
-}
