@@ -57,6 +57,17 @@ pub fn size_words(thickness_in: f64, depth_in: f64, style: LengthStyle) -> Strin
     )
 }
 
+/// A joint's gap or overlap, `inches`, in `style`'s units: thousandths of
+/// an inch or tenths of a millimetre, since misfits from 1/64 in up would
+/// round to nothing in sixteenths or whole millimetres.
+pub fn misfit_text(inches: f64, style: LengthStyle) -> String {
+    if style == LengthStyle::Millimetres {
+        format!("{:.1} mm", inches * 25.4)
+    } else {
+        Length::from_inches(inches).format(LengthStyle::DecimalInches)
+    }
+}
+
 /// A framing warning in words, for the member it is on.
 pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
     let length = |inches: f64| Length::from_inches(inches).format(style);
@@ -98,23 +109,12 @@ pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
             if *left_out == MemberKind::Valley { "valley" } else { "hip" },
             length(*length_in)
         ),
-        FramingWarning::JointDoesNotFit { bears_on, gap_in, overlap_in, .. } => {
-            // Misfits from 1/64 in up: sixteenths or whole millimetres would
-            // round the smaller ones to nothing.
-            let fine = |inches: f64| {
-                if style == LengthStyle::Millimetres {
-                    format!("{:.1} mm", inches * 25.4)
-                } else {
-                    Length::from_inches(inches).format(LengthStyle::DecimalInches)
-                }
-            };
-            format!(
-                "does not fit {bears_on} as framed (gap {}, overlap {}): fit this joint in place, with a \
-                 block or a cut by hand, before cutting the run",
-                fine(*gap_in),
-                fine(*overlap_in)
-            )
-        }
+        FramingWarning::JointDoesNotFit { bears_on, gap_in, overlap_in, .. } => format!(
+            "does not fit {bears_on} as framed (gap {}, overlap {}): fit this joint in place, with a \
+             block or a cut by hand, before cutting the run",
+            misfit_text(*gap_in, style),
+            misfit_text(*overlap_in, style)
+        ),
         FramingWarning::HipCutLevelAtPlate { cut_in, .. } => format!(
             "runs so low beside a wall it would go into the plate: cut its lower edge level with the top \
              of plate, up to {} off its depth; walls nearly in line often cause this",

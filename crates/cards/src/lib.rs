@@ -39,8 +39,8 @@ pub use cards_pdf::{
 };
 pub use cut_list::{CutListError, cut_list_csv, cut_list_table, cut_text};
 pub use from_frame::{
-    card_deck, kind_words, length_style, member_card, model_scene, order_pieces, outline_rings, size_words,
-    warning_words,
+    card_deck, kind_words, length_style, member_card, misfit_text, model_scene, order_pieces, outline_rings,
+    size_words, warning_words,
 };
 pub use gltf_export::{GltfError, ModelFace, ModelPiece, ModelScene, frame_glb};
 pub use member_card::{

@@ -3,7 +3,7 @@
 
 use egui::{Color32, RichText};
 use pitchframe_geometry::framing::{Cut, CutEnd, FramingWarning, MemberKind, SawKind};
-use pitchframe_geometry::{Length, LengthStyle, Member, Pitch, Plan, RafterTable};
+use pitchframe_geometry::{Length, Member, Pitch, Plan, RafterTable};
 
 use super::derived::{Derived, WALL_HEIGHT_IN, WALL_THICKNESS_IN};
 use super::document::Document;
@@ -217,22 +217,12 @@ fn warning_text(units: DisplayUnits, warning: &FramingWarning) -> String {
             if *left_out == MemberKind::Valley { "valley" } else { "hip" },
             inches_text(units, *length_in)
         ),
-        FramingWarning::JointDoesNotFit { bears_on, gap_in, overlap_in, .. } => {
-            // Misfits from 1/64 in up: sixteenths or whole millimetres would
-            // round the smaller ones to nothing.
-            let fine = |inches: f64| match units {
-                DisplayUnits::Millimetres => format!("{:.1} mm", inches * 25.4),
-                DisplayUnits::FeetInches | DisplayUnits::Inches => {
-                    Length::from_inches(inches).format(LengthStyle::DecimalInches)
-                }
-            };
-            format!(
-                "Does not fit {bears_on} as framed (gap {}, overlap {}): fit this joint in place, with a \
-                 block or a cut by hand, before cutting the run",
-                fine(*gap_in),
-                fine(*overlap_in)
-            )
-        }
+        FramingWarning::JointDoesNotFit { bears_on, gap_in, overlap_in, .. } => format!(
+            "Does not fit {bears_on} as framed (gap {}, overlap {}): fit this joint in place, with a \
+             block or a cut by hand, before cutting the run",
+            pitchframe_cards::misfit_text(*gap_in, units.style()),
+            pitchframe_cards::misfit_text(*overlap_in, units.style())
+        ),
         FramingWarning::HipCutLevelAtPlate { cut_in, .. } => format!(
             "Runs so low beside a wall it would go into the plate: its lower edge is cut level with the \
              top of plate, up to {} off its depth; walls nearly in line often cause this",

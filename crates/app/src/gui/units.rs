@@ -53,7 +53,8 @@ impl DisplayUnits {
         Length::parse(text, self.plain_unit()).map_err(|err| err.to_string())
     }
 
-    fn style(self) -> LengthStyle {
+    /// How lengths are written in these units.
+    pub fn style(self) -> LengthStyle {
         match self {
             DisplayUnits::FeetInches => LengthStyle::FeetInches,
             DisplayUnits::Inches => LengthStyle::Inches,
