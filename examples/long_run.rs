@@ -19,6 +19,10 @@ use std::panic::{AssertUnwindSafe, catch_unwind};
 use std::sync::Mutex;
 use std::time::Instant;
 
+// The allocator the app runs with, so the outlines a second are the app's.
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
+
 use pitchframe_geometry::{
     FramingSettings, OutlineFeatures, OutlineShape, Roof, check_roof, frame_roof, random_outline_or_refusal,
 };

@@ -5,6 +5,10 @@ use criterion::{Criterion, criterion_group, criterion_main};
 use pitchframe_geometry::framing::{FramingSettings, frame_roof};
 use pitchframe_geometry::{Roof, demo_plan, many_wings};
 
+// The allocator the app runs with, so the figures are the app's.
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
+
 fn bench(c: &mut Criterion) {
     let settings = FramingSettings { spacing_in: 16.0, ..FramingSettings::default() };
     let plan = demo_plan().unwrap_or_else(|e| panic!("demo plan: {e}"));

@@ -28,6 +28,10 @@ use std::io::Write as _;
 use std::panic::{AssertUnwindSafe, catch_unwind};
 
 use pitchframe_geometry::framing::{FramingSettings, frame_roof};
+
+// The allocator the app runs with, so the figures are the app's.
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
 use pitchframe_geometry::{
     Outline, OutlineFeatures, OutlineShape, Plan, Roof, demo_plan, many_wings, random_outline_or_refusal,
 };
