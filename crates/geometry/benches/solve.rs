@@ -8,62 +8,30 @@ use std::hint::black_box;
 
 use criterion::{BenchmarkId, Criterion, criterion_group, criterion_main};
 use glam::DVec2;
-use pitchframe_geometry::{Outline, Roof, Wall, WallRoof};
+use pitchframe_geometry::{Outline, Roof, Wall, WallRoof, comb_corners, star_corners};
 
-/// A small deterministic random source (a 64-bit LCG).
-struct Lcg(u64);
-
-impl Lcg {
-    fn next(&mut self) -> f64 {
-        self.0 = self.0.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
-        (self.0 >> 11) as f64 / (1u64 << 53) as f64
-    }
-}
-
-fn walls(points: &[(f64, f64)]) -> Vec<Wall> {
+fn walls(points: &[DVec2]) -> Vec<Wall> {
     points
         .iter()
-        .map(|&(x, y)| Wall {
-            corner: DVec2::new(x, y),
-            roof: WallRoof::Pitched { rise_per_run: 0.5 },
-            overhang_in: 12.0,
-        })
+        .map(|&corner| Wall { corner, roof: WallRoof::Pitched { rise_per_run: 0.5 }, overhang_in: 12.0 })
         .collect()
 }
 
-/// A star-shaped plan: `n` corners at equal angles, random radii.
+/// A star-shaped plan: `n` corners at equal angles, radii random between
+/// 3,000 and 6,000 in.
 fn star(n: usize, seed: u64) -> Outline {
-    let mut rng = Lcg(seed);
-    let pts: Vec<(f64, f64)> = (0..n)
-        .map(|i| {
-            let a = std::f64::consts::TAU * i as f64 / n as f64;
-            let r = 3000.0 + 3000.0 * rng.next();
-            (r * a.cos(), r * a.sin())
-        })
-        .collect();
-    Outline::new(walls(&pts), vec![]).unwrap()
+    Outline::new(walls(&star_corners(n, seed, 3000.0)), vec![]).unwrap()
 }
 
 /// An orthogonal comb of about `n` corners: a spine with teeth of random depth.
 fn comb(n: usize, seed: u64) -> Outline {
-    let mut rng = Lcg(seed);
     let teeth = (n.saturating_sub(2) / 4).max(1);
-    let w = 48.0;
-    let mut pts = vec![(0.0, 0.0), (2.0 * w * teeth as f64, 0.0)];
-    for i in (0..teeth).rev() {
-        let depth = 100.0 + (300.0 * rng.next()).round();
-        let x0 = 2.0 * w * i as f64;
-        pts.push((x0 + 2.0 * w, 100.0 + depth));
-        pts.push((x0 + w, 100.0 + depth));
-        pts.push((x0 + w, 100.0));
-        pts.push((x0, 100.0));
-    }
-    Outline::new(walls(&pts), vec![]).unwrap()
+    Outline::new(walls(&comb_corners(teeth, seed)), vec![]).unwrap()
 }
 
 /// A small house: an L with a bay and one gable end.
 fn house() -> Outline {
-    let mut w = walls(&[
+    let corners = [
         (0.0, 0.0),
         (180.0, 0.0),
         (210.0, -30.0),
@@ -74,7 +42,8 @@ fn house() -> Outline {
         (300.0, 288.0),
         (300.0, 500.0),
         (0.0, 500.0),
-    ]);
+    ];
+    let mut w = walls(&corners.map(|(x, y)| DVec2::new(x, y)));
     w[8].roof = WallRoof::Gable;
     Outline::new(w, vec![]).unwrap()
 }

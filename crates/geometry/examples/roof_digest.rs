@@ -27,11 +27,11 @@ use std::io::Write;
 
 use glam::DVec2;
 use pitchframe_geometry::{
-    Outline, OutlineFeatures, OutlineShape, Plan, Roof, Wall, WallRoof, check_roof, demo_plan,
-    random_outline_or_refusal, random_outline_with,
+    Outline, OutlineFeatures, OutlineShape, Plan, Roof, Wall, WallRoof, check_roof, comb_corners, demo_plan,
+    random_outline_or_refusal, random_outline_with, star_corners,
 };
 
-/// A small deterministic random source (the solve benchmark's 64-bit LCG).
+/// A small deterministic random source (a 64-bit LCG, as `star_corners` uses).
 struct Lcg(u64);
 
 impl Lcg {
@@ -49,12 +49,12 @@ impl Lcg {
 /// The seven pitches of the mixed-pitch large plans, rise per run.
 const PITCHES: [f64; 7] = [0.25, 0.333, 0.5, 0.5833, 0.75, 1.0, 1.5];
 
-fn walls(points: &[(f64, f64)], mixed: bool) -> Vec<Wall> {
+fn walls(points: &[DVec2], mixed: bool) -> Vec<Wall> {
     points
         .iter()
         .enumerate()
-        .map(|(i, &(x, y))| Wall {
-            corner: DVec2::new(x, y),
+        .map(|(i, &corner)| Wall {
+            corner,
             roof: WallRoof::Pitched {
                 rise_per_run: if mixed {
                     PITCHES.get(i % PITCHES.len()).copied().unwrap_or(0.5)
@@ -69,32 +69,13 @@ fn walls(points: &[(f64, f64)], mixed: bool) -> Vec<Wall> {
 
 /// The solve benchmark's star: `n` corners at equal angles, random radii.
 fn star(n: usize, seed: u64, mixed: bool) -> Option<Outline> {
-    let mut rng = Lcg(seed);
-    let pts: Vec<(f64, f64)> = (0..n)
-        .map(|i| {
-            let a = std::f64::consts::TAU * i as f64 / n as f64;
-            let r = 3000.0 + 3000.0 * rng.next();
-            (r * a.cos(), r * a.sin())
-        })
-        .collect();
-    Outline::new(walls(&pts, mixed), vec![]).ok()
+    Outline::new(walls(&star_corners(n, seed, 3000.0), mixed), vec![]).ok()
 }
 
 /// The solve benchmark's comb of about `n` corners.
 fn comb(n: usize, seed: u64, mixed: bool) -> Option<Outline> {
-    let mut rng = Lcg(seed);
     let teeth = (n.saturating_sub(2) / 4).max(1);
-    let w = 48.0;
-    let mut pts = vec![(0.0, 0.0), (2.0 * w * teeth as f64, 0.0)];
-    for i in (0..teeth).rev() {
-        let depth = 100.0 + (300.0 * rng.next()).round();
-        let x0 = 2.0 * w * i as f64;
-        pts.push((x0 + 2.0 * w, 100.0 + depth));
-        pts.push((x0 + w, 100.0 + depth));
-        pts.push((x0 + w, 100.0));
-        pts.push((x0, 100.0));
-    }
-    Outline::new(walls(&pts, mixed), vec![]).ok()
+    Outline::new(walls(&comb_corners(teeth, seed), mixed), vec![]).ok()
 }
 
 /// The digest of one solve, and whether the roof passes the checker.

@@ -41,7 +41,8 @@ pub use outline::{CornerName, GABLE_TURN_MIN_DEG, Outline, OutlineError, Wall, W
 pub use pitch::{Pitch, PitchError};
 pub use rafter_table::{AngleSetting, MarkAlong, MetricRafterTable, RafterTable, SquareSetting};
 pub use random_outline::{
-    OutlineFeatures, OutlineShape, random_outline, random_outline_or_refusal, random_outline_with,
+    OutlineFeatures, OutlineShape, comb_corners, random_outline, random_outline_or_refusal,
+    random_outline_with, star_corners,
 };
 pub use roof::{GableFace, Roof, RoofError, RoofLine, RoofLineKind, RoofPlane};
 pub use roof_check::{RoofDefect, check_roof};

@@ -114,6 +114,54 @@ pub fn random_outline_or_refusal(
     }
 }
 
+/// The corners of a star for speed measurements and tests: `n` corners
+/// at equal angles round the origin (anticlockwise from the +x axis), each
+/// at a radius drawn between `radius` and twice it. About half of them are
+/// inside corners. The draws come from a plain 64-bit linear congruential
+/// generator seeded with `seed`, so the solve benchmark's plans stay the
+/// same whatever the other generators here do.
+pub fn star_corners(n: usize, seed: u64, radius: f64) -> Vec<DVec2> {
+    let mut rng = Lcg(seed);
+    (0..n)
+        .map(|i| {
+            let a = std::f64::consts::TAU * i as f64 / n as f64;
+            let r = radius + radius * rng.next();
+            DVec2::new(r * a.cos(), r * a.sin())
+        })
+        .collect()
+}
+
+/// The corners of an orthogonal comb for speed measurements and tests: a
+/// spine 100 in deep along the x axis with `teeth` teeth 48 in wide and 48
+/// in apart, each of a depth from 100 to 400 in, whole inches, drawn as
+/// [`star_corners`] draws (many teeth share a depth, so many events of the
+/// solve fall at one height). `4 * teeth + 2` corners, anticlockwise.
+pub fn comb_corners(teeth: usize, seed: u64) -> Vec<DVec2> {
+    let mut rng = Lcg(seed);
+    let w = 48.0;
+    let mut points = vec![DVec2::new(0.0, 0.0), DVec2::new(2.0 * w * teeth as f64, 0.0)];
+    for i in (0..teeth).rev() {
+        let depth = 100.0 + (300.0 * rng.next()).round();
+        let x0 = 2.0 * w * i as f64;
+        points.push(DVec2::new(x0 + 2.0 * w, 100.0 + depth));
+        points.push(DVec2::new(x0 + w, 100.0 + depth));
+        points.push(DVec2::new(x0 + w, 100.0));
+        points.push(DVec2::new(x0, 100.0));
+    }
+    points
+}
+
+/// The 64-bit linear congruential generator of [`star_corners`] and
+/// [`comb_corners`] (Knuth's MMIX constants), giving numbers in [0, 1).
+struct Lcg(u64);
+
+impl Lcg {
+    fn next(&mut self) -> f64 {
+        self.0 = self.0.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
+        (self.0 >> 11) as f64 / (1u64 << 53) as f64
+    }
+}
+
 fn draw(
     shape: OutlineShape,
     features: OutlineFeatures,

@@ -6,7 +6,7 @@
 
 use approx::assert_relative_eq;
 use glam::{DVec2, DVec3};
-use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof};
+use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof, comb_corners, star_corners};
 
 /// Plan and height tolerance for the comparisons below, in inches.
 const EPS: f64 = 1e-6;
@@ -646,32 +646,15 @@ impl Lcg {
     }
 }
 
-/// A star-shaped plan: corners at equal angles, random radii.
+/// A star-shaped plan: corners at equal angles, radii random between 300
+/// and 600 in.
 fn star(n: usize, seed: u64) -> Vec<(f64, f64)> {
-    let mut rng = Lcg(seed);
-    (0..n)
-        .map(|i| {
-            let a = std::f64::consts::TAU * i as f64 / n as f64;
-            let r = 300.0 + 300.0 * rng.next();
-            (r * a.cos(), r * a.sin())
-        })
-        .collect()
+    star_corners(n, seed, 300.0).iter().map(|p| (p.x, p.y)).collect()
 }
 
 /// An orthogonal comb: a spine with `teeth` teeth of random depth.
 fn comb(teeth: usize, seed: u64) -> Vec<(f64, f64)> {
-    let mut rng = Lcg(seed);
-    let w = 48.0;
-    let mut pts = vec![(0.0, 0.0), (2.0 * w * teeth as f64, 0.0)];
-    for i in (0..teeth).rev() {
-        let depth = 100.0 + (300.0 * rng.next()).round();
-        let x0 = 2.0 * w * i as f64;
-        pts.push((x0 + 2.0 * w, 100.0 + depth));
-        pts.push((x0 + w, 100.0 + depth));
-        pts.push((x0 + w, 100.0));
-        pts.push((x0, 100.0));
-    }
-    pts
+    comb_corners(teeth, seed).iter().map(|p| (p.x, p.y)).collect()
 }
 
 #[test]
