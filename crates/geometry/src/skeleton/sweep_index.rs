@@ -184,10 +184,13 @@ impl SweepIndex {
             lo = DVec2::ZERO;
             hi = DVec2::ONE;
         }
-        let size = (hi - lo).max_element().max(f64::MIN_POSITIVE);
-        let margin = 0.05 * size + 100.0 * wf.tol.point;
-        lo -= DVec2::splat(margin);
-        hi += DVec2::splat(margin);
+        // The margin on each axis follows the outline's own extent there: one
+        // taken from the longer side alone made a long thin outline's grid
+        // mostly margin (a 240,000 in by 500 in comb got cells 800 in
+        // square, each holding some 30 of its wall lines).
+        let margin = 0.05 * (hi - lo) + DVec2::splat(100.0 * wf.tol.point);
+        lo -= margin;
+        hi += margin;
         let extent = hi - lo;
         let n = wf.lines.len().max(1) as f64;
         let cell = (extent.x * extent.y / (CELLS_PER_LINE * n)).sqrt().max(extent.max_element() / 4096.0);
