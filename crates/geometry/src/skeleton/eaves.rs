@@ -55,11 +55,40 @@ fn fascia_corner(a: &WallLine, b: &WallLine, fallback: DVec2) -> DVec2 {
     DVec2::new(ca * nb.y - cb * na.y, na.x * cb - nb.x * ca) / det
 }
 
+/// Up to two eave points at one face node, in the face's order.
+#[derive(Debug, Clone, Copy)]
+struct NodePoints {
+    /// The points; only the first `len` count.
+    pts: [DVec2; 2],
+    /// How many there are.
+    len: usize,
+}
+
+impl NodePoints {
+    /// No point.
+    const NONE: Self = Self { pts: [DVec2::ZERO; 2], len: 0 };
+
+    /// One point.
+    fn one(p: DVec2) -> Self {
+        Self { pts: [p, DVec2::ZERO], len: 1 }
+    }
+
+    /// Two points, in order.
+    fn two(a: DVec2, b: DVec2) -> Self {
+        Self { pts: [a, b], len: 2 }
+    }
+
+    /// The points, in order.
+    fn as_slice(&self) -> &[DVec2] {
+        self.pts.get(..self.len).unwrap_or(&[])
+    }
+}
+
 /// Eave points at an outline corner `c` between the fascia of `own` and a
 /// face edge running from `c` towards `inner` against the pitched wall
 /// `other`; `own_first` when the fascia edge comes before the hip edge in
 /// the face's order. Returned in the face's order.
-fn corner_points(own: &WallLine, other: &WallLine, c: DVec2, inner: DVec2, own_first: bool) -> Vec<DVec2> {
+fn corner_points(own: &WallLine, other: &WallLine, c: DVec2, inner: DVec2, own_first: bool) -> NodePoints {
     let d = c - inner;
     let (na, ca) = fascia(own);
     let (nb, cb) = fascia(other);
@@ -68,10 +97,10 @@ fn corner_points(own: &WallLine, other: &WallLine, c: DVec2, inner: DVec2, own_f
     match (hit_a, hit_b) {
         (Some(a), Some(b)) if b.0 < a.0 => {
             let f = fascia_corner(own, other, c);
-            if own_first { vec![f, b.1] } else { vec![b.1, f] }
+            if own_first { NodePoints::two(f, b.1) } else { NodePoints::two(b.1, f) }
         }
-        (Some(a), _) => vec![a.1],
-        (None, Some(_)) | (None, None) => vec![fascia_corner(own, other, c)],
+        (Some(a), _) => NodePoints::one(a.1),
+        (None, Some(_)) | (None, None) => NodePoints::one(fascia_corner(own, other, c)),
     }
 }
 
@@ -88,6 +117,9 @@ pub(crate) fn eave_outline(
         return Vec::new();
     };
     let k = face.len();
+    if k == 0 {
+        return Vec::new();
+    }
     let pos = |i: usize| face.get(i % k).and_then(|&n| nodes.get(n)).map_or(DVec2::ZERO, |n| n.pos);
     let side = |i: usize| sides.get(i % k).copied().unwrap_or(EdgeSide::Other);
     let support = |s: EdgeSide| -> Option<&WallLine> {
@@ -97,23 +129,22 @@ pub(crate) fn eave_outline(
             _ => None,
         }
     };
-    let mut per_vertex: Vec<Vec<DVec2>> = Vec::with_capacity(k);
-    for i in 0..k {
+    let at = |i: usize| {
         let (before, after) = (side(i + k - 1), side(i));
         let here = pos(i);
-        let pts = match (support(before), support(after)) {
-            (Some(x), Some(y)) if x.wall == y.wall => Vec::new(),
-            (Some(x), Some(y)) => vec![fascia_corner(x, y, here)],
+        match (support(before), support(after)) {
+            (Some(x), Some(y)) if x.wall == y.wall => NodePoints::NONE,
+            (Some(x), Some(y)) => NodePoints::one(fascia_corner(x, y, here)),
             (Some(x), None) => {
                 let towards = pos(i + 1);
                 match (before, after) {
                     (EdgeSide::OwnWall, EdgeSide::Plane(b)) => match lines.get(b) {
                         Some(other) => corner_points(x, other, here, towards, true),
-                        None => vec![here],
+                        None => NodePoints::one(here),
                     },
                     _ => {
                         let (n, c) = fascia(x);
-                        vec![meet(here, here - towards, n, c).map_or(here - n * x.overhang, |h| h.1)]
+                        NodePoints::one(meet(here, here - towards, n, c).map_or(here - n * x.overhang, |h| h.1))
                     }
                 }
             }
@@ -122,27 +153,28 @@ pub(crate) fn eave_outline(
                 match (before, after) {
                     (EdgeSide::Plane(b), EdgeSide::OwnWall) => match lines.get(b) {
                         Some(other) => corner_points(y, other, here, from, false),
-                        None => vec![here],
+                        None => NodePoints::one(here),
                     },
                     _ => {
                         let (n, c) = fascia(y);
-                        vec![meet(here, here - from, n, c).map_or(here - n * y.overhang, |h| h.1)]
+                        NodePoints::one(meet(here, here - from, n, c).map_or(here - n * y.overhang, |h| h.1))
                     }
                 }
             }
-            (None, None) => vec![here],
-        };
-        per_vertex.push(pts);
-    }
+            (None, None) => NodePoints::one(here),
+        }
+    };
     // Start where the fascia edge starts: the last point at the wall's first corner.
-    let mut out: Vec<DVec2> = Vec::new();
-    let first = per_vertex.first().cloned().unwrap_or_default();
+    let lift = |p: DVec2| p.extend(own.plane_height(p));
+    let first = at(0);
+    let first = first.as_slice();
+    let mut out: Vec<DVec3> = Vec::with_capacity(k + 2);
     if let Some(&p) = first.last() {
-        out.push(p);
+        out.push(lift(p));
     }
-    for pts in per_vertex.iter().skip(1) {
-        out.extend(pts);
+    for i in 1..k {
+        out.extend(at(i).as_slice().iter().map(|&p| lift(p)));
     }
-    out.extend(first.iter().take(first.len().saturating_sub(1)));
-    out.into_iter().map(|p| p.extend(own.plane_height(p))).collect()
+    out.extend(first.iter().take(first.len().saturating_sub(1)).map(|&p| lift(p)));
+    out
 }

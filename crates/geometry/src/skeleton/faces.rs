@@ -1,13 +1,26 @@
 //! Chaining the traced boundary arcs of each wall's face into one polygon.
 
-use super::quick_hash::QuickMap;
-
 use glam::DVec2;
 
 use super::wavefront::NodeId;
 
 /// A face's boundary: the outer walk and any inner loops.
 pub(crate) type FaceBoundary = (Vec<NodeId>, Vec<Vec<NodeId>>);
+
+/// Space kept from one face to the next by [`chain_face`].
+#[derive(Debug, Default)]
+pub(crate) struct ChainScratch {
+    /// For each node, its place in the face's list of nodes left by an
+    /// arc, or `NO_SLOT`; set back to `NO_SLOT` once a face is done.
+    slot: Vec<u32>,
+    /// The arcs as unordered pairs, with `+1` for low to high and `-1` back.
+    pairs: Vec<(NodeId, NodeId, i64)>,
+    /// The arcs left once opposite ones cancel, with how many times each is walked.
+    arcs: Vec<((NodeId, NodeId), i64)>,
+}
+
+/// A node left by no arc of the face being chained.
+const NO_SLOT: u32 = u32::MAX;
 
 /// Chains `arcs` (face on the left) into one closed walk starting with the
 /// arc `first`, plus closed loops for what is left: a low-pitch plane can
@@ -16,22 +29,50 @@ pub(crate) type FaceBoundary = (Vec<NodeId>, Vec<Vec<NodeId>>);
 /// square line between two pieces of the same wall line). Returns the nodes
 /// of each walk in order (without repeating the first), or `None` if the
 /// arcs do not close into boundaries.
-pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> Option<FaceBoundary> {
-    let mut count: QuickMap<(NodeId, NodeId), i64> =
-        QuickMap::with_capacity_and_hasher(arcs.len() + 1, Default::default());
-    for &arc in std::iter::once(&first).chain(arcs) {
-        if arc.0 == arc.1 {
-            continue;
-        }
-        let back = (arc.1, arc.0);
-        match count.get_mut(&back) {
-            Some(c) if *c > 0 => *c -= 1,
-            _ => *count.entry(arc).or_insert(0) += 1,
+pub(crate) fn chain_face(
+    first: (NodeId, NodeId),
+    arcs: &[(NodeId, NodeId)],
+    scratch: &mut ChainScratch,
+) -> Option<FaceBoundary> {
+    // Opposite arcs cancel one for one, so what is left of each pair of
+    // nodes is the difference of the two ways' counts, whatever the order
+    // the arcs came in: summed over the arcs sorted by their pair of nodes.
+    let pairs = &mut scratch.pairs;
+    pairs.clear();
+    for &(a, b) in std::iter::once(&first).chain(arcs) {
+        match a.cmp(&b) {
+            std::cmp::Ordering::Less => pairs.push((a, b, 1)),
+            std::cmp::Ordering::Greater => pairs.push((b, a, -1)),
+            std::cmp::Ordering::Equal => {}
         }
     }
-    let mut keys: Vec<_> = count.iter().filter(|(_, c)| **c > 0).map(|(k, c)| (*k, *c)).collect();
-    keys.sort_unstable();
-    let mut out = Outgoing::from_sorted(&keys);
+    pairs.sort_unstable_by_key(|&(a, b, _)| (a, b));
+    let left = &mut scratch.arcs;
+    left.clear();
+    let mut i = 0;
+    while let Some(&(a, b, _)) = pairs.get(i) {
+        let mut net = 0;
+        while let Some(&(c, d, s)) = pairs.get(i)
+            && (c, d) == (a, b)
+        {
+            net += s;
+            i += 1;
+        }
+        match net.cmp(&0) {
+            std::cmp::Ordering::Greater => left.push(((a, b), net)),
+            std::cmp::Ordering::Less => left.push(((b, a), -net)),
+            std::cmp::Ordering::Equal => {}
+        }
+    }
+    left.sort_unstable_by_key(|&(arc, _)| arc);
+    let mut out = Outgoing::from_sorted(left, &mut scratch.slot);
+    let walked = chain_walks(first, &mut out);
+    out.release();
+    walked
+}
+
+/// Hierholzer's walks over `out`, the wall's arc `first` first.
+fn chain_walks(first: (NodeId, NodeId), out: &mut Outgoing<'_>) -> Option<FaceBoundary> {
     let total = out.targets.len();
     // The wall arc must survive; take it out first so the walk begins with it.
     out.take(first)?;
@@ -57,7 +98,8 @@ pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> 
     let mut holes = Vec::new();
     while used < total {
         let start = out.lowest_left()?;
-        let mut stack = vec![start];
+        stack.clear();
+        stack.push(start);
         let mut lp: Vec<NodeId> = Vec::new();
         while let Some(&top) = stack.last() {
             match out.pop(top) {
@@ -82,55 +124,82 @@ pub(crate) fn chain_face(first: (NodeId, NodeId), arcs: &[(NodeId, NodeId)]) -> 
 /// The arcs still to walk, by the node they leave: one flat list in arc
 /// order and each node's stretch of it, so a face of thousands of nodes
 /// needs no list of its own per node.
-struct Outgoing {
+struct Outgoing<'a> {
     /// Arc ends, grouped by the node the arc leaves, in arc order.
     targets: Vec<NodeId>,
-    /// For each node left by an arc, its stretch of `targets` not yet walked.
-    stretch: QuickMap<NodeId, (usize, usize)>,
+    /// For each node of `order`, its stretch of `targets` not yet walked.
+    stretch: Vec<(usize, usize)>,
     /// The nodes left by an arc, lowest first.
     order: Vec<NodeId>,
+    /// For each node, its place in `order` or `NO_SLOT`.
+    slot: &'a mut Vec<u32>,
     /// Nodes of `order` before this one have no arc left.
     cursor: usize,
 }
 
-impl Outgoing {
-    /// From arcs sorted by their nodes, each with how many times it is walked.
-    fn from_sorted(arcs: &[((NodeId, NodeId), i64)]) -> Self {
-        let mut targets = Vec::new();
-        let mut stretch: QuickMap<NodeId, (usize, usize)> =
-            QuickMap::with_capacity_and_hasher(arcs.len(), Default::default());
+impl<'a> Outgoing<'a> {
+    /// From arcs sorted by their nodes, each with how many times it is
+    /// walked; `slot` holds `NO_SLOT` for every node.
+    fn from_sorted(arcs: &[((NodeId, NodeId), i64)], slot: &'a mut Vec<u32>) -> Self {
+        let mut targets = Vec::with_capacity(arcs.len());
+        let mut stretch: Vec<(usize, usize)> = Vec::new();
         let mut order = Vec::new();
         for &((a, b), c) in arcs {
             if order.last() != Some(&a) {
+                if slot.len() <= a {
+                    slot.resize(a + 1, NO_SLOT);
+                }
+                if let Some(s) = slot.get_mut(a) {
+                    *s = order.len() as u32;
+                }
                 order.push(a);
-                stretch.insert(a, (targets.len(), targets.len()));
+                stretch.push((targets.len(), targets.len()));
             }
             for _ in 0..c {
                 targets.push(b);
             }
-            if let Some(s) = stretch.get_mut(&a) {
+            if let Some(s) = stretch.last_mut() {
                 s.1 = targets.len();
             }
         }
-        Self { targets, stretch, order, cursor: 0 }
+        Self { targets, stretch, order, slot, cursor: 0 }
+    }
+
+    /// Sets `slot` back to `NO_SLOT` for this face's nodes.
+    fn release(self) {
+        for &n in &self.order {
+            if let Some(s) = self.slot.get_mut(n) {
+                *s = NO_SLOT;
+            }
+        }
+    }
+
+    /// The stretch of `from`, if it leaves any arc.
+    fn stretch_of(&mut self, from: NodeId) -> Option<&mut (usize, usize)> {
+        let k = *self.slot.get(from)?;
+        if k == NO_SLOT {
+            return None;
+        }
+        self.stretch.get_mut(k as usize)
     }
 
     /// Takes the last arc left leaving `from`.
     fn pop(&mut self, from: NodeId) -> Option<NodeId> {
-        let s = self.stretch.get_mut(&from)?;
+        let s = self.stretch_of(from)?;
         if s.1 <= s.0 {
             return None;
         }
         s.1 -= 1;
-        self.targets.get(s.1).copied()
+        let end = s.1;
+        self.targets.get(end).copied()
     }
 
     /// Takes out the arc `arc`, the last arc of its node moving into its place.
     fn take(&mut self, arc: (NodeId, NodeId)) -> Option<()> {
-        let &(start, end) = self.stretch.get(&arc.0)?;
+        let &mut (start, end) = self.stretch_of(arc.0)?;
         let pos = (start..end).find(|&i| self.targets.get(i) == Some(&arc.1))?;
         self.targets.swap(pos, end - 1);
-        if let Some(s) = self.stretch.get_mut(&arc.0) {
+        if let Some(s) = self.stretch_of(arc.0) {
             s.1 = end - 1;
         }
         Some(())
@@ -138,9 +207,9 @@ impl Outgoing {
 
     /// The lowest node with an arc left.
     fn lowest_left(&mut self) -> Option<NodeId> {
-        while let Some(&n) = self.order.get(self.cursor) {
-            if self.stretch.get(&n).is_some_and(|s| s.1 > s.0) {
-                return Some(n);
+        while let Some(&(start, end)) = self.stretch.get(self.cursor) {
+            if end > start {
+                return self.order.get(self.cursor).copied();
             }
             self.cursor += 1;
         }
@@ -311,23 +380,23 @@ mod tests {
     #[test]
     fn square_face_chains_in_order() {
         let arcs = [(2, 3), (3, 0), (1, 2)];
-        assert_eq!(chain_face((0, 1), &arcs), Some((vec![0, 1, 2, 3], vec![])));
+        assert_eq!(chain_face((0, 1), &arcs, &mut ChainScratch::default()), Some((vec![0, 1, 2, 3], vec![])));
     }
 
     #[test]
     fn opposite_arcs_cancel() {
         let arcs = [(1, 2), (2, 5), (5, 2), (2, 0)];
-        assert_eq!(chain_face((0, 1), &arcs), Some((vec![0, 1, 2], vec![])));
+        assert_eq!(chain_face((0, 1), &arcs, &mut ChainScratch::default()), Some((vec![0, 1, 2], vec![])));
     }
 
     #[test]
     fn a_loop_left_over_is_a_hole() {
         let arcs = [(1, 2), (2, 0), (5, 7), (7, 6), (6, 5)];
-        assert_eq!(chain_face((0, 1), &arcs), Some((vec![0, 1, 2], vec![vec![5, 7, 6]])));
+        assert_eq!(chain_face((0, 1), &arcs, &mut ChainScratch::default()), Some((vec![0, 1, 2], vec![vec![5, 7, 6]])));
     }
 
     #[test]
     fn open_chain_is_refused() {
-        assert_eq!(chain_face((0, 1), &[(1, 2)]), None);
+        assert_eq!(chain_face((0, 1), &[(1, 2)], &mut ChainScratch::default()), None);
     }
 }

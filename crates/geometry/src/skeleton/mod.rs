@@ -103,6 +103,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
         wall_end_node: vec![0; n],
         batch_nodes: Vec::new(),
         batch_cells: QuickMap::default(),
+        batch_links: Vec::new(),
         tol,
         changed_edges: Vec::new(),
         split_scratch: Vec::new(),
@@ -191,13 +192,14 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
 
     let mut faces = vec![Vec::new(); n];
     let mut holes = vec![Vec::new(); n];
+    let mut chain_scratch = faces::ChainScratch::default();
     for (w, (face, hole)) in faces.iter_mut().zip(holes.iter_mut()).enumerate() {
         let (Some(&s), Some(&e), Some(arcs)) =
             (wf.wall_start_node.get(w), wf.wall_end_node.get(w), wf.arcs.get(w))
         else {
             continue;
         };
-        match faces::chain_face((s, e), arcs) {
+        match faces::chain_face((s, e), arcs, &mut chain_scratch) {
             Some((chain, inner)) => {
                 *face = chain;
                 *hole = inner;
@@ -286,27 +288,19 @@ fn pop_valid(
 /// Groups a batch of simultaneous events into sites by plan point.
 fn cluster(wf: &Wavefront, batch: &[(Event, Option<EdgeId>)]) -> Vec<Site> {
     let near = 2.0 * wf.tol.point;
-    let mut raw: Vec<Site> = Vec::new();
-    for (ev, hit) in batch {
+    // Each event's point, height and place in the batch.
+    let mut raw: Vec<(DVec2, f64, usize)> = Vec::with_capacity(batch.len());
+    for (k, (ev, _)) in batch.iter().enumerate() {
         let t = ev.time;
-        match ev.kind {
-            EventKind::Edge { start, end, .. } => {
-                let pos = (wf.pos(start, t) + wf.pos(end, t)) * 0.5;
-                raw.push(Site { pos, time: t, vertices: vec![start, end], through_lines: Vec::new() });
-            }
-            EventKind::Split { vertex, .. } => {
-                let lines = hit.map(|e| vec![wf.edge_line(e)]).unwrap_or_default();
-                raw.push(Site {
-                    pos: wf.pos(vertex, t),
-                    time: t,
-                    vertices: vec![vertex],
-                    through_lines: lines,
-                });
-            }
-        }
+        let pos = match ev.kind {
+            EventKind::Edge { start, end, .. } => (wf.pos(start, t) + wf.pos(end, t)) * 0.5,
+            EventKind::Split { vertex, .. } => wf.pos(vertex, t),
+        };
+        raw.push((pos, t, k));
     }
-    // Sort along x so only neighbours in x need comparing.
-    raw.sort_by(|a, b| a.pos.x.total_cmp(&b.pos.x));
+    // Sort along x so only neighbours in x need comparing (a stable sort:
+    // events at one x stay in batch order).
+    raw.sort_by(|a, b| a.0.x.total_cmp(&b.0.x));
     let mut parent: Vec<usize> = (0..raw.len()).collect();
     fn root(parent: &mut [usize], mut i: usize) -> usize {
         while let Some(&p) = parent.get(i) {
@@ -326,10 +320,10 @@ fn cluster(wf: &Wavefront, batch: &[(Event, Option<EdgeId>)]) -> Vec<Site> {
             let (Some(a), Some(b)) = (raw.get(i), raw.get(j)) else {
                 break;
             };
-            if b.pos.x - a.pos.x > near {
+            if b.0.x - a.0.x > near {
                 break;
             }
-            if (a.pos - b.pos).length() <= near {
+            if (a.0 - b.0).length() <= near {
                 let (ri, rj) = (root(&mut parent, i), root(&mut parent, j));
                 if let Some(x) = parent.get_mut(ri) {
                     *x = rj;
@@ -337,27 +331,32 @@ fn cluster(wf: &Wavefront, batch: &[(Event, Option<EdgeId>)]) -> Vec<Site> {
             }
         }
     }
-    let mut groups: QuickMap<usize, Vec<usize>> = QuickMap::default();
-    for i in 0..raw.len() {
-        let r = root(&mut parent, i);
-        groups.entry(r).or_default().push(i);
-    }
-    let mut keys: Vec<usize> = groups.keys().copied().collect();
-    keys.sort_unstable();
+    // The groups by their root, lowest first, each with its members in order.
+    let mut grouped: Vec<(usize, usize)> = (0..raw.len()).map(|i| (root(&mut parent, i), i)).collect();
+    grouped.sort_unstable();
     let mut sites = Vec::new();
-    for k in keys {
-        let Some(members) = groups.get(&k) else {
-            continue;
-        };
+    let mut g = 0;
+    while let Some(&(r, _)) = grouped.get(g) {
         let mut site = Site::default();
         let mut count = 0.0;
-        for &i in members {
-            let Some(s) = raw.get(i) else { continue };
-            site.pos += s.pos;
-            site.time += s.time;
+        while let Some(&(q, i)) = grouped.get(g)
+            && q == r
+        {
+            g += 1;
+            let Some(&(pos, time, k)) = raw.get(i) else { continue };
+            site.pos += pos;
+            site.time += time;
             count += 1.0;
-            site.vertices.extend(&s.vertices);
-            site.through_lines.extend(&s.through_lines);
+            match batch.get(k) {
+                Some((Event { kind: EventKind::Edge { start, end, .. }, .. }, _)) => {
+                    site.vertices.extend([*start, *end]);
+                }
+                Some((Event { kind: EventKind::Split { vertex, .. }, .. }, hit)) => {
+                    site.vertices.push(*vertex);
+                    site.through_lines.extend(hit.map(|e| wf.edge_line(e)));
+                }
+                None => {}
+            }
         }
         if count > 0.0 {
             site.pos /= count;

@@ -114,8 +114,12 @@ pub(crate) struct Wavefront {
     /// stopping at one point share one node.
     pub batch_nodes: Vec<NodeId>,
     /// The batch's nodes by plan cell, so finding one near a point does
-    /// not search them all.
-    pub batch_cells: QuickMap<(i64, i64), Vec<NodeId>>,
+    /// not search them all: the place in `batch_nodes` of the cell's
+    /// latest node, the others reached through `batch_links`.
+    pub batch_cells: QuickMap<(i64, i64), usize>,
+    /// For each place in `batch_nodes`, the place of the node before it in
+    /// the same cell, or `usize::MAX`.
+    pub batch_links: Vec<usize>,
     /// Tolerances.
     pub tol: Tolerance,
     /// Edge pieces added or given a new end since the split index last
@@ -164,6 +168,7 @@ impl Wavefront {
         let near = 4.0 * self.tol.point;
         if self.batch_nodes.is_empty() && !self.batch_cells.is_empty() {
             self.batch_cells.clear();
+            self.batch_links.clear();
         }
         // A node within `near` lies in one of the nine cells round `pos`
         // (cells of side `2 * near`, so rounding cannot push it further);
@@ -174,19 +179,17 @@ impl Wavefront {
         let mut found: Option<NodeId> = None;
         for dx in -1i64..=1 {
             for dy in -1i64..=1 {
-                let Some(list) = self.batch_cells.get(&(cx.wrapping_add(dx), cy.wrapping_add(dy))) else {
-                    continue;
-                };
-                for &n in list {
-                    if found.is_some_and(|f| f <= n) {
-                        break;
-                    }
-                    let hit = self.nodes.get(n).is_some_and(|x| {
-                        (x.pos - pos).length() <= near && (x.time - time).abs() <= self.tol.time
-                    });
+                let mut k = self.batch_cells.get(&(cx.wrapping_add(dx), cy.wrapping_add(dy))).copied();
+                while let Some(at) = k {
+                    let Some(&n) = self.batch_nodes.get(at) else { break };
+                    let hit = found.is_none_or(|f| n < f)
+                        && self.nodes.get(n).is_some_and(|x| {
+                            (x.pos - pos).length() <= near && (x.time - time).abs() <= self.tol.time
+                        });
                     if hit {
                         found = Some(n);
                     }
+                    k = self.batch_links.get(at).copied().filter(|&b| b != usize::MAX);
                 }
             }
         }
@@ -200,8 +203,10 @@ impl Wavefront {
         self.nodes.push(Node { pos, time: time + 0.0 });
         let id = self.nodes.len() - 1;
         if time > 0.0 {
+            let at = self.batch_nodes.len();
             self.batch_nodes.push(id);
-            self.batch_cells.entry(key(pos)).or_default().push(id);
+            let before = self.batch_cells.insert(key(pos), at);
+            self.batch_links.push(before.unwrap_or(usize::MAX));
         }
         id
     }
