@@ -78,8 +78,9 @@ fn chain_walks(first: (NodeId, NodeId), out: &mut Outgoing<'_>) -> Option<FaceBo
     out.take(first)?;
     // Hierholzer's walk, so a face touching itself at a point still comes
     // out as one boundary.
-    let mut stack = vec![first.0, first.1];
-    let mut walk: Vec<NodeId> = Vec::new();
+    let mut stack: Vec<NodeId> = Vec::with_capacity(total + 2);
+    stack.extend([first.0, first.1]);
+    let mut walk: Vec<NodeId> = Vec::with_capacity(total + 1);
     while let Some(&top) = stack.last() {
         match out.pop(top) {
             Some(next) => stack.push(next),
@@ -142,8 +143,8 @@ impl<'a> Outgoing<'a> {
     /// walked; `slot` holds `NO_SLOT` for every node.
     fn from_sorted(arcs: &[((NodeId, NodeId), i64)], slot: &'a mut Vec<u32>) -> Self {
         let mut targets = Vec::with_capacity(arcs.len());
-        let mut stretch: Vec<(usize, usize)> = Vec::new();
-        let mut order = Vec::new();
+        let mut stretch: Vec<(usize, usize)> = Vec::with_capacity(arcs.len());
+        let mut order = Vec::with_capacity(arcs.len());
         for &((a, b), c) in arcs {
             if order.last() != Some(&a) {
                 if slot.len() <= a {

@@ -148,13 +148,16 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
 
     let limit = 200 * (wf.vertices.len() + 10);
     let mut steps = 0usize;
+    // One list for every batch: most batches are a few events.
+    let mut batch = Vec::new();
     while let Some(first) = pop_valid(&mut wf, &mut heap, &mut index, f64::INFINITY) {
         steps += 1;
         if steps > limit {
             return Err(SkeletonError::TooManyEvents);
         }
         let t0 = first.0.time;
-        let mut batch = vec![first];
+        batch.clear();
+        batch.push(first);
         let batch_end = t0 + wf.tol.time;
         while let Some(next) = pop_valid(&mut wf, &mut heap, &mut index, batch_end) {
             batch.push(next);
