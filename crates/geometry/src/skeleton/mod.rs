@@ -150,6 +150,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
     let mut steps = 0usize;
     // One list for every batch: most batches are a few events.
     let mut batch = Vec::new();
+    let mut resolve_scratch = resolve::ResolveScratch::default();
     while let Some(first) = pop_valid(&mut wf, &mut heap, &mut index, f64::INFINITY) {
         steps += 1;
         if steps > limit {
@@ -167,7 +168,7 @@ pub(crate) fn solve(lines: Vec<WallLine>, rings: &[Ring], tol: Tolerance) -> Res
 
         let mut created = Vec::new();
         for site in &sites {
-            created.extend(resolve::resolve_site(&mut wf, site));
+            resolve::resolve_site(&mut wf, site, &mut resolve_scratch, &mut created);
         }
         let t_batch = sites.iter().map(|s| s.time).fold(t0, f64::max);
         let touched = cleanup::clean_up(&mut wf, created, t_batch);

@@ -34,17 +34,84 @@ pub(crate) struct Site {
     pub through_lines: Vec<usize>,
 }
 
-/// Resolves one event site; returns the vertices created.
-pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
+/// Lists and sets [`resolve_site`] works in, kept from one site to the
+/// next: most sites are a few vertices, and making a dozen small lists
+/// for each cost more than resolving it.
+#[derive(Debug, Default)]
+pub(crate) struct ResolveScratch {
+    /// The vertices standing at the point.
+    members: QuickSet<VertexId>,
+    /// Vertices still to look at.
+    stack: Vec<VertexId>,
+    /// Edges passing through the point.
+    through: Vec<EdgeId>,
+    /// Lines still to look for a piece through the point on.
+    pending_lines: Vec<usize>,
+    /// The rays at the point.
+    rays: Vec<Ray>,
+    /// Members already in a run.
+    seen: QuickSet<VertexId>,
+    /// The members in order.
+    sorted: Vec<VertexId>,
+    /// Edges ending between two members.
+    dead_edges: Vec<EdgeId>,
+    /// The lines met at the point.
+    met: Vec<usize>,
+    /// The two halves of each through edge that is split.
+    halves: Vec<Option<(EdgeId, EdgeId)>>,
+    /// The rays paired.
+    pairs: Vec<(usize, usize)>,
+    /// Which rays are paired.
+    used: Vec<bool>,
+}
+
+/// Empties `set`, dropping its table if a large site left it large (a
+/// cleared table still costs its whole size to clear again).
+fn reset(set: &mut QuickSet<VertexId>) {
+    if set.capacity() > 256 {
+        *set = QuickSet::default();
+    } else {
+        set.clear();
+    }
+}
+
+/// Resolves one event site; appends the vertices created to `created`.
+pub(crate) fn resolve_site(
+    wf: &mut Wavefront,
+    site: &Site,
+    scratch: &mut ResolveScratch,
+    created: &mut Vec<VertexId>,
+) {
     let (p, t) = (site.pos, site.time);
     let near = 4.0 * wf.tol.point;
     let at_p = |wf: &Wavefront, v: VertexId| wf.alive(v) && (wf.pos(v, t) - p).length() <= near;
+    let ResolveScratch {
+        members,
+        stack,
+        through,
+        pending_lines,
+        rays,
+        seen,
+        sorted,
+        dead_edges,
+        met,
+        halves,
+        pairs,
+        used,
+    } = scratch;
+    reset(members);
+    reset(seen);
+    for list in [&mut *through, &mut *dead_edges, &mut *met] {
+        list.clear();
+    }
+    rays.clear();
+    sorted.clear();
 
     // Gather the vertices standing at the point, walking along their cycles.
-    let mut members: QuickSet<VertexId> = QuickSet::default();
-    let mut stack: Vec<VertexId> = site.vertices.iter().copied().filter(|&v| at_p(wf, v)).collect();
-    let mut through: Vec<EdgeId> = Vec::new();
-    let mut pending_lines = site.through_lines.clone();
+    stack.clear();
+    stack.extend(site.vertices.iter().copied().filter(|&v| at_p(wf, v)));
+    pending_lines.clear();
+    pending_lines.extend_from_slice(&site.through_lines);
     loop {
         while let Some(v) = stack.pop() {
             if !members.insert(v) {
@@ -59,7 +126,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         // Edges through the point: an end standing at the point makes it an
         // ordinary member instead.
         let mut grew = false;
-        for line in std::mem::take(&mut pending_lines) {
+        for line in pending_lines.drain(..) {
             let Some(e) = piece_through(wf, line, p, t, near) else {
                 continue;
             };
@@ -88,16 +155,13 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         wf.edges.get(e).is_some_and(|x| !members.contains(&x.start) && !members.contains(&x.end))
     });
     if members.is_empty() && through.len() < 2 {
-        return Vec::new();
+        return;
     }
 
     // Runs of consecutive members; each leaves one arriving and one leaving edge.
-    let mut rays: Vec<Ray> = Vec::new();
-    let mut seen: QuickSet<VertexId> = QuickSet::default();
-    let mut sorted: Vec<VertexId> = members.iter().copied().collect();
+    sorted.extend(members.iter().copied());
     sorted.sort_unstable();
-    let mut dead_edges: Vec<EdgeId> = Vec::new();
-    for &v in &sorted {
+    for &v in sorted.iter() {
         if seen.contains(&v) {
             continue;
         }
@@ -159,8 +223,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
 
     // Retire the members at one node, placed where the lines met there
     // cross best (least squares), which is closer than the events' mean.
-    let mut met: Vec<usize> = Vec::new();
-    for &v in &sorted {
+    for &v in sorted.iter() {
         if let Some(x) = wf.vertices.get(v) {
             met.push(x.in_line);
             met.push(x.out_line);
@@ -174,24 +237,25 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
     let residual =
         met.iter().filter_map(|&i| wf.lines.get(i)).map(|l| l.distance_at(p, t).abs()).fold(0.0, f64::max);
     let (p, t) = if residual > 1e-3 * wf.tol.point {
-        refine_in_time(wf, &met, p, t, near).unwrap_or((refine(wf, &met, p, t, near), t))
+        refine_in_time(wf, met, p, t, near).unwrap_or((refine(wf, met, p, t, near), t))
     } else {
         (p, t)
     };
-    let p = wf.onto_gables(p, &met);
+    let p = wf.onto_gables(p, met);
     let node = wf.add_node(p, t);
-    for &v in &sorted {
+    for &v in sorted.iter() {
         wf.retire(v, node);
     }
-    for e in dead_edges {
+    for &e in dead_edges.iter() {
         wf.kill_edge(e);
     }
 
-    let pairs = pair_rays(&mut rays, 1e-9);
+    pair_rays(rays, 1e-9, pairs, used);
 
     // Split the through edges whose halves go separate ways.
-    let mut halves: Vec<Option<(EdgeId, EdgeId)>> = vec![None; through.len()];
-    for &(arr, lea) in &pairs {
+    halves.clear();
+    halves.resize(through.len(), None);
+    for &(arr, lea) in pairs.iter() {
         let (Some(ra), Some(rl)) = (rays.get(arr), rays.get(lea)) else {
             continue;
         };
@@ -216,8 +280,7 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         }
     }
 
-    let mut created = Vec::new();
-    for &(arr, lea) in &pairs {
+    for &(arr, lea) in pairs.iter() {
         let (Some(ra), Some(rl)) = (rays.get(arr).copied(), rays.get(lea).copied()) else {
             continue;
         };
@@ -242,7 +305,6 @@ pub(crate) fn resolve_site(wf: &mut Wavefront, site: &Site) -> Vec<VertexId> {
         wf.set_edge_start(b, w);
         created.push(w);
     }
-    created
 }
 
 /// The plan point and height nearest, in least squares, to all `lines`
@@ -331,12 +393,14 @@ fn angle_of(d: DVec2) -> f64 {
 /// (the region between them is what is left to roof). Rays at the same
 /// angle put the leaving one first, so two opposite lines that meet give a
 /// zero-width pair that the clean-up removes. Returns `(arriving, leaving)`
-/// index pairs into `rays` (which is sorted in place).
-fn pair_rays(rays: &mut [Ray], tie: f64) -> Vec<(usize, usize)> {
+/// index pairs into `rays` (which is sorted in place) in `pairs`; `used`
+/// is space to work in.
+fn pair_rays(rays: &mut [Ray], tie: f64, pairs: &mut Vec<(usize, usize)>, used: &mut Vec<bool>) {
+    pairs.clear();
     rays.sort_by(|a, b| a.angle.total_cmp(&b.angle));
     let n = rays.len();
     if n < 2 {
-        return Vec::new();
+        return;
     }
     for _ in 0..n {
         let mut swapped = false;
@@ -355,8 +419,8 @@ fn pair_rays(rays: &mut [Ray], tie: f64) -> Vec<(usize, usize)> {
             break;
         }
     }
-    let mut used = vec![false; n];
-    let mut pairs = Vec::new();
+    used.clear();
+    used.resize(n, false);
     for i in 0..n {
         if !rays.get(i).is_some_and(|r| r.leaving) {
             continue;
@@ -372,5 +436,4 @@ fn pair_rays(rays: &mut [Ray], tie: f64) -> Vec<(usize, usize)> {
             }
         }
     }
-    pairs
 }
