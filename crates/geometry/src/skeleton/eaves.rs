@@ -144,7 +144,9 @@ pub(crate) fn eave_outline(
                     },
                     _ => {
                         let (n, c) = fascia(x);
-                        NodePoints::one(meet(here, here - towards, n, c).map_or(here - n * x.overhang, |h| h.1))
+                        NodePoints::one(
+                            meet(here, here - towards, n, c).map_or(here - n * x.overhang, |h| h.1),
+                        )
                     }
                 }
             }

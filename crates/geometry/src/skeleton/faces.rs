@@ -393,7 +393,10 @@ mod tests {
     #[test]
     fn a_loop_left_over_is_a_hole() {
         let arcs = [(1, 2), (2, 0), (5, 7), (7, 6), (6, 5)];
-        assert_eq!(chain_face((0, 1), &arcs, &mut ChainScratch::default()), Some((vec![0, 1, 2], vec![vec![5, 7, 6]])));
+        assert_eq!(
+            chain_face((0, 1), &arcs, &mut ChainScratch::default()),
+            Some((vec![0, 1, 2], vec![vec![5, 7, 6]]))
+        );
     }
 
     #[test]
