@@ -10,6 +10,10 @@ use criterion::{BenchmarkId, Criterion, criterion_group, criterion_main};
 use glam::DVec2;
 use pitchframe_geometry::{Outline, Roof, Wall, WallRoof, comb_corners, star_corners};
 
+// The allocator the app runs with, so the figures are the app's.
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
+
 fn walls(points: &[DVec2]) -> Vec<Wall> {
     points
         .iter()

@@ -31,6 +31,10 @@ use pitchframe_geometry::{
     random_outline_or_refusal, random_outline_with, star_corners,
 };
 
+// The allocator the app runs with, so the figures are the app's.
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
+
 /// A small deterministic random source (a 64-bit LCG, as `star_corners` uses).
 struct Lcg(u64);
 
