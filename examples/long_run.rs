@@ -13,8 +13,13 @@
 //! Seed `s` is an orthogonal outline when `s` is even and a star when odd,
 //! with `OutlineFeatures::from_seed(s)`, so any seed it reports can be
 //! replayed alone with `-- 1 s`.
+//!
+//! With `LONG_RUN_FAILURES=FILE` set, every outline that fails an invariant
+//! or panics is also written to FILE, one line each (seed, a tab, the
+//! message), so the failing seeds of two builds can be compared.
 
 use std::collections::HashMap;
+use std::io::Write;
 use std::panic::{AssertUnwindSafe, catch_unwind};
 use std::sync::Mutex;
 use std::time::Instant;
@@ -238,6 +243,16 @@ fn main() {
         by_detail: ByDetail::default(),
         slowest: (0.0, first),
     };
+    let mut failure_list = match std::env::var_os("LONG_RUN_FAILURES") {
+        Some(path) => match std::fs::File::create(&path) {
+            Ok(file) => Some(std::io::BufWriter::new(file)),
+            Err(e) => {
+                eprintln!("LONG_RUN_FAILURES: cannot write {}: {e}", path.to_string_lossy());
+                std::process::exit(2);
+            }
+        },
+        None => None,
+    };
     let started = Instant::now();
     let mut last_note = Instant::now();
     let mut last_report = Instant::now();
@@ -265,6 +280,12 @@ fn main() {
         for name in feature_names(features) {
             figures.by_detail.add(name, failed);
         }
+        if let (Some(list), Outcome::Invariant(m) | Outcome::Panic(m)) = (failure_list.as_mut(), &outcome)
+            && let Err(e) = writeln!(list, "{seed}\t{m}")
+        {
+            eprintln!("LONG_RUN_FAILURES: {e}");
+            std::process::exit(2);
+        }
         match outcome {
             Outcome::Ok => figures.ok += 1,
             Outcome::Rejected(m) => figures.rejected.add(seed, &m),
@@ -287,6 +308,10 @@ fn main() {
             last_report = Instant::now();
             figures.report(started.elapsed().as_secs_f64());
         }
+    }
+    if let Some(Err(e)) = failure_list.as_mut().map(std::io::Write::flush) {
+        eprintln!("LONG_RUN_FAILURES: {e}");
+        std::process::exit(2);
     }
     figures.report(started.elapsed().as_secs_f64());
     if figures.invariant.total + figures.panicked.total > 0 {
