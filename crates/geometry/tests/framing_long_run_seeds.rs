@@ -1011,3 +1011,126 @@ fn a_joint_that_does_not_fit_is_flagged_on_the_member_cut_to_it() {
         assert_eq!(frame.warnings.contains(&warning), !fits, "{j:?}");
     }
 }
+
+/// Seed 2266: a long block with two wings north and one south, every wall
+/// 12/12.
+#[rustfmt::skip]
+const SEED_2266: [WallRow; 14] = [
+    (0.0, 548.9040445583639, 1.0, 19.0),
+    (222.97646977358517, 548.9040445583639, 1.0, 9.0),
+    (222.97646977358517, 224.72220377887186, 1.0, 15.0),
+    (445.95293954717033, 224.72220377887186, 1.0, 18.0),
+    (445.95293954717033, 320.53390546980563, 1.0, 7.0),
+    (668.9294093207554, 320.53390546980563, 1.0, 14.0),
+    (668.9294093207554, 224.72220377887186, 1.0, 11.0),
+    (891.9058790943407, 224.72220377887186, 1.0, 14.0),
+    (891.9058790943407, 654.0926108839287, 1.0, 21.0),
+    (1114.8823488679259, 654.0926108839287, 1.0, 13.0),
+    (1114.8823488679259, 224.72220377887186, 1.0, 3.0),
+    (1337.858818641511, 224.72220377887186, 1.0, 17.0),
+    (1337.858818641511, 0.0, 1.0, 5.0),
+    (0.0, 0.0, 1.0, 21.0),
+];
+
+#[test]
+fn valley_tops_just_short_of_a_ridge_passing_by_are_cut_to_its_side() {
+    let frame = framed(&SEED_2266, &[]);
+    // The main ridge runs along y = 112.361, half the block's 224.722 in
+    // depth north to south. Each wing north of it is 222.976 in wide, so
+    // its valleys run at 45 degrees (equal pitches) from its inside
+    // corners on y = 224.722 for half that, 111.488 in, to meet the
+    // wing's ridge at y = 224.722 - 111.488 = 113.234 (x = 557.441 and
+    // 1003.394): 0.873 in north of the main ridge's centre line, whose
+    // north face is at 112.361 + 0.75 = 113.111. Cut to the wing ridge's end only, each
+    // valley's top ran 0.19 in into the main ridge. Each is now cut back
+    // to that north face as well and bears on it. Derivation.
+    let north_face_y = 112.361_104 + FramingSettings::default().ridge.thickness_in / 2.0;
+    let nodes = [dvec2(557.441_2, 113.234), dvec2(1003.394_1, 113.234)];
+    let valleys: Vec<usize> = frame
+        .pieces
+        .iter()
+        .enumerate()
+        .filter(|(_, p)| {
+            p.kind == MemberKind::Valley && nodes.iter().any(|n| p.plan_line[1].distance(*n) < 0.01)
+        })
+        .map(|(i, _)| i)
+        .collect();
+    assert_eq!(valleys.len(), 4, "two valleys up to each wing's ridge");
+    for &v in &valleys {
+        let southmost = frame.pieces[v].solid.vertices().map(|p| p.y).fold(f64::INFINITY, f64::min);
+        assert!(southmost > north_face_y - 1e-4, "{} reaches y = {southmost}", frame.pieces[v].label);
+        let on_main: Vec<_> = frame
+            .joints
+            .iter()
+            .filter(|j| {
+                j.pieces[0] == v
+                    && frame.pieces[j.pieces[1]].kind == MemberKind::Ridge
+                    && frame.pieces[j.pieces[1]].plan_line.iter().all(|q| (q.y - 112.361).abs() < 0.01)
+            })
+            .collect();
+        assert_eq!(on_main.len(), 1, "{} bears on the main ridge", frame.pieces[v].label);
+        for j in frame.joints.iter().filter(|j| j.pieces[0] == v) {
+            assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+            let (gap, overlap, _) = parry_fit::fit(&frame, j.pieces[0], j.pieces[1]);
+            assert!(gap < FIT_IN && overlap < FIT_IN, "{:?}: parry {gap} / {overlap}", j.members);
+        }
+    }
+}
+
+/// Seed 2020: a block whose west side is five walls a hair out of line,
+/// mixed pitches.
+#[rustfmt::skip]
+const SEED_2020: [WallRow; 17] = [
+    (0.0, 149.73461011557035, 1.3333333333333333, 21.0),
+    (0.1279714298428425, 185.16458689349344, 0.75, 10.0),
+    (0.0, 239.69528860242127, 0.8333333333333334, 3.0),
+    (0.0, 367.1009429802518, 0.8143930557155104, 8.0),
+    (-0.13465174234458535, 425.731816323512, 0.9166666666666666, 3.0),
+    (0.0, 475.5917931981111, 0.16666666666666666, 21.0),
+    (107.20509790746424, 475.5917931981111, 0.16666666666666666, 17.0),
+    (292.58736094748565, 475.5917931981111, 0.16666666666666666, 22.0),
+    (435.12114845488713, 475.5917931981111, 1.0, 6.0),
+    (435.12114845488713, 248.57423521305773, 1.3077975791771466, 12.0),
+    (435.2242942496129, 221.185477944791, 0.5455221384004488, 10.0),
+    (435.12114845488713, 182.5441594741089, 1.0833333333333333, 18.0),
+    (435.12114845488713, 101.53106877499064, 1.0833333333333333, 6.0),
+    (435.12114845488713, 0.0, 0.9166666666666666, 7.0),
+    (267.09817423130676, 0.0, 0.75, 1.0),
+    (122.2983651740265, -0.3985062827838556, 1.0833333333333333, 4.0),
+    (0.0, 0.0, 0.44640264309430044, 14.0),
+];
+
+#[test]
+fn a_hip_carrying_a_valleys_line_on_past_its_top_butts_against_it() {
+    let frame = framed(&SEED_2020, &[]);
+    // Walls 3 and 4 on the west side meet 0.13 in out of line: the valley
+    // over their corner (0, 367.101) rises only 2.85 in, to
+    // (3.423, 401.769), and a hip of almost no rise (0.03 in over 56.5 in)
+    // carries its line on north to (3.326, 458.315), 5.7 degrees off the
+    // valley's line. Cut to the valley's side, a plane running nearly
+    // along the hip, the hip's foot was a sliver 0.83 in off the valley.
+    // It now butts against the valley's top, plumb through the node square
+    // to the valley, and bears on it there. Derivation.
+    let node = dvec2(3.423_1, 401.769_3);
+    let valley_dir = (node - dvec2(0.0, 367.100_9)).normalize();
+    let hip = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Hip && p.plan_line[0].distance(node) < 0.01)
+        .expect("the hip starting at the valley's top");
+    let valley = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Valley && p.plan_line[1].distance(node) < 0.01)
+        .expect("the valley up to the node");
+    let behind = frame.pieces[hip]
+        .solid
+        .vertices()
+        .map(|v| (v.truncate() - node).dot(valley_dir))
+        .fold(f64::INFINITY, f64::min);
+    assert!(behind > -1e-3, "the hip reaches {behind} in back past the valley's top");
+    let joint = frame.joints.iter().find(|j| j.pieces == [hip, valley]).expect("the hip bears on the valley");
+    assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+    let (gap, overlap, mating) = parry_fit::fit(&frame, hip, valley);
+    assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "parry {gap} / {overlap}");
+}

@@ -20,6 +20,12 @@ pub const STOCK_TOL_IN: f64 = 1e-6;
 /// the 1/64 in a joint is held to, coarser than round-off.
 const OVERLAP_TOL_IN: f64 = 1e-6;
 
+/// Two plan directions within 10 degrees of each other count as in line
+/// for a hip carrying a valley's line on past its top: the valley's side
+/// would cut such a hip along a cheek over 8 in long, the hip's 1-1/2 in
+/// thickness over sin 10 degrees (common practice, no source).
+const IN_LINE_COS: f64 = 0.984_807_753_012_208; // cos 10 degrees
+
 /// What a piece bears on, as known while pieces are still being built.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum Bearing {
@@ -1081,6 +1087,7 @@ impl Ctx<'_> {
         }
         if !seated {
             self.clear_kings_at(line.from, &mut spec, &mut bearings, mid, CutEnd::Bottom, rafter_piece);
+            self.cut_foot_with_valley_tops(line, &mut spec, &mut bearings, rafter_piece);
         }
         if king_missing && !peak_without_ridge {
             // One side's king is there, the other side has none (a valley
@@ -1120,8 +1127,20 @@ impl Ctx<'_> {
             if !meets || std::ptr::eq(other, line) {
                 continue;
             }
-            let Some(mut h) = (match other.kind {
-                RoofLineKind::Ridge => self.ridge_face_at(k, line.from, up_dir, toward, CutEnd::Bottom),
+            // A hip running on within 10 degrees of the valley's line past
+            // its top (a hip of almost no rise carrying the valley's line
+            // on) butts against that top, cut plumb at the node: the
+            // valley's side runs along the hip there. Any other crosses
+            // the valley's side and is cut to it.
+            let valley_dir = (other.to - other.from).try_normalize();
+            let Some(mut h) = (match (other.kind, valley_dir) {
+                (RoofLineKind::Ridge, _) => self.ridge_face_at(k, line.from, up_dir, toward, CutEnd::Bottom),
+                (_, Some(vd)) if vd.dot(up_dir) > IN_LINE_COS => HalfSpace::through(
+                    line.from.extend(0.0),
+                    (-vd).extend(0.0),
+                    FaceTag::Cheek,
+                    Some(CutEnd::Bottom),
+                ),
                 _ => side_face(
                     other.from,
                     other.to,
@@ -1315,8 +1334,86 @@ impl Ctx<'_> {
             let down = (line.from - line.to).normalize_or_zero();
             self.clear_ridges_at(&across, &mut spec, &mut bearings, down, mid, CutEnd::Top);
         }
+        let down = (line.from - line.to).normalize_or_zero();
+        let passing = self.ridges_passing(line.to, size);
+        if !passing.is_empty() {
+            self.clear_ridges_at(&passing, &mut spec, &mut bearings, down, mid, CutEnd::Top);
+        }
         self.clear_kings_at(line.to, &mut spec, &mut bearings, mid, CutEnd::Top, rafter_piece);
         Some((spec, bearings, false))
+    }
+
+    /// The ridges that pass beside `node` without meeting it, near enough
+    /// that a `size` member ending there could run into their side (wing
+    /// valleys meeting a fraction of an inch short of the main ridge),
+    /// each with `node`: only where the node is beside the ridge's length,
+    /// whose side face is then the one met.
+    fn ridges_passing(&self, node: DVec2, size: BoardSize) -> Vec<(usize, DVec2)> {
+        let reach = self.settings.ridge.thickness_in / 2.0 + size.thickness_in + size.depth_in;
+        self.lines
+            .iter()
+            .enumerate()
+            .filter(|(_, l)| {
+                let Some(dir) = (l.to - l.from).try_normalize() else { return false };
+                let along = (node - l.from).dot(dir);
+                l.kind == RoofLineKind::Ridge
+                    && !l.touches(node)
+                    && along > 0.0
+                    && along < l.from.distance(l.to)
+                    && distance_to_segment(node, l.from, l.to) < reach
+            })
+            .map(|(k, _)| (k, node))
+            .collect()
+    }
+
+    /// A hip starting up on the roof at the top of a valley, its foot cut
+    /// to the valley's side: where the valley's top is cut back to the side
+    /// of a ridge passing the node, the foot is cut back to it too (past
+    /// it there is no valley to bear on), and bears on the ridge where it
+    /// runs into it.
+    fn cut_foot_with_valley_tops(
+        &self,
+        line: &PlanLine,
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        rafter_piece: &[Option<usize>],
+    ) {
+        let near = |p: DVec2| p.distance(line.from) < PLAN_TOL_IN * 1e3;
+        for (vi, valley) in self.lines.iter().enumerate() {
+            if valley.kind != RoofLineKind::Valley
+                || !near(valley.to)
+                || near(valley.from)
+                || self.left_out.get(vi).copied().unwrap_or(false)
+            {
+                continue;
+            }
+            let passing = self.ridges_passing(valley.to, self.settings.valley);
+            if passing.is_empty() {
+                continue;
+            }
+            let Some((valley_spec, ..)) = self.valley_spec(valley, rafter_piece) else { continue };
+            let down = (valley.from - valley.to).normalize_or_zero();
+            let valley_mid = (valley.from + valley.to) / 2.0;
+            for &(k, node) in &passing {
+                let Some(face) = self.ridge_face_at(k, node, down, valley_mid, CutEnd::Bottom) else {
+                    continue;
+                };
+                let valley_cut = valley_spec.upper_cuts.iter().any(|h| {
+                    h.normal.dot(face.normal) > 1.0 - 1e-12 && (h.offset - face.offset).abs() < 1e-9
+                });
+                let solid = spec.solid();
+                if !valley_cut || !solid.vertices().any(|v| face.distance(v) > OVERLAP_TOL_IN) {
+                    continue;
+                }
+                let Some(ridge) = self.lines.get(k) else { continue };
+                let runs_in = self.ridge_specs(k, ridge).iter().any(|r| runs_into(&solid, &r.solid()));
+                let h = HalfSpace { tag: cut_tag(&face, &spec.frame), ..face };
+                spec.lower_cuts.push(h);
+                if runs_in {
+                    bearings.push((Bearing::Line(k), h));
+                }
+            }
+        }
     }
 }
 
