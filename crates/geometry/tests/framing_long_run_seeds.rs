@@ -1045,7 +1045,7 @@ fn valley_tops_just_short_of_a_ridge_passing_by_are_cut_to_its_side() {
     // valley's top ran 0.19 in into the main ridge. Each is now cut back
     // to that north face as well and bears on it. Derivation.
     let north_face_y = 112.361_101_889 + FramingSettings::default().ridge.thickness_in / 2.0;
-    let nodes = [dvec2(557.441_2, 113.234), dvec2(1003.394_1, 113.234)];
+    let nodes = [dvec2(557.441_2, 113.234), dvec2(1_003.394_1, 113.234)];
     let valleys: Vec<usize> = frame
         .pieces
         .iter()
