@@ -24,13 +24,13 @@ use std::panic::{AssertUnwindSafe, catch_unwind};
 use std::sync::Mutex;
 use std::time::Instant;
 
-// The allocator the app runs with, so the outlines a second are the app's.
-#[global_allocator]
-static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
-
 use pitchframe_geometry::{
     FramingSettings, OutlineFeatures, OutlineShape, Roof, check_roof, frame_roof, random_outline_or_refusal,
 };
+
+// The allocator the app runs with, so the outlines a second are the app's.
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
 
 /// A joint fits when neither its gap nor its overlap reaches this, inches:
 /// 1/64 in, finer than a pencil line (common practice, no source).

@@ -1330,11 +1330,10 @@ impl Ctx<'_> {
         // the roof bears on what it was cut to there.
         let mut bearings: Vec<(Bearing, HalfSpace)> =
             ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
+        let down = (line.from - line.to).normalize_or_zero();
         if !across.is_empty() {
-            let down = (line.from - line.to).normalize_or_zero();
             self.clear_ridges_at(&across, &mut spec, &mut bearings, down, mid, CutEnd::Top);
         }
-        let down = (line.from - line.to).normalize_or_zero();
         let passing = self.ridges_passing(line.to, size);
         if !passing.is_empty() {
             self.clear_ridges_at(&passing, &mut spec, &mut bearings, down, mid, CutEnd::Top);
