@@ -35,6 +35,12 @@ fn framed(outer: &[WallRow], courtyards: &[&[WallRow]]) -> Frame {
 /// 1/64 in, finer than a pencil line (common practice, no source).
 const FIT_IN: f64 = 1.0 / 64.0;
 
+/// The piece of `kind` whose plan line's end `end` (0 lower, 1 upper) is
+/// within 0.01 in of `point`.
+fn piece_ending_at(frame: &Frame, kind: MemberKind, end: usize, point: glam::DVec2) -> Option<usize> {
+    frame.pieces.iter().position(|p| p.kind == kind && p.plan_line[end].distance(point) < 0.01)
+}
+
 /// Seed 420: a plan round a courtyard, every wall south of the courtyard
 /// one plane (walls 18 to 20 in line at 2/12).
 #[rustfmt::skip]
@@ -453,11 +459,8 @@ fn a_valley_starting_up_on_the_roof_ends_at_its_foot() {
     let foot = dvec2(406.036, 64.818);
     let top = dvec2(276.706, 38.205);
     let up = (top - foot).normalize();
-    let valley = frame
-        .pieces
-        .iter()
-        .position(|p| p.kind == MemberKind::Valley && p.plan_line[0].distance(foot) < 0.01)
-        .expect("the valley starting at (406.04, 64.82)");
+    let valley =
+        piece_ending_at(&frame, MemberKind::Valley, 0, foot).expect("the valley starting at (406.04, 64.82)");
     let back = frame.pieces[valley]
         .solid
         .vertices()
@@ -773,11 +776,8 @@ fn a_corner_on_the_side_of_a_board_its_line_runs_along_is_no_overlap() {
     // contact depth within 1/64 in (the two checks measure one thing).
     // Derivation.
     let node = dvec2(139.140, 286.186);
-    let valley = frame
-        .pieces
-        .iter()
-        .position(|p| p.kind == MemberKind::Valley && p.plan_line[1].distance(node) < 0.01)
-        .expect("the valley ending at (139.14, 286.19)");
+    let valley =
+        piece_ending_at(&frame, MemberKind::Valley, 1, node).expect("the valley ending at (139.14, 286.19)");
     let on_ridges: Vec<_> = frame
         .joints
         .iter()
@@ -946,10 +946,7 @@ fn a_ridge_end_and_a_valley_top_beside_a_king_are_cut_back_to_its_side() {
         .iter()
         .position(|p| p.kind == MemberKind::Ridge && p.plan_line.iter().all(|q| (q.y - 189.990).abs() < 0.01))
         .expect("the ridge along y = 189.990");
-    let valley = frame
-        .pieces
-        .iter()
-        .position(|p| p.kind == MemberKind::Valley && p.plan_line[1].distance(dvec2(158.975, 189.990)) < 0.01)
+    let valley = piece_ending_at(&frame, MemberKind::Valley, 1, dvec2(158.975, 189.990))
         .expect("the valley up to the ridge's end");
     for piece in [ridge, valley] {
         let westmost = frame.pieces[piece].solid.vertices().map(|v| v.x).fold(f64::INFINITY, f64::min);
@@ -1113,16 +1110,9 @@ fn a_hip_carrying_a_valleys_line_on_past_its_top_butts_against_it() {
     // to the valley, and bears on it there. Derivation.
     let node = dvec2(3.423_1, 401.769_3);
     let valley_dir = (node - dvec2(0.0, 367.100_9)).normalize();
-    let hip = frame
-        .pieces
-        .iter()
-        .position(|p| p.kind == MemberKind::Hip && p.plan_line[0].distance(node) < 0.01)
-        .expect("the hip starting at the valley's top");
-    let valley = frame
-        .pieces
-        .iter()
-        .position(|p| p.kind == MemberKind::Valley && p.plan_line[1].distance(node) < 0.01)
-        .expect("the valley up to the node");
+    let hip =
+        piece_ending_at(&frame, MemberKind::Hip, 0, node).expect("the hip starting at the valley's top");
+    let valley = piece_ending_at(&frame, MemberKind::Valley, 1, node).expect("the valley up to the node");
     let behind = frame.pieces[hip]
         .solid
         .vertices()
