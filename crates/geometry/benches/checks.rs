@@ -31,7 +31,7 @@ fn hip_rectangle() -> (Outline, Roof) {
         rise_per_run: 0.5,
         eave_outline: outline.clone(),
         outline,
-        coplanar_walls: vec![],
+        plane_group: wall,
     };
     let line = |kind, from, to, walls| RoofLine { kind, from, to, walls };
     let outline =

@@ -65,11 +65,20 @@ pub struct RoofPlane {
     /// counter-clockwise from above, starting where the fascia line starts;
     /// z is negative beyond the wall line.
     pub eave_outline: Vec<DVec3>,
-    /// Other walls whose roof plane is this same plane (in line with this
-    /// wall and at the same pitch). Each keeps its own part, divided from
-    /// its neighbour's along a line square to the wall line through their
-    /// shared corner; no ridge, hip or valley is reported between them.
-    pub coplanar_walls: Vec<usize>,
+    /// The lowest wall index among the walls whose roof plane is this same
+    /// plane (in line with this wall and at the same pitch); `wall` itself
+    /// when no other wall shares it. Each wall keeps its own part, divided
+    /// from its neighbour's along a line square to the wall line through
+    /// their shared corner; no ridge, hip or valley is reported between
+    /// them. [`Roof::coplanar_walls`] lists a plane's partners.
+    pub plane_group: usize,
+}
+
+impl RoofPlane {
+    /// Whether `other` is another wall's part of this same plane.
+    pub fn shares_plane_with(&self, other: &RoofPlane) -> bool {
+        self.wall != other.wall && self.plane_group == other.plane_group
+    }
 }
 
 /// The vertical triangle or trapezoid above a gable wall.
@@ -163,7 +172,7 @@ impl Roof {
     ///   pitches never reach the solve: outline validation refuses them.
     /// - **Walls in line at one pitch** share one plane: each wall keeps its
     ///   own part, divided along the line square to the wall at their shared
-    ///   corner; [`RoofPlane::coplanar_walls`] names the others, and their
+    ///   corner; [`RoofPlane::plane_group`] names the lowest of them, and their
     ///   ridges, hips and valleys are reported once, under the
     ///   lowest-numbered of them.
     /// - **A gable at an inside corner** keeps its vertical face running on
@@ -268,6 +277,18 @@ impl Roof {
             }
         })?;
         Ok(build_roof(&sk, &tol))
+    }
+
+    /// The walls other than plane `plane`'s own whose roof plane is the
+    /// same plane (in line with it, at the same pitch), in wall order.
+    /// It looks through every plane; to compare two planes, use
+    /// [`RoofPlane::shares_plane_with`].
+    pub fn coplanar_walls(&self, plane: usize) -> Vec<usize> {
+        let Some(own) = self.planes.get(plane) else { return Vec::new() };
+        let mut walls: Vec<usize> =
+            self.planes.iter().filter(|p| own.shares_plane_with(p)).map(|p| p.wall).collect();
+        walls.sort_unstable();
+        walls
     }
 }
 
@@ -486,13 +507,6 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
     let node_time = |n: usize| sk.nodes.get(n).map_or(0.0, |x| x.time);
     let group = plane_groups(&sk.lines, tol);
     let canonical = |w: usize| group.get(w).copied().unwrap_or(w);
-    // Each group's walls in wall order, listed under its lowest wall.
-    let mut members: Vec<Vec<usize>> = vec![Vec::new(); sk.lines.len()];
-    for w in 0..sk.lines.len() {
-        if let Some(m) = members.get_mut(canonical(w)) {
-            m.push(w);
-        }
-    }
     let mut planes = Vec::new();
     let mut gables = Vec::new();
     let mut segments: QuickMap<(usize, usize), Vec<(usize, usize)>> = QuickMap::default();
@@ -550,13 +564,12 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         };
         let outline = to_3d(&with_holes(face, holes, &node_pos));
         let eave = eave_outline(w, &sk.lines, &sk.nodes, face, &sides);
-        let coplanar_walls = others_in_group(members.get(canonical(w)).map_or(&[], Vec::as_slice), w);
         planes.push(RoofPlane {
             wall: w,
             rise_per_run: line.rise.unwrap_or(0.0),
             outline: drop_collinear(outline, tol.point),
             eave_outline: drop_collinear(eave, tol.point),
-            coplanar_walls,
+            plane_group: canonical(w),
         });
     }
     let mut keys: Vec<_> = segments.keys().copied().collect();
@@ -596,22 +609,6 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
         }
     }
     Roof { planes, lines, gables }
-}
-
-/// The walls of `group` (in wall order) other than `wall`, copied as the
-/// two runs either side of it: a long run of walls in line (a comb's
-/// thousands of gaps between teeth) makes this list, for every wall of the
-/// run, the largest part of the roof.
-fn others_in_group(group: &[usize], wall: usize) -> Vec<usize> {
-    let mut others = Vec::with_capacity(group.len().saturating_sub(1));
-    match group.binary_search(&wall) {
-        Ok(i) => {
-            others.extend_from_slice(group.get(..i).unwrap_or_default());
-            others.extend_from_slice(group.get(i + 1..).unwrap_or_default());
-        }
-        Err(_) => others.extend_from_slice(group),
-    }
-    others
 }
 
 /// Whether the planes of `a` and `b` cross in a line rising less than

@@ -836,17 +836,20 @@ fn check_lines(
 ) {
     let by_wall: HashMap<usize, &Face> = faces.iter().map(|f| (f.wall, f)).collect();
     // A line may name any wall of a plane shared by walls in line; the
-    // solver lists them in `coplanar_walls`, and each is confirmed here.
+    // solver gives them one `plane_group`, and each is confirmed here.
+    let group_of = |face: &Face| roof.planes.get(face.plane).map_or(face.wall, |p| p.plane_group);
+    let mut by_group: HashMap<usize, Vec<&Face>> = HashMap::new();
+    for face in faces {
+        by_group.entry(group_of(face)).or_default().push(face);
+    }
+    for members in by_group.values_mut() {
+        members.sort_by_key(|f| f.wall);
+    }
     let group = |wall: usize| -> Vec<&Face> {
         let Some(&face) = by_wall.get(&wall) else { return Vec::new() };
-        let shared = roof.planes.get(face.plane).map_or(&[][..], |p| p.coplanar_walls.as_slice());
+        let shared = by_group.get(&group_of(face)).map_or(&[][..], Vec::as_slice);
         std::iter::once(face)
-            .chain(
-                shared
-                    .iter()
-                    .filter_map(|w| by_wall.get(w).copied())
-                    .filter(|f| same_plane(face, f, height_tol)),
-            )
+            .chain(shared.iter().copied().filter(|f| f.wall != face.wall && same_plane(face, f, height_tol)))
             .collect()
     };
     let mut reported: HashSet<(usize, usize)> = HashSet::new();
@@ -1093,13 +1096,7 @@ mod tests {
 
     fn plane(wall: usize, points: &[(f64, f64, f64)]) -> RoofPlane {
         let outline: Vec<DVec3> = points.iter().map(|&(x, y, z)| DVec3::new(x, y, z)).collect();
-        RoofPlane {
-            wall,
-            rise_per_run: PITCH,
-            eave_outline: outline.clone(),
-            outline,
-            coplanar_walls: vec![],
-        }
+        RoofPlane { wall, rise_per_run: PITCH, eave_outline: outline.clone(), outline, plane_group: wall }
     }
 
     fn line(kind: RoofLineKind, from: (f64, f64, f64), to: (f64, f64, f64), walls: [usize; 2]) -> RoofLine {

@@ -207,7 +207,7 @@ impl Rectangle {
                     rise_per_run: self.slope,
                     eave_outline: outline.clone(),
                     outline,
-                    coplanar_walls: vec![],
+                    plane_group: wall,
                 });
             } else if self.gable_ends {
                 let outline = vec![flat(a), flat(b), lift(nearest((a + b) / 2.0))];
@@ -219,7 +219,7 @@ impl Rectangle {
                     rise_per_run: self.slope,
                     eave_outline: outline.clone(),
                     outline,
-                    coplanar_walls: vec![],
+                    plane_group: wall,
                 });
             }
         }

@@ -564,7 +564,10 @@ fn walls_in_line_share_one_plane() {
     let ridges = lines_of(&roof, RoofLineKind::Ridge);
     assert_eq!(ridges.len(), 1);
     assert_relative_eq!(plan_len(&ridges[0]), 192.0, epsilon = EPS);
-    assert_eq!(roof.planes[0].coplanar_walls, vec![1]);
+    assert_eq!(roof.coplanar_walls(0), vec![1]);
+    assert_eq!(roof.coplanar_walls(1), vec![0]);
+    assert_eq!((roof.planes[0].plane_group, roof.planes[1].plane_group), (0, 0));
+    assert!(roof.planes[2..].iter().all(|p| p.plane_group == p.wall));
     assert_eq!(lines_of(&roof, RoofLineKind::Hip).len(), 4);
 }
 

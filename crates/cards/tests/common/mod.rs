@@ -32,7 +32,7 @@ fn plane(wall: usize, corners: &[DVec2], rise: f64, ridge_height: f64, outward: 
         .zip(outward)
         .map(|(c, o)| (*c + *o * OVERHANG_IN).extend(-OVERHANG_IN * rise))
         .collect();
-    RoofPlane { wall, rise_per_run: rise, outline, eave_outline, coplanar_walls: vec![] }
+    RoofPlane { wall, rise_per_run: rise, outline, eave_outline, plane_group: wall }
 }
 
 /// The roof's planes and lines, solved by hand: the ridge runs between the

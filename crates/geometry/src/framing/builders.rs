@@ -822,7 +822,7 @@ impl Ctx<'_> {
     pub fn same_group(&self, a: usize, b: usize) -> bool {
         a == b
             || match (self.planes.get(a), self.planes.get(b)) {
-                (Some(pa), Some(pb)) => pa.coplanar_walls.contains(&pb.wall),
+                (Some(pa), Some(pb)) => pa.plane_group == pb.plane_group,
                 _ => false,
             }
     }

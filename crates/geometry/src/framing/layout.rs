@@ -109,9 +109,8 @@ pub fn edge_kinds(
     all_planes: &[PlaneFrame],
     lines: &[PlanLine],
 ) -> Vec<EdgeKind> {
-    let ours = |p: usize| {
-        p == plane_index || all_planes.get(p).is_some_and(|o| frame.coplanar_walls.contains(&o.wall))
-    };
+    let ours =
+        |p: usize| p == plane_index || all_planes.get(p).is_some_and(|o| o.plane_group == frame.plane_group);
     let n = frame.polygon.len();
     (0..n)
         .map(|i| {

@@ -27,8 +27,9 @@ pub struct PlaneFrame {
     pub overhang_in: f64,
     /// The plane's plan polygon at the wall line, counter-clockwise.
     pub polygon: Vec<DVec2>,
-    /// Walls whose roof plane is this same plane (in line, same pitch).
-    pub coplanar_walls: Vec<usize>,
+    /// The lowest wall whose roof plane is this same plane (in line, same
+    /// pitch); `wall` when no other wall shares it.
+    pub plane_group: usize,
 }
 
 impl PlaneFrame {
@@ -64,7 +65,7 @@ impl PlaneFrame {
             slope: plane.rise_per_run,
             overhang_in: wall.overhang_in.max(0.0),
             polygon,
-            coplanar_walls: plane.coplanar_walls.clone(),
+            plane_group: plane.plane_group,
         };
         // Every corner must sit on the plane the wall line and pitch make.
         let consistent =

@@ -28,7 +28,7 @@ fn plane(wall: usize, slope: f64, pts: &[DVec3]) -> RoofPlane {
         rise_per_run: slope,
         outline: pts.to_vec(),
         eave_outline: pts.to_vec(),
-        coplanar_walls: Vec::new(),
+        plane_group: wall,
     }
 }
 
