@@ -595,9 +595,17 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             // Level by its ends, or because the two planes cross in a level
             // line (walls in parallel): a short crease between two such
             // planes can have ends whose heights differ by rounding far
-            // more than `tol.time`, yet it is a ridge.
-            let level =
-                (za - zb).abs() <= tol.time.max(1e-9 * (za.abs() + zb.abs())) || crossing_is_level(la, lb);
+            // more than `tol.time`, yet it is a ridge. Ends of equal height
+            // do not make a ridge of a crossing that rises: two points of
+            // one crossing a plan length `L` apart differ in height by
+            // `slope * L`, so where the planes' crossing rises 1 in 1,000
+            // or more (walls 0.1 degree or more from parallel at any pitch
+            // from 1/12 up, see `crossing_slope`) equal ends are two nodes
+            // of one event placed at one height, not a level line. Such a
+            // piece is the top of a hip between two nearly facing walls,
+            // a hair long, the rest of which is reported as a hip.
+            let ends_level = (za - zb).abs() <= tol.time.max(1e-9 * (za.abs() + zb.abs()));
+            let level = crossing_is_level(la, lb) || (ends_level && crossing_slope(la, lb) < SLOPED_CROSSING);
             let kind = match (level, convex) {
                 (true, true) => RoofLineKind::Ridge,
                 (_, false) => RoofLineKind::Valley,
@@ -614,12 +622,33 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
 /// Whether the planes of `a` and `b` cross in a line rising less than
 /// 1e-9 per unit run, as the roof check reckons a ridge.
 fn crossing_is_level(a: &WallLine, b: &WallLine) -> bool {
+    let d = crossing_direction(a, b);
+    d.z.abs() <= 1e-9 * d.truncate().length()
+}
+
+/// A crossing rising this much per unit run or more is a hip or valley
+/// whatever the heights of a piece's ends (the roof check's bound for a
+/// line that must be called a hip).
+const SLOPED_CROSSING: f64 = 1e-3;
+
+/// The rise per unit run of the line where the planes of `a` and `b`
+/// cross. For two walls of rise `r` facing each other `delta` from
+/// parallel the crossing runs along their bisector, where each plane's
+/// height grows by `r * sin(delta / 2)` per unit run: 1e-3 is reached at
+/// delta = 0.11 degrees for 12/12 and 1.4 degrees for 1/12.
+fn crossing_slope(a: &WallLine, b: &WallLine) -> f64 {
+    let d = crossing_direction(a, b);
+    d.z.abs() / d.truncate().length().max(f64::MIN_POSITIVE)
+}
+
+/// The direction of the line where the planes of `a` and `b` cross (the
+/// cross product of their normals; zero for parallel planes).
+fn crossing_direction(a: &WallLine, b: &WallLine) -> DVec3 {
     let normal = |l: &WallLine| {
         let r = l.rise.unwrap_or(0.0);
         DVec3::new(-r * l.normal.x, -r * l.normal.y, 1.0)
     };
-    let d = normal(a).cross(normal(b));
-    d.z.abs() <= 1e-9 * d.truncate().length()
+    normal(a).cross(normal(b))
 }
 
 /// The face's outer walk with each inner loop joined in by a cut: from the
