@@ -877,14 +877,27 @@ fn check_lines(
             // the line's middle may be a corner of other edges too. Of the
             // edges along it, the nearest: a plane narrower than the
             // tolerance has edges on both sides of the line within it.
-            let along = (line.to - line.from).truncate().normalize_or_zero();
+            //
+            // An edge runs along the line where it turns from it by no more
+            // than the tolerance over their common length: an edge of
+            // length `e` at angle `a` to a line of plan length `l` moves
+            // `min(e, l) * sin(a)` off it. A fixed angle bound would drop
+            // the very edge a sliver shares with the line when that edge
+            // ends a hair (under the tolerance) from the line's end, so a
+            // long line leaves it more than the angle, and keep only the
+            // sliver's far edge, on the wrong side of the line: the kind
+            // would then be judged from the wrong plane.
+            let along_line = (line.to - line.from).truncate();
+            let along = along_line.normalize_or_zero();
             let ends = [line.from.truncate(), line.to.truncate(), mid.truncate()];
             let edge = members
                 .iter()
                 .flat_map(|f| f.edges().map(move |(_, a, b)| (*f, a, b)))
                 .filter(|&(_, a, b)| {
                     let dir = (b - a).normalize_or_zero();
-                    dir.perp_dot(along).abs() <= 1e-6 && distance_to_segment(mid.truncate(), a, b) <= tol
+                    let common = (b - a).length().min(along_line.length());
+                    dir.perp_dot(along).abs() * common <= tol
+                        && distance_to_segment(mid.truncate(), a, b) <= tol
                 })
                 .map(|(f, a, b)| {
                     let off: f64 = ends.iter().map(|&x| distance_to_segment(x, a, b)).sum();
