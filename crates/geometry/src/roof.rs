@@ -599,8 +599,9 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             // do not make a ridge of a crossing that rises: two points of
             // one crossing a plan length `L` apart differ in height by
             // `slope * L`, so where the planes' crossing rises 1 in 1,000
-            // or more (walls 0.1 degree or more from parallel at any pitch
-            // from 1/12 up, see `crossing_slope`) equal ends are two nodes
+            // or more (facing walls 0.11 degree or more from parallel at
+            // 12/12, 1.4 degrees at 1/12, see `crossing_slope`) equal ends
+            // are two nodes
             // of one event placed at one height, not a level line. Such a
             // piece is the top of a hip between two nearly facing walls,
             // a hair long, the rest of which is reported as a hip.
