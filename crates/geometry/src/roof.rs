@@ -601,10 +601,10 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             // `slope * L`, so where the planes' crossing rises 1 in 1,000
             // or more (facing walls 0.11 degree or more from parallel at
             // 12/12, 1.4 degrees at 1/12, see `crossing_slope`) equal ends
-            // are two nodes
-            // of one event placed at one height, not a level line. Such a
-            // piece is the top of a hip between two nearly facing walls,
-            // a hair long, the rest of which is reported as a hip.
+            // are two nodes of one event placed at one height, not a level
+            // line. Such a piece is the top of a hip between two nearly
+            // facing walls, a hair long, the rest of which is reported as
+            // a hip.
             let ends_level = (za - zb).abs() <= tol.time.max(1e-9 * (za.abs() + zb.abs()));
             let level = crossing_is_level(la, lb) || (ends_level && crossing_slope(la, lb) < SLOPED_CROSSING);
             let kind = match (level, convex) {
