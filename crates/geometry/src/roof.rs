@@ -276,7 +276,9 @@ impl Roof {
                 RoofError::Unsolvable { reason: "the solve did not settle (too many events)".into() }
             }
         })?;
-        Ok(build_roof(&sk, &tol))
+        // Nodes within the outline's tolerance are one node where face
+        // edges are paired into lines (see `join_close_nodes`).
+        Ok(build_roof(&sk, &tol, crate::outline::TOLERANCE_PER_SIZE * size))
     }
 
     /// The walls other than plane `plane`'s own whose roof plane is the
@@ -487,10 +489,59 @@ fn drop_collinear(points: Vec<DVec3>, tol: f64) -> Vec<DVec3> {
     out
 }
 
-/// Turns the skeleton's faces into planes, roof lines and gable faces.
-fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
+/// For each skeleton node, the node it is taken as when faces are joined
+/// into lines: the first node (in node order) within `join` of it in plan
+/// and within `join` times (1 + the steepest rise) in height, or itself.
+///
+/// Two events a hair apart can each leave a node where the planes meet in
+/// one point: beside a sliver plane (a wall a hair long, or a low pitch
+/// squeezed between walls nearly in line) one face's edge ends at one node
+/// and its neighbour's at the other, 0.003 in away on a 100 ft plan, so
+/// the two edges are not each other's twin and no line would be reported
+/// between the planes. A framer cannot tell such points apart; taken as
+/// one, the edges pair up. Each node is taken only as a node that stands
+/// for itself, so no chain of close nodes drifts farther than `join`.
+/// Nodes above one another (the two ends of a gable face's plumb edge)
+/// differ in height and stay apart.
+fn join_close_nodes(sk: &Skeleton, join: f64) -> Vec<usize> {
+    let steepest = sk.lines.iter().filter_map(|l| l.rise).fold(0.0, f64::max);
+    let join_height = join * (1.0 + steepest);
+    let cell = |p: DVec2| ((p.x / join).floor() as i64, (p.y / join).floor() as i64);
+    let mut kept: QuickMap<(i64, i64), Vec<usize>> = QuickMap::default();
+    let mut rep = Vec::with_capacity(sk.nodes.len());
+    for (i, node) in sk.nodes.iter().enumerate() {
+        let (cx, cy) = cell(node.pos);
+        let near = (-1..=1).flat_map(|dx| (-1..=1).map(move |dy| (cx + dx, cy + dy))).find_map(|c| {
+            kept.get(&c)?.iter().copied().find(|&k| {
+                sk.nodes.get(k).is_some_and(|o| {
+                    o.pos.distance(node.pos) <= join && (o.time - node.time).abs() <= join_height
+                })
+            })
+        });
+        match near {
+            Some(k) => rep.push(k),
+            None => {
+                kept.entry((cx, cy)).or_default().push(i);
+                rep.push(i);
+            }
+        }
+    }
+    rep
+}
+
+/// Turns the skeleton's faces into planes, roof lines and gable faces;
+/// nodes within `join` of each other count as one where face edges are
+/// paired into lines (see `join_close_nodes`).
+fn build_roof(sk: &Skeleton, tol: &Tolerance, join: f64) -> Roof {
+    let rep = join_close_nodes(sk, join);
+    let joined = |a: usize, b: usize| (rep.get(a).copied().unwrap_or(a), rep.get(b).copied().unwrap_or(b));
     let edges: usize = sk.faces.iter().chain(sk.holes.iter().flatten()).map(Vec::len).sum();
+    // Each face edge by its nodes, and by the nodes they are taken as: an
+    // edge whose exact twin is missing is paired with one whose ends are
+    // within `join` of its own.
     let mut owner: QuickMap<(usize, usize), usize> =
+        QuickMap::with_capacity_and_hasher(edges, Default::default());
+    let mut near_owner: QuickMap<(usize, usize), usize> =
         QuickMap::with_capacity_and_hasher(edges, Default::default());
     for (w, face) in sk.faces.iter().enumerate() {
         let loops = std::iter::once(face).chain(sk.holes.get(w).into_iter().flatten());
@@ -499,10 +550,20 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             for i in 0..k {
                 if let (Some(&a), Some(&b)) = (lp.get(i), lp.get((i + 1) % k)) {
                     owner.insert((a, b), w);
+                    let (ja, jb) = joined(a, b);
+                    if ja != jb {
+                        near_owner.entry((ja, jb)).or_insert(w);
+                    }
                 }
             }
         }
     }
+    let twin_owner = |a: usize, b: usize| {
+        owner.get(&(b, a)).or_else(|| {
+            let (ja, jb) = joined(a, b);
+            near_owner.get(&(jb, ja))
+        })
+    };
     let node_pos = |n: usize| sk.nodes.get(n).map_or(DVec2::ZERO, |x| x.pos);
     let node_time = |n: usize| sk.nodes.get(n).map_or(0.0, |x| x.time);
     let group = plane_groups(&sk.lines, tol);
@@ -528,7 +589,7 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             let side = if i == 0 {
                 EdgeSide::OwnWall
             } else {
-                match owner.get(&(b, a)).and_then(|&o| sk.lines.get(o)) {
+                match twin_owner(a, b).and_then(|&o| sk.lines.get(o)) {
                     Some(other) if other.rise.is_none() => EdgeSide::Gable(other.wall),
                     Some(other) => {
                         // Walls sharing one plane report their lines once,
@@ -549,7 +610,7 @@ fn build_roof(sk: &Skeleton, tol: &Tolerance) -> Roof {
             let k = lp.len();
             for i in 0..k {
                 let (Some(&a), Some(&b)) = (lp.get(i), lp.get((i + 1) % k)) else { continue };
-                if let Some(other) = owner.get(&(b, a)).and_then(|&o| sk.lines.get(o))
+                if let Some(other) = twin_owner(a, b).and_then(|&o| sk.lines.get(o))
                     && other.rise.is_some()
                 {
                     let (cw, co) = (canonical(w), canonical(other.wall));

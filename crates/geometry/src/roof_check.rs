@@ -951,17 +951,39 @@ fn check_lines(
             continue;
         }
         // Two planes within the tolerance of each other along a stretch
-        // where a third runs too, with a line to each: a sliver of that
-        // third plane, narrower than the tolerance, lies between them, and
-        // its two lines stand for theirs (a stretch may pass from one such
-        // sliver to the next).
-        let between: Vec<&Face> = faces
+        // where others run too, joined to both by lines: slivers narrower
+        // than the tolerance lie between them, side by side where walls
+        // a hair long follow one another nearly in line, and their lines
+        // stand for the one the two planes would have (a stretch may pass
+        // from one such sliver to the next). A sliver counts when lines
+        // lead from it to each of the two planes through planes along the
+        // stretch.
+        let samples = |&(u, v): &(DVec2, DVec2)| [u, v, (u + v) / 2.0];
+        let along: Vec<&Face> = faces
             .iter()
-            .filter(|c| c.plane != p && c.plane != q && known(p, c.plane) && known(c.plane, q))
+            .filter(|c| c.plane != p && c.plane != q)
+            .filter(|c| n.stretches.iter().flat_map(samples).any(|x| c.on_boundary(x, tol)))
             .collect();
-        let sliver = n.stretches.iter().all(|&(u, v)| {
-            [u, v, (u + v) / 2.0].iter().all(|&x| between.iter().any(|c| c.on_boundary(x, tol)))
-        });
+        let reached_from = |start: usize| {
+            let mut seen: HashSet<usize> = HashSet::new();
+            let mut work = vec![start];
+            while let Some(x) = work.pop() {
+                for c in &along {
+                    if known(x, c.plane) && seen.insert(c.plane) {
+                        work.push(c.plane);
+                    }
+                }
+            }
+            seen
+        };
+        let (from_p, from_q) = (reached_from(p), reached_from(q));
+        let between: Vec<&Face> = along
+            .iter()
+            .copied()
+            .filter(|c| from_p.contains(&c.plane) && from_q.contains(&c.plane))
+            .collect();
+        let sliver =
+            n.stretches.iter().flat_map(samples).all(|x| between.iter().any(|c| c.on_boundary(x, tol)));
         if !sliver {
             defects.push(RoofDefect::PlanesMeetWithoutLine { plane: p.min(q), other: p.max(q) });
         }
