@@ -1124,3 +1124,103 @@ fn a_hip_carrying_a_valleys_line_on_past_its_top_butts_against_it() {
     let (gap, overlap, mating) = parry_fit::fit(&frame, hip, valley);
     assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "parry {gap} / {overlap}");
 }
+
+/// Every joint of `frame` fits by the frame's own reading, and each hip
+/// jack's cheek on its hip fits as parry measures the two solids too
+/// (1/64 in, common practice, no source).
+fn assert_hip_jacks_fit(frame: &Frame) {
+    for j in &frame.joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        let kinds = (frame.pieces[j.pieces[0]].kind, frame.pieces[j.pieces[1]].kind);
+        if kinds == (MemberKind::HipJack, MemberKind::Hip)
+            && parry_fit::measurable(frame, j.pieces[0], j.pieces[1])
+        {
+            let (gap, overlap, mating) = parry_fit::fit(frame, j.pieces[0], j.pieces[1]);
+            assert!(
+                mating >= 1 && gap < FIT_IN && overlap < FIT_IN,
+                "{:?}: parry {gap} / {overlap}",
+                j.members
+            );
+        }
+    }
+}
+
+/// Seed 12788: walls 2 and 3 run in line along y = 0 at one pitch
+/// (13/12), wall 2 with no overhang and wall 3 with 23 in; wall 1 (3/12)
+/// meets wall 2 0.11 in out of line. The hip between planes 1 and 2 runs
+/// from their corner (135.26, 0) along the wall line, only 0.19 in inside
+/// it at (457.22, 0.19) 322 in on, so plane 2's strip beside it is under
+/// 0.2 in wide (derived from the walls). The hip has no tail (wall 2 has
+/// no overhang) and is cut plumb along the wall line; wall 3's jacks,
+/// laid every 24 in, ran from the fascia to the hip's side 0.64 in
+/// outside the wall line, where nothing of the hip is left: tails with
+/// nothing to bear on (gaps of 0.57 to 0.64 in). They are left out.
+#[test]
+fn jacks_that_are_only_tails_past_a_hip_cut_at_its_wall_line_are_left_out() {
+    let frame = framed(&SEED_12788, &[]);
+    assert_hip_jacks_fit(&frame);
+    let on_wall_3 = frame
+        .pieces
+        .iter()
+        .filter(|p| p.kind == MemberKind::HipJack)
+        .filter(|p| p.plan_line[0].y.abs() < 1.0 && (302.6..458.1).contains(&p.plan_line[0].x))
+        .count();
+    assert_eq!(on_wall_3, 0, "hip jacks laid out on wall 3");
+}
+
+/// Seed 871: the same on a star plan. Walls 3 and 4 run in line at one
+/// pitch, wall 3 with no overhang, wall 4 with 21 in, and wall 2 meets
+/// wall 3 0.12 degrees out of line: the hip from their corner runs along
+/// walls 3 and 4 within 0.3 in of the wall line (it rises 0.26 in over
+/// its 58 in), and wall 4's jacks were only tails outside the wall line
+/// (gaps of 0.55 and 0.64 in).
+#[test]
+fn jacks_that_are_only_tails_past_a_hip_cut_at_its_wall_line_are_left_out_on_a_star() {
+    let frame = framed(&SEED_871, &[]);
+    assert_hip_jacks_fit(&frame);
+}
+
+#[rustfmt::skip]
+const SEED_12788: [WallRow; 13] = [
+    (0.0, 0.0, 1.3212929738159913, 3.0), // 0
+    (79.17126735410582, 0.11179082513970742, 0.25, 16.0), // 1
+    (135.26106856999922, 0.0, 1.0833333333333333, 0.0), // 2
+    (302.6103701166802, 0.0, 1.0833333333333333, 23.0), // 3
+    (458.0498921070851, 0.0, 0.25, 9.0), // 4
+    (458.30956958170685, 126.6292600247236, 1.5, 11.0), // 5
+    (458.0498921070851, 194.2744881086704, 1.1666666666666667, 7.0), // 6
+    (370.5341367628785, 194.2744881086704, 1.1666666666666667, 20.0), // 7
+    (308.3089691440731, 194.2744881086704, 1.1666666666666667, 21.0), // 8
+    (229.02494605354255, 194.2744881086704, 1.0694891231650934, 21.0), // 9
+    (229.02494605354255, 319.15745765229804, 1.25, 21.0), // 10
+    (0.0, 319.15745765229804, 1.0833333333333333, 6.0), // 11
+    (0.0, 194.2744881086704, 1.0833333333333333, 3.0), // 12
+];
+
+#[rustfmt::skip]
+const SEED_871: [WallRow; 24] = [
+    (-112.08580668484363, -46.764414117638, 0.5938343129834585, 9.0), // 0
+    (-99.38199878962622, -124.19790622982907, 0.6666666666666666, 17.0), // 1
+    (-81.89892041524129, -134.53693042312457, 0.75, 2.0), // 2
+    (-63.67114408373706, -145.41981054742803, 1.139448749216421, 0.0), // 3
+    (-47.536897614444015, -155.007915834402, 1.139448749216421, 21.0), // 4
+    (-13.619650581229548, -175.16393218246614, 1.1666666666666667, 23.0), // 5
+    (-0.5805260085275084, -162.66219852455603, 1.0833333333333333, 17.0), // 6
+    (8.026438860325685, -154.40334515512714, 1.0833333333333333, 4.0), // 7
+    (16.930885004423235, -145.8724980168679, 0.75, 13.0), // 8
+    (76.0447517105514, -124.51594027826322, 1.0, 1.0), // 9
+    (109.24152895678307, -112.75477487774997, 1.0, 23.0), // 10
+    (158.9809173905734, -47.87124188035597, 0.5, 16.0), // 11
+    (131.87038631033994, -8.583662748076675, 1.4166666666666667, 14.0), // 12
+    (111.90304030541395, 20.324203124780144, 0.16666666666666666, 19.0), // 13
+    (114.82159033616342, 83.29872951848154, 0.75, 18.0), // 14
+    (101.7700992087274, 85.977520678161, 0.75, 7.0), // 15
+    (82.73626908673079, 89.8841743599355, 1.0833333333333333, 17.0), // 16
+    (11.662909442255218, 133.51333743956982, 1.4184039693250916, 8.0), // 17
+    (-35.93794061115721, 180.8121771842568, 0.16666666666666666, 12.0), // 18
+    (-130.25957981959297, 120.1513805862967, 1.0833333333333333, 1.0), // 19
+    (-138.3624531936707, 97.08757744835775, 1.0833333333333333, 21.0), // 20
+    (-148.52336745770285, 68.16582148993064, 0.5833333333333334, 15.0), // 21
+    (-139.62765861214328, 32.44056631781586, 0.5833333333333334, 10.0), // 22
+    (-130.44909820573037, -4.420623535025395, 0.954970230857445, 16.0), // 23
+];

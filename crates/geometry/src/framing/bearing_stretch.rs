@@ -9,7 +9,7 @@
 
 use glam::DVec3;
 
-use super::board::PieceSpec;
+use super::board::{PieceSpec, SeatWall};
 use super::{CutEnd, FaceTag, HalfSpace, Solid};
 
 /// How far (inches) a cheek corner may stand past a cut end or into a
@@ -36,11 +36,37 @@ pub fn lands_on_bearing(cut: &Solid, mating: &HalfSpace, bearing: &PieceSpec) ->
     let mut any = false;
     for p in corners {
         any = true;
-        if end_cuts.iter().any(|h| h.distance(p) > LAND_TOL_IN) || in_seat_notch(bearing, p) {
+        if end_cuts.iter().any(|h| h.distance(p) > LAND_TOL_IN)
+            || in_seat_notch(bearing, p)
+            || past_cut_wall_line(bearing, p)
+        {
             return false;
         }
     }
     any
+}
+
+/// The wall a seated member bears on at `p`: its one wall, or the wall
+/// under the half of the member (left or right of its centre line) that
+/// `p` lies on.
+fn seat_wall_at(bearing: &PieceSpec, p: DVec3) -> Option<&SeatWall> {
+    let fr = &bearing.frame;
+    match bearing.seat.as_slice() {
+        [one] => Some(one),
+        [left, right] => Some(if (p - fr.origin).dot(fr.side) >= 0.0 { left } else { right }),
+        _ => None,
+    }
+}
+
+/// Whether `p` lies past the wall line of a seated member with no tail:
+/// such a hip or valley (a side with no overhang) is cut plumb along its
+/// wall lines, and nothing of it is left outside them. A jack of the other
+/// side, whose tail runs out over that side's overhang, has nothing to
+/// bear on where its cheek falls out there: a hip running along its wall
+/// a hair inside the wall line, where walls meet nearly in line, leaves
+/// jacks that are only tails, their cheeks wholly outside the wall line.
+fn past_cut_wall_line(bearing: &PieceSpec, p: DVec3) -> bool {
+    !bearing.has_tail && seat_wall_at(bearing, p).is_some_and(|wall| wall.inside.distance(p) > LAND_TOL_IN)
 }
 
 /// Whether `p` lies where a seated member is notched: below the plate's
@@ -50,18 +76,8 @@ fn in_seat_notch(bearing: &PieceSpec, p: DVec3) -> bool {
     if p.z >= -LAND_TOL_IN {
         return false;
     }
-    let fr = &bearing.frame;
-    let wall = match bearing.seat.as_slice() {
-        [] => return false,
-        [one] => one,
-        [left, right] => {
-            if (p - fr.origin).dot(fr.side) >= 0.0 {
-                left
-            } else {
-                right
-            }
-        }
-        _ => return false,
+    let Some(wall) = seat_wall_at(bearing, p) else {
+        return false;
     };
     let Some(plate) = wall.plate_inner else {
         return false;
