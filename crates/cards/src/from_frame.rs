@@ -120,6 +120,12 @@ pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
              of plate, up to {} off its depth; walls nearly in line often cause this",
             length(*cut_in)
         ),
+        FramingWarning::TailsLeftOut { count, .. } => format!(
+            "cut at the wall line (no overhang on one side), with the other side's jacks meeting it only \
+             outside the wall line: {count} such {} left out, so that stretch of overhang has no rafter tails; \
+             frame it with lookouts or blocking fixed to the wall",
+            if *count == 1 { "jack is" } else { "jacks are" }
+        ),
     }
 }
 

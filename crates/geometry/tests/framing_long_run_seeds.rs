@@ -1166,6 +1166,21 @@ fn jacks_that_are_only_tails_past_a_hip_cut_at_its_wall_line_are_left_out() {
         .filter(|p| p.plan_line[0].y.abs() < 1.0 && (302.6..458.1).contains(&p.plan_line[0].x))
         .count();
     assert_eq!(on_wall_3, 0, "hip jacks laid out on wall 3");
+    // The framer is told how many: the layout's 24 in marks from corner 0
+    // fall on wall 3 at x = 312, 336, ..., 432 (derived from the walls and
+    // the default spacing; the mark at 456, 2 in from the corner at
+    // 458.05 where the hips crowd, had no jack before either).
+    let left_out: Vec<(&str, usize)> = frame
+        .members
+        .iter()
+        .flat_map(|m| &m.warnings)
+        .filter_map(|w| match w {
+            FramingWarning::TailsLeftOut { label, count } => Some((label.as_str(), *count)),
+            _ => None,
+        })
+        .collect();
+    assert_eq!(left_out.len(), 1, "{left_out:?}");
+    assert_eq!(left_out[0].1, 6, "{left_out:?}");
 }
 
 /// Seed 871: the same on a star plan. Walls 3 and 4 run in line at one

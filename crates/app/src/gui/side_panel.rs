@@ -228,6 +228,12 @@ fn warning_text(units: DisplayUnits, warning: &FramingWarning) -> String {
              top of plate, up to {} off its depth; walls nearly in line often cause this",
             inches_text(units, *cut_in)
         ),
+        FramingWarning::TailsLeftOut { count, .. } => format!(
+            "Cut at the wall line (no overhang on one side), with the other side's jacks meeting it only \
+             outside the wall line: {count} such {} left out, so that stretch of overhang has no rafter tails; \
+             frame it with lookouts or blocking fixed to the wall",
+            if *count == 1 { "jack is" } else { "jacks are" }
+        ),
     }
 }
 

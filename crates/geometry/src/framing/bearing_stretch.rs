@@ -29,12 +29,8 @@ pub fn lands_on_bearing(cut: &Solid, mating: &HalfSpace, bearing: &PieceSpec) ->
                 && h.normal.z.abs() < 1e-9
         })
         .collect();
-    let corners = cut
-        .faces()
-        .filter(|f| f.normal.dot(mating.normal) > 1.0 - 1e-9 && mating.distance(f.vertices[0]).abs() < 1e-5)
-        .flat_map(|f| f.vertices.iter().copied());
     let mut any = false;
-    for p in corners {
+    for p in mating_corners(cut, mating) {
         any = true;
         if end_cuts.iter().any(|h| h.distance(p) > LAND_TOL_IN)
             || in_seat_notch(bearing, p)
@@ -44,6 +40,20 @@ pub fn lands_on_bearing(cut: &Solid, mating: &HalfSpace, bearing: &PieceSpec) ->
         }
     }
     any
+}
+
+/// Whether some corner of `cut`'s face in the plane `mating` lies outside
+/// the wall line along which `bearing`, a hip or valley with no tail, is
+/// cut (see [`past_cut_wall_line`]).
+pub fn cheek_past_cut_wall_line(cut: &Solid, mating: &HalfSpace, bearing: &PieceSpec) -> bool {
+    mating_corners(cut, mating).any(|p| past_cut_wall_line(bearing, p))
+}
+
+/// The corners of `cut`'s faces lying in the plane `mating`.
+fn mating_corners<'a>(cut: &'a Solid, mating: &'a HalfSpace) -> impl Iterator<Item = DVec3> + 'a {
+    cut.faces()
+        .filter(|f| f.normal.dot(mating.normal) > 1.0 - 1e-9 && mating.distance(f.vertices[0]).abs() < 1e-5)
+        .flat_map(|f| f.vertices.iter().copied())
 }
 
 /// The wall a seated member bears on at `p`: its one wall, or the wall

@@ -3,7 +3,7 @@
 use glam::DVec2;
 use serde::Serialize;
 
-use super::bearing_stretch::lands_on_bearing;
+use super::bearing_stretch::{cheek_past_cut_wall_line, lands_on_bearing};
 use super::board::{PieceSpec, SolidScratch};
 use super::builders::{Bearing, Ctx, left_out_lines};
 use super::checks::piece_checks;
@@ -297,16 +297,29 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     // crowded node) is not cut at all: drop it and the joints naming it.
     // A jack whose cheek falls where its hip or valley is cut away at a
     // node or notched over a plate has nothing to bear on: left out.
+    // Jacks left out as only tails past a hip's or valley's cut wall line
+    // leave that overhang without tails: counted on the hip or valley.
     let mut off_bearing = vec![false; specs.len()];
+    let mut tails_left_out = vec![0usize; specs.len()];
     for j in &joint_specs {
         let jack = matches!(
             specs[j.cut].kind,
             MemberKind::HipJack | MemberKind::ValleyJack | MemberKind::CrippleJack
         );
         let on_line = matches!(specs[j.bearing].kind, MemberKind::Hip | MemberKind::Valley);
-        if jack && on_line && !lands_on_bearing(&solids[j.cut], &j.mating, &specs[j.bearing]) {
+        if jack
+            && on_line
+            && !off_bearing[j.cut]
+            && !lands_on_bearing(&solids[j.cut], &j.mating, &specs[j.bearing])
+        {
             off_bearing[j.cut] = true;
+            if cheek_past_cut_wall_line(&solids[j.cut], &j.mating, &specs[j.bearing]) {
+                tails_left_out[j.bearing] += 1;
+            }
         }
+    }
+    for (i, &count) in tails_left_out.iter().enumerate().filter(|(_, c)| **c > 0) {
+        warnings_extra.push((i, FramingWarning::TailsLeftOut { label: String::new(), count }));
     }
     let usable = |i: usize| {
         !off_bearing[i]
@@ -403,6 +416,9 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             }
             FramingWarning::HipCutLevelAtPlate { cut_in, .. } => {
                 FramingWarning::HipCutLevelAtPlate { label: labels.labels[i].clone(), cut_in }
+            }
+            FramingWarning::TailsLeftOut { count, .. } => {
+                FramingWarning::TailsLeftOut { label: labels.labels[i].clone(), count }
             }
             other => other,
         };

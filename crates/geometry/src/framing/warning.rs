@@ -109,6 +109,18 @@ pub enum FramingWarning {
         /// Largest overlap of the two pieces, inches.
         overlap_in: f64,
     },
+    /// A hip or valley with no tail (a side with no overhang) is cut plumb
+    /// along its wall lines, and the other side's jacks that would meet it
+    /// only outside the wall line, tails with nothing to bear on, are left
+    /// out: a hip running along its wall a hair inside the line, where walls
+    /// meet nearly in line. That stretch of overhang has no rafter tails;
+    /// frame it with lookouts or blocking fixed to the wall.
+    TailsLeftOut {
+        /// The hip or valley.
+        label: String,
+        /// How many jacks are left out.
+        count: usize,
+    },
     /// Hips meet at a point with no ridge (a peak, or where two hips merge
     /// into one on an irregular plan): the ends there are cut plumb, square
     /// to the hip, at the theoretical point, and need a fitted block or hub.
@@ -128,6 +140,7 @@ impl FramingWarning {
             | Self::HipsMeetWithoutRidge { label }
             | Self::HipCutLevelAtPlate { label, .. }
             | Self::ShortMemberLeftOut { label, .. }
+            | Self::TailsLeftOut { label, .. }
             | Self::JointDoesNotFit { label, .. } => label,
             Self::HipTooShallow { jack, .. } => jack,
             Self::RidgeTooShallow { rafter, .. } => rafter,
