@@ -5,26 +5,31 @@
 //! from the walls beside it.
 
 use glam::dvec2;
-use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof, check_roof};
+use pitchframe_geometry::{Outline, Roof, RoofDefect, RoofLineKind, Wall, WallRoof, check_roof};
 
 /// One wall: its first corner, rise per run (0 for a gable) and overhang.
 type WallRow = (f64, f64, f64, f64);
 
-fn outline(rows: &[WallRow]) -> Outline {
-    let walls = rows
-        .iter()
+fn walls(rows: &[WallRow]) -> Vec<Wall> {
+    rows.iter()
         .map(|&(x, y, slope, overhang_in)| Wall {
             corner: dvec2(x, y),
             roof: if slope > 0.0 { WallRoof::Pitched { rise_per_run: slope } } else { WallRoof::Gable },
             overhang_in,
         })
-        .collect();
-    Outline::new(walls, Vec::new()).unwrap_or_else(|e| panic!("outline: {e}"))
+        .collect()
 }
 
 /// Solves an outline and asserts the roof check finds nothing.
 fn checked(rows: &[WallRow]) -> (Outline, Roof) {
-    let o = outline(rows);
+    checked_round(rows, &[])
+}
+
+/// Solves an outline with courtyards (their walls numbered on from the
+/// outer ring's) and asserts the roof check finds nothing.
+fn checked_round(rows: &[WallRow], courtyards: &[&[WallRow]]) -> (Outline, Roof) {
+    let o = Outline::new(walls(rows), courtyards.iter().map(|c| walls(c)).collect())
+        .unwrap_or_else(|e| panic!("outline: {e}"));
     let roof = Roof::solve(&o).unwrap_or_else(|e| panic!("solve: {e}"));
     let defects = check_roof(&o, &roof);
     assert!(defects.is_empty(), "{defects:?}");
@@ -115,6 +120,39 @@ fn seed_860742_the_line_between_nearly_facing_walls_is_a_hip() {
 fn seed_612468_the_line_beside_a_sliver_is_a_valley() {
     let (_, roof) = checked(&SEED_612468);
     assert_eq!(kinds_between(&roof, 34, 35), vec![RoofLineKind::Valley]);
+}
+
+/// Seed 1029986: walls 14 and 16 (13/12 and 4/12, 0.016 and 0.022 in
+/// long) stand either side of wall 15 (6/12, 74.6 in), all three nearly
+/// in line along the west side, wall 15 bent 0.43 in into the plan.
+/// Plane 15 tops out first, where planes 14, 15 and 16 meet at 0.12604
+/// in (planes 15, 16 and 17 would meet only 1,172 in up the side, outside
+/// the plan); planes 14 and 16 then meet over 0.017 in until plane 17
+/// closes them off at 0.12605 in. From wall 14's direction to wall 16's
+/// the outline turns right (by 0.0015 rad): where their two fronts meet
+/// the roof's level lines turn inward, a reflex corner, whose crease is
+/// a valley (derived here, no source). The check had read plane 14's
+/// side from the wrong one of its two edges round the valley's end and
+/// called it a hip; a hip reported there is still found.
+#[test]
+fn seed_1029986_a_short_line_between_walls_turning_inward_is_a_valley() {
+    let rows = &SEED_1029986;
+    let dir = |w: usize| {
+        let (x0, y0, ..) = rows[w];
+        let (x1, y1, ..) = rows[(w + 1) % rows.len()];
+        dvec2(x1 - x0, y1 - y0).normalize()
+    };
+    assert!(dir(14).perp_dot(dir(16)) < 0.0, "walls 14 to 16 turn right");
+    let (o, roof) = checked_round(rows, &[&SEED_1029986_COURTYARD]);
+    assert_eq!(kinds_between(&roof, 14, 16), vec![RoofLineKind::Valley]);
+    let mut wrong = roof.clone();
+    for line in wrong.lines.iter_mut().filter(|l| l.walls == [14, 16]) {
+        line.kind = RoofLineKind::Hip;
+    }
+    assert!(check_roof(&o, &wrong).iter().any(|d| matches!(
+        d,
+        RoofDefect::LineKindWrong { found: RoofLineKind::Hip, expected: RoofLineKind::Valley, .. }
+    )));
 }
 
 #[rustfmt::skip]
@@ -290,4 +328,35 @@ const SEED_612468: [WallRow; 40] = [
     (559.5065160589909, 337.0681289126509, 1.25, 4.0), // 37
     (0.014750875106658458, 337.0681289126509, 0.75, 14.0), // 38
     (0.0, 337.05337803754423, 0.4166666666666667, 2.0), // 39
+];
+
+#[rustfmt::skip]
+const SEED_1029986: [WallRow; 19] = [
+    (0.0, 0.0, 1.290831267791248, 3.0), // 0
+    (67.28055777601053, 0.0, 1.290831267791248, 12.0), // 1
+    (169.468121373017, 0.0, 1.290831267791248, 21.0), // 2
+    (271.9369047198872, 0.0, 1.290831267791248, 23.0), // 3
+    (470.3931483503858, 0.0, 0.16666666666666666, 12.0), // 4
+    (470.4108578357657, -1.5227150891295747e-5, 0.8333333333333334, 22.0), // 5
+    (530.4115410884431, -0.10319610602232204, 1.0, 23.0), // 6
+    (568.1371074415239, 0.0, 1.3937985994708295, 7.0), // 7
+    (568.1371074415239, 975.5069566539197, 0.9960405987452621, 24.0), // 8
+    (568.1185458139815, 975.525518281462, 1.3688188323680557, 6.0), // 9
+    (0.0, 975.525518281462, 1.1666666666666667, 14.0), // 10
+    (0.0, 814.7933955733056, 1.1666666666666667, 1.0), // 11
+    (0.0, 515.3751098525565, 1.5, 15.0), // 12
+    (3.03467673837214e-5, 515.3547523496431, 1.3333333333333333, 10.0), // 13
+    (0.43128281027088383, 370.7066640984944, 1.0833333333333333, 7.0), // 14
+    (0.4312606647406427, 370.6908540071501, 0.5, 1.0), // 15
+    (6.356244942588087e-5, 296.1265214015605, 0.3333333333333333, 22.0), // 16
+    (0.0, 296.10453827032444, 0.25, 14.0), // 17
+    (0.0, 132.71318326133002, 0.25, 21.0), // 18
+];
+
+#[rustfmt::skip]
+const SEED_1029986_COURTYARD: [WallRow; 4] = [
+    (270.69062162994095, 719.7005293100751, 1.0833333333333333, 23.0), // 0
+    (327.4986658407134, 719.7005293100751, 0.16666666666666666, 5.0), // 1
+    (327.4986658407134, 647.8555184137774, 1.25, 19.0), // 2
+    (270.69062162994095, 647.8555184137774, 0.5833333333333334, 24.0), // 3
 ];
