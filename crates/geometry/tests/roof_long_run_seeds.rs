@@ -155,6 +155,35 @@ fn seed_1029986_a_short_line_between_walls_turning_inward_is_a_valley() {
     )));
 }
 
+/// Seed 1023338: the low plane of wall 7 (5/12, running west along y =
+/// 138.06, roof to the south) runs all round a courtyard's roof (walls
+/// 11 to 14), so its outline takes the courtyard's roof in by a cut. The
+/// cut had joined the nearest two corners, which lay across the
+/// courtyard's roof, and the outline crossed itself. The plane meets
+/// the courtyard's south wall 11 (17/12, along y = 107.14, roof to the
+/// south) where `5/12 (138.06 - y) = 17/12 (107.14 - y)` and its north
+/// wall 13 (12/12, along y = 119.70, roof to the north) where `5/12
+/// (138.06 - y) = (y - 119.70)`: level lines, each plane the lower on
+/// its own side, so ridges (derived here, no source).
+#[test]
+fn seed_1023338_a_plane_round_a_courtyard_meets_its_roof_in_two_ridges() {
+    let (outer, court) = (&SEED_1023338, &SEED_1023338_COURTYARD);
+    let (_, roof) = checked_round(outer, &[court]);
+    let (y7, r7) = (outer[7].1, outer[7].2);
+    let (y11, r11) = (court[0].1, court[0].2);
+    let (y13, r13) = (court[2].1, court[2].2);
+    let south = (r11 * y11 - r7 * y7) / (r11 - r7);
+    let north = (r7 * y7 + r13 * y13) / (r7 + r13);
+    for (wall, y) in [(11, south), (13, north)] {
+        let lines: Vec<_> = roof.lines.iter().filter(|l| l.walls == [7, wall]).collect();
+        assert_eq!(lines.len(), 1, "wall {wall}");
+        assert_eq!(lines[0].kind, RoofLineKind::Ridge, "wall {wall}");
+        for end in [lines[0].from, lines[0].to] {
+            assert!((end.y - y).abs() < 1e-6, "wall {wall}: {end} against y = {y}");
+        }
+    }
+}
+
 #[rustfmt::skip]
 const SEED_81876: [WallRow; 14] = [
     (0.0, 143.47238364116023, 1.1666666666666667, 18.0), // 0
@@ -359,4 +388,27 @@ const SEED_1029986_COURTYARD: [WallRow; 4] = [
     (327.4986658407134, 719.7005293100751, 0.16666666666666666, 5.0), // 1
     (327.4986658407134, 647.8555184137774, 1.25, 19.0), // 2
     (270.69062162994095, 647.8555184137774, 0.5833333333333334, 24.0), // 3
+];
+
+#[rustfmt::skip]
+const SEED_1023338: [WallRow; 11] = [
+    (0.0, 69.02810100639056, 1.3333333333333333, 3.0), // 0
+    (176.90585331614116, 69.02810100639056, 0.16666666666666666, 4.0), // 1
+    (176.91785589651738, 69.01609842601434, 0.8333333333333334, 7.0), // 2
+    (176.91785589651738, 0.0, 1.25, 4.0), // 3
+    (530.7535676895521, 0.0, 0.0, 19.0), // 4
+    (530.7535676895521, 69.02810100639056, 1.0833333333333333, 14.0), // 5
+    (707.6714235860695, 69.02810100639056, 0.9166666666666666, 22.0), // 6
+    (707.6714235860695, 138.0562020127811, 0.4166666666666667, 3.0), // 7
+    (353.83571179303476, 138.0562020127811, 1.5, 6.0), // 8
+    (353.83571179303476, 207.08430301917167, 0.0, 18.0), // 9
+    (0.0, 207.08430301917167, 1.5, 15.0), // 10
+];
+
+#[rustfmt::skip]
+const SEED_1023338_COURTYARD: [WallRow; 4] = [
+    (512.9173633349681, 107.14174068231203, 1.4166666666666667, 21.0), // 0
+    (528.5657538042678, 107.14174068231203, 0.25, 1.0), // 1
+    (528.5657538042678, 119.6953552416246, 1.0, 24.0), // 2
+    (512.9173633349681, 119.6953552416246, 0.75, 19.0), // 3
 ];
