@@ -17,6 +17,7 @@ use glam::DVec2;
 #[path = "skeleton/mod.rs"]
 mod skeleton;
 
+use crate::outline::{Meeting, segments_meet};
 use crate::{Outline, Wall, WallRoof};
 use skeleton::eaves::{EdgeSide, eave_outline};
 use skeleton::lines::WallLine;
@@ -720,13 +721,23 @@ fn crossing_direction(a: &WallLine, b: &WallLine) -> DVec3 {
     normal(a).cross(normal(b))
 }
 
-/// The face's outer walk with each inner loop joined in by a cut: from the
-/// outer node nearest the loop, round the loop, and back along the cut.
-/// Such a plane (a low-pitch plane flowing all round a courtyard's island
-/// of steeper planes) stays one outline whose shoelace area is right.
+/// The face's outer walk with each inner loop joined in by a cut: from an
+/// outer node to a node of the loop, round the loop, and back along the
+/// cut. Such a plane (a low-pitch plane flowing all round a courtyard's
+/// island of steeper planes) stays one outline whose shoelace area is
+/// right.
+///
+/// The cut joins the nearest pair of nodes whose straight line meets no
+/// edge of the face but at its own two ends. The nearest pair alone can
+/// cut across the island: a corner of the island near the outer walk but
+/// round the island's far side from it (long-run seed 1023338, plane 6:
+/// the nearest pair, 41.7 in apart, ran through two island planes, so the
+/// outline crossed itself and overlapped them; the nearest clear pair is
+/// 42.6 in apart). Should no pair be clear (another inner loop in the way
+/// of every one), the nearest pair is taken.
 fn with_holes(face: &[usize], holes: &[Vec<usize>], pos: &dyn Fn(usize) -> DVec2) -> Vec<usize> {
     let mut out = face.to_vec();
-    for lp in holes {
+    for (h, lp) in holes.iter().enumerate() {
         let mut best: Option<(f64, usize, usize)> = None;
         // Never cut from the wall's own two corners, which lead the outline.
         for (i, &a) in out.iter().enumerate().skip(2) {
@@ -737,6 +748,26 @@ fn with_holes(face: &[usize], holes: &[Vec<usize>], pos: &dyn Fn(usize) -> DVec2
                 }
             }
         }
+        let clear = |&(_, i, j): &(f64, usize, usize)| match (out.get(i), lp.get(j)) {
+            (Some(&a), Some(&b)) => {
+                let rest = holes.get(h..).unwrap_or_default();
+                cut_is_clear(pos(a), pos(b), std::iter::once(&out).chain(rest), pos)
+            }
+            _ => false,
+        };
+        // Most nearest pairs are clear; only when one is not are the
+        // others ranked (a stable sort, so of pairs equally near the first
+        // found wins, as above).
+        if let Some(nearest) = best
+            && !clear(&nearest)
+        {
+            let mut pairs: Vec<(f64, usize, usize)> = (2..out.len())
+                .flat_map(|i| (0..lp.len()).map(move |j| (i, j)))
+                .filter_map(|(i, j)| Some((pos(*out.get(i)?).distance_squared(pos(*lp.get(j)?)), i, j)))
+                .collect();
+            pairs.sort_by(|x, y| x.0.total_cmp(&y.0));
+            best = pairs.into_iter().find(|p| clear(p)).or(best);
+        }
         let Some((_, i, j)) = best else { continue };
         let Some(&at) = out.get(i) else { continue };
         let k = lp.len();
@@ -745,6 +776,26 @@ fn with_holes(face: &[usize], holes: &[Vec<usize>], pos: &dyn Fn(usize) -> DVec2
         out.splice(i + 1..i + 1, insert);
     }
     out
+}
+
+/// Whether the plan segment `p q` meets no edge of the closed walks
+/// `rings` (node lists) but at `p` or `q` themselves: an edge with an end
+/// at either point is passed over, any other edge touching the segment
+/// blocks it (exact predicates).
+fn cut_is_clear<'a>(
+    p: DVec2,
+    q: DVec2,
+    mut rings: impl Iterator<Item = &'a Vec<usize>>,
+    pos: &dyn Fn(usize) -> DVec2,
+) -> bool {
+    rings.all(|ring| {
+        let k = ring.len();
+        (0..k).all(|m| {
+            let (Some(&c), Some(&d)) = (ring.get(m), ring.get((m + 1) % k)) else { return true };
+            let (c, d) = (pos(c), pos(d));
+            [c, d].iter().any(|&x| x == p || x == q) || segments_meet(p, q, c, d) == Meeting::Apart
+        })
+    })
 }
 
 /// Joins segments (node pairs) that continue each other in a straight line.
@@ -774,4 +825,33 @@ fn merge_segments(segs: &[(usize, usize)], pos: &dyn Fn(usize) -> DVec2, tol: f6
         }
     }
     out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn a_hole_is_cut_in_from_the_nearest_corner_it_can_be_reached_from_straight() {
+        // A 200 in square with a node on its north side at (100, 200), and
+        // a hole below it shaped like a trapezoid, 80 in wide along y = 180
+        // and 20 in wide along y = 170 (clockwise, as holes are). The
+        // narrow side's corners are the nearest to the node (31.6 in), but
+        // seen from it they lie behind the wide side; the wide side's
+        // corners are 44.7 in from it, in plain sight (derived here).
+        let points = [
+            DVec2::new(0.0, 0.0),
+            DVec2::new(200.0, 0.0),
+            DVec2::new(200.0, 200.0),
+            DVec2::new(100.0, 200.0),
+            DVec2::new(0.0, 200.0),
+            DVec2::new(60.0, 180.0),
+            DVec2::new(140.0, 180.0),
+            DVec2::new(110.0, 170.0),
+            DVec2::new(90.0, 170.0),
+        ];
+        let pos = |n: usize| points[n];
+        let joined = with_holes(&[0, 1, 2, 3, 4], &[vec![5, 6, 7, 8]], &pos);
+        assert_eq!(joined, vec![0, 1, 2, 3, 5, 6, 7, 8, 5, 3, 4]);
+    }
 }

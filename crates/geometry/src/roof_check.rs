@@ -903,10 +903,9 @@ fn check_lines(
                     let off: f64 = ends.iter().map(|&x| distance_to_segment(x, a, b)).sum();
                     (off, f, (b - a).perp())
                 })
-                .min_by(|x, y| x.0.total_cmp(&y.0))
-                .map(|(_, f, into)| (f, into));
-            if let Some((face, into)) = edge {
-                sides.push((face, into));
+                .min_by(|x, y| x.0.total_cmp(&y.0));
+            if let Some((off, face, into)) = edge {
+                sides.push((face, into, off));
             }
             groups.push(members);
         }
@@ -917,7 +916,20 @@ fn check_lines(
                 }
             }
         }
-        if let [(fa, into_a), (fb, _)] = &sides[..] {
+        if let [(fa, into_a, off_a), (fb, into_b, off_b)] = &sides[..] {
+            // Which side of the line plane `fa` lies on, read from the
+            // plane whose edge fits the line more closely. On a line not
+            // much longer than the tolerance one plane's edge may be the
+            // line itself while the other plane wraps the line's end
+            // within the tolerance: at the tip of a thin wedge both edges
+            // of the wedge run within the tolerance of the line, the line
+            // may lie between them, and the nearer of the two can be the
+            // one on the far side (long-run seed 1029986: plane 14's tip
+            // round a valley 0.017 in long to plane 16, whose edge is the
+            // valley to the bit; plane 14's outline drops the valley's
+            // upper end, 5e-5 in off its edge). The other plane lies on
+            // the far side of its own edge along the line.
+            let into_a = if off_a <= off_b { *into_a } else { -*into_b };
             let rise_into_a = (fa.inward * fa.slope - fb.inward * fb.slope).dot(into_a.normalize_or_zero());
             // The planes' line of intersection, from their normals: its
             // slope tells a ridge (level) from a hip, whatever the ends say.

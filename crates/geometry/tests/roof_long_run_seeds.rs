@@ -5,26 +5,31 @@
 //! from the walls beside it.
 
 use glam::dvec2;
-use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof, check_roof};
+use pitchframe_geometry::{Outline, Roof, RoofDefect, RoofLineKind, Wall, WallRoof, check_roof};
 
 /// One wall: its first corner, rise per run (0 for a gable) and overhang.
 type WallRow = (f64, f64, f64, f64);
 
-fn outline(rows: &[WallRow]) -> Outline {
-    let walls = rows
-        .iter()
+fn walls(rows: &[WallRow]) -> Vec<Wall> {
+    rows.iter()
         .map(|&(x, y, slope, overhang_in)| Wall {
             corner: dvec2(x, y),
             roof: if slope > 0.0 { WallRoof::Pitched { rise_per_run: slope } } else { WallRoof::Gable },
             overhang_in,
         })
-        .collect();
-    Outline::new(walls, Vec::new()).unwrap_or_else(|e| panic!("outline: {e}"))
+        .collect()
 }
 
 /// Solves an outline and asserts the roof check finds nothing.
 fn checked(rows: &[WallRow]) -> (Outline, Roof) {
-    let o = outline(rows);
+    checked_round(rows, &[])
+}
+
+/// Solves an outline with courtyards (their walls numbered on from the
+/// outer ring's) and asserts the roof check finds nothing.
+fn checked_round(rows: &[WallRow], courtyards: &[&[WallRow]]) -> (Outline, Roof) {
+    let o = Outline::new(walls(rows), courtyards.iter().map(|c| walls(c)).collect())
+        .unwrap_or_else(|e| panic!("outline: {e}"));
     let roof = Roof::solve(&o).unwrap_or_else(|e| panic!("solve: {e}"));
     let defects = check_roof(&o, &roof);
     assert!(defects.is_empty(), "{defects:?}");
@@ -202,6 +207,69 @@ fn seed_664224_slivers_side_by_side_are_joined_by_their_lines() {
 fn seed_727620_slivers_side_by_side_are_joined_by_their_lines() {
     let (_, roof) = checked(&SEED_727620);
     assert_every_corner_starts_its_line(&SEED_727620, &roof);
+}
+
+
+/// Seed 1029986: walls 14 and 16 (13/12 and 4/12, 0.016 and 0.022 in
+/// long) stand either side of wall 15 (6/12, 74.6 in), all three nearly
+/// in line along the west side, wall 15 bent 0.43 in into the plan.
+/// Plane 15 tops out first, where planes 14, 15 and 16 meet at 0.12604
+/// in (planes 15, 16 and 17 would meet only 1,172 in up the side, outside
+/// the plan); planes 14 and 16 then meet over 0.017 in until plane 17
+/// closes them off at 0.12605 in. From wall 14's direction to wall 16's
+/// the outline turns right (by 0.0015 rad): where their two fronts meet
+/// the roof's level lines turn inward, a reflex corner, whose crease is
+/// a valley (derived here, no source). The check had read plane 14's
+/// side from the wrong one of its two edges round the valley's end and
+/// called it a hip; a hip reported there is still found.
+#[test]
+fn seed_1029986_a_short_line_between_walls_turning_inward_is_a_valley() {
+    let rows = &SEED_1029986;
+    let dir = |w: usize| {
+        let (x0, y0, ..) = rows[w];
+        let (x1, y1, ..) = rows[(w + 1) % rows.len()];
+        dvec2(x1 - x0, y1 - y0).normalize()
+    };
+    assert!(dir(14).perp_dot(dir(16)) < 0.0, "walls 14 to 16 turn right");
+    let (o, roof) = checked_round(rows, &[&SEED_1029986_COURTYARD]);
+    assert_eq!(kinds_between(&roof, 14, 16), vec![RoofLineKind::Valley]);
+    let mut wrong = roof.clone();
+    for line in wrong.lines.iter_mut().filter(|l| l.walls == [14, 16]) {
+        line.kind = RoofLineKind::Hip;
+    }
+    assert!(check_roof(&o, &wrong).iter().any(|d| matches!(
+        d,
+        RoofDefect::LineKindWrong { found: RoofLineKind::Hip, expected: RoofLineKind::Valley, .. }
+    )));
+}
+
+/// Seed 1023338: the low plane of wall 7 (5/12, running west along y =
+/// 138.06, roof to the south) runs all round a courtyard's roof (walls
+/// 11 to 14), so its outline takes the courtyard's roof in by a cut. The
+/// cut had joined the nearest two corners, which lay across the
+/// courtyard's roof, and the outline crossed itself. The plane meets
+/// the courtyard's south wall 11 (17/12, along y = 107.14, roof to the
+/// south) where `5/12 (138.06 - y) = 17/12 (107.14 - y)` and its north
+/// wall 13 (12/12, along y = 119.70, roof to the north) where `5/12
+/// (138.06 - y) = (y - 119.70)`: level lines, each plane the lower on
+/// its own side, so ridges (derived here, no source).
+#[test]
+fn seed_1023338_a_plane_round_a_courtyard_meets_its_roof_in_two_ridges() {
+    let (outer, court) = (&SEED_1023338, &SEED_1023338_COURTYARD);
+    let (_, roof) = checked_round(outer, &[court]);
+    let (y7, r7) = (outer[7].1, outer[7].2);
+    let (y11, r11) = (court[0].1, court[0].2);
+    let (y13, r13) = (court[2].1, court[2].2);
+    let south = (r11 * y11 - r7 * y7) / (r11 - r7);
+    let north = (r7 * y7 + r13 * y13) / (r7 + r13);
+    for (wall, y) in [(11, south), (13, north)] {
+        let lines: Vec<_> = roof.lines.iter().filter(|l| l.walls == [7, wall]).collect();
+        assert_eq!(lines.len(), 1, "wall {wall}");
+        assert_eq!(lines[0].kind, RoofLineKind::Ridge, "wall {wall}");
+        for end in [lines[0].from, lines[0].to] {
+            assert!((end.y - y).abs() < 1e-6, "wall {wall}: {end} against y = {y}");
+        }
+    }
 }
 
 #[rustfmt::skip]
@@ -549,4 +617,58 @@ const SEED_727620: [WallRow; 34] = [
     (247.6581687344731, 103.30720720730375, 0.9166666666666666, 23.0), // 31
     (0.0, 103.30720720730375, 1.1666666666666667, 18.0), // 32
     (0.14581355961332396, 46.81381945604035, 0.6666666666666666, 24.0), // 33
+];
+
+#[rustfmt::skip]
+const SEED_1029986: [WallRow; 19] = [
+    (0.0, 0.0, 1.290831267791248, 3.0), // 0
+    (67.28055777601053, 0.0, 1.290831267791248, 12.0), // 1
+    (169.468121373017, 0.0, 1.290831267791248, 21.0), // 2
+    (271.9369047198872, 0.0, 1.290831267791248, 23.0), // 3
+    (470.3931483503858, 0.0, 0.16666666666666666, 12.0), // 4
+    (470.4108578357657, -1.5227150891295747e-5, 0.8333333333333334, 22.0), // 5
+    (530.4115410884431, -0.10319610602232204, 1.0, 23.0), // 6
+    (568.1371074415239, 0.0, 1.3937985994708295, 7.0), // 7
+    (568.1371074415239, 975.5069566539197, 0.9960405987452621, 24.0), // 8
+    (568.1185458139815, 975.525518281462, 1.3688188323680557, 6.0), // 9
+    (0.0, 975.525518281462, 1.1666666666666667, 14.0), // 10
+    (0.0, 814.7933955733056, 1.1666666666666667, 1.0), // 11
+    (0.0, 515.3751098525565, 1.5, 15.0), // 12
+    (3.03467673837214e-5, 515.3547523496431, 1.3333333333333333, 10.0), // 13
+    (0.43128281027088383, 370.7066640984944, 1.0833333333333333, 7.0), // 14
+    (0.4312606647406427, 370.6908540071501, 0.5, 1.0), // 15
+    (6.356244942588087e-5, 296.1265214015605, 0.3333333333333333, 22.0), // 16
+    (0.0, 296.10453827032444, 0.25, 14.0), // 17
+    (0.0, 132.71318326133002, 0.25, 21.0), // 18
+];
+
+#[rustfmt::skip]
+const SEED_1029986_COURTYARD: [WallRow; 4] = [
+    (270.69062162994095, 719.7005293100751, 1.0833333333333333, 23.0), // 0
+    (327.4986658407134, 719.7005293100751, 0.16666666666666666, 5.0), // 1
+    (327.4986658407134, 647.8555184137774, 1.25, 19.0), // 2
+    (270.69062162994095, 647.8555184137774, 0.5833333333333334, 24.0), // 3
+];
+
+#[rustfmt::skip]
+const SEED_1023338: [WallRow; 11] = [
+    (0.0, 69.02810100639056, 1.3333333333333333, 3.0), // 0
+    (176.90585331614116, 69.02810100639056, 0.16666666666666666, 4.0), // 1
+    (176.91785589651738, 69.01609842601434, 0.8333333333333334, 7.0), // 2
+    (176.91785589651738, 0.0, 1.25, 4.0), // 3
+    (530.7535676895521, 0.0, 0.0, 19.0), // 4
+    (530.7535676895521, 69.02810100639056, 1.0833333333333333, 14.0), // 5
+    (707.6714235860695, 69.02810100639056, 0.9166666666666666, 22.0), // 6
+    (707.6714235860695, 138.0562020127811, 0.4166666666666667, 3.0), // 7
+    (353.83571179303476, 138.0562020127811, 1.5, 6.0), // 8
+    (353.83571179303476, 207.08430301917167, 0.0, 18.0), // 9
+    (0.0, 207.08430301917167, 1.5, 15.0), // 10
+];
+
+#[rustfmt::skip]
+const SEED_1023338_COURTYARD: [WallRow; 4] = [
+    (512.9173633349681, 107.14174068231203, 1.4166666666666667, 21.0), // 0
+    (528.5657538042678, 107.14174068231203, 0.25, 1.0), // 1
+    (528.5657538042678, 119.6953552416246, 1.0, 24.0), // 2
+    (512.9173633349681, 119.6953552416246, 0.75, 19.0), // 3
 ];
