@@ -1136,24 +1136,29 @@ fn a_hip_carrying_a_valleys_line_on_past_its_top_butts_against_it() {
 fn assert_king_stands_in(frame: &Frame, king_foot: glam::DVec2, node: glam::DVec2, into: glam::DVec2) {
     let half = FramingSettings::default().rafter.thickness_in / 2.0;
     let king = piece_ending_at(frame, MemberKind::KingCommon, 0, king_foot).expect("the passing king");
-    let rafter = |k: MemberKind| {
-        matches!(
-            k,
-            MemberKind::Common
-                | MemberKind::KingCommon
-                | MemberKind::HipJack
-                | MemberKind::ValleyJack
-                | MemberKind::CrippleJack
-        )
-    };
-    for (i, p) in frame.pieces.iter().enumerate().filter(|(i, p)| *i != king && rafter(p.kind)) {
-        let deepest = p
-            .solid
-            .vertices()
-            .map(|v| frame.pieces[king].solid.depth_of(v))
-            .chain(frame.pieces[king].solid.vertices().map(|v| p.solid.depth_of(v)))
-            .fold(0.0, f64::max);
-        assert!(deepest < FIT_IN, "{} (piece {i}) runs {deepest} in into the king", p.label);
+    // Rafters in one plane share their top and bottom planes, so two
+    // boards side by side overlap where their centre lines are less than
+    // a thickness apart in plan over a common stretch: no corner of either
+    // is inside the other to show it.
+    let [foot, top] = frame.pieces[king].plan_line;
+    let up = (top - foot).normalize();
+    for (i, p) in frame
+        .pieces
+        .iter()
+        .enumerate()
+        .filter(|(i, p)| *i != king && matches!(p.kind, MemberKind::Common | MemberKind::KingCommon))
+    {
+        let [a, b] = p.plan_line;
+        let parallel = (b - a).normalize().perp_dot(up).abs() < 1e-9;
+        let apart = (a - foot).perp_dot(up).abs();
+        let (lo, hi) =
+            ((a - foot).dot(up).min((b - foot).dot(up)), (a - foot).dot(up).max((b - foot).dot(up)));
+        let side_by_side = lo < foot.distance(top) && hi > 0.0;
+        assert!(
+            !(parallel && side_by_side && apart < 2.0 * half - FIT_IN),
+            "{} (piece {i}) lies {apart} in beside the king",
+            p.label
+        );
     }
     let ridge = frame
         .pieces
