@@ -1135,7 +1135,8 @@ fn a_hip_carrying_a_valleys_line_on_past_its_top_butts_against_it() {
 /// frame's own check and by parry.
 fn assert_king_stands_in(frame: &Frame, king_foot: glam::DVec2, node: glam::DVec2, into: glam::DVec2) {
     let half = FramingSettings::default().rafter.thickness_in / 2.0;
-    let king = piece_ending_at(frame, MemberKind::KingCommon, 0, king_foot).expect("the passing king");
+    let king = piece_ending_at(frame, MemberKind::KingCommon, 0, king_foot)
+        .unwrap_or_else(|| panic!("the passing king"));
     // Rafters in one plane share their top and bottom planes, so two
     // boards side by side overlap where their centre lines are less than
     // a thickness apart in plan over a common stretch: no corner of either
@@ -1164,14 +1165,15 @@ fn assert_king_stands_in(frame: &Frame, king_foot: glam::DVec2, node: glam::DVec
         .pieces
         .iter()
         .position(|p| p.kind == MemberKind::Ridge && p.plan_line.iter().any(|q| q.distance(node) < 1.0))
-        .expect("the ridge ending at the node");
+        .unwrap_or_else(|| panic!("the ridge ending at the node"));
     let nearest = frame.pieces[ridge]
         .solid
         .vertices()
         .map(|v| (v.truncate() - king_foot).dot(into))
         .fold(f64::INFINITY, f64::min);
     assert!(nearest > half - 1e-6, "the ridge reaches {nearest} in from the king's line");
-    let hip = piece_ending_at(frame, MemberKind::Hip, 1, node).expect("the hip ending at the node");
+    let hip = piece_ending_at(frame, MemberKind::Hip, 1, node)
+        .unwrap_or_else(|| panic!("the hip ending at the node"));
     for cut in [ridge, hip] {
         let joint = frame
             .joints
@@ -1188,7 +1190,6 @@ fn assert_king_stands_in(frame: &Frame, king_foot: glam::DVec2, node: glam::DVec
 }
 
 /// Seed 6038: a block in 3/12, its walls split in runs in line, with a courtyard at 13/12.
-
 #[rustfmt::skip]
 const SEED_6038: [WallRow; 12] = [
     (0.0, 564.6909940283906, 0.25, 8.0),
@@ -1235,7 +1236,6 @@ fn a_king_passing_a_short_ridges_hip_end_stands_in_for_its_king() {
 }
 
 /// Seed 13528: an orthogonal outline of 23 walls, mixed pitches.
-
 #[rustfmt::skip]
 const SEED_13528: [WallRow; 23] = [
     (0.0, 0.0, 1.0833333333333333, 17.0),
@@ -1285,7 +1285,6 @@ fn a_king_passing_a_ridges_hip_end_1_4_in_off_stands_in_for_its_king() {
 }
 
 /// Seed 16492: an orthogonal outline of 19 walls with a courtyard, mixed pitches.
-
 #[rustfmt::skip]
 const SEED_16492: [WallRow; 19] = [
     (0.0, 748.1741530962496, 1.0833333333333333, 8.0),
@@ -1339,7 +1338,6 @@ fn a_king_passing_a_ridges_hip_end_0_9_in_off_stands_in_for_its_king() {
 }
 
 /// Seed 16522: an orthogonal outline of 33 walls, mixed pitches.
-
 #[rustfmt::skip]
 const SEED_16522: [WallRow; 33] = [
     (297.9766610303755, 865.2752868500185, 0.4884651354221859, 5.0),
@@ -1400,7 +1398,6 @@ fn a_king_passing_a_ridges_hip_end_1_0_in_off_stands_in_for_its_king() {
 }
 
 /// Seed 17264: an orthogonal outline of 11 walls, mixed pitches.
-
 #[rustfmt::skip]
 const SEED_17264: [WallRow; 11] = [
     (0.0, 153.3116931199438, 0.4811107792596367, 19.0),
