@@ -76,8 +76,8 @@ pub struct RafterLine {
     /// Set for king commons.
     pub king: Option<King>,
     /// For a king common running on past another ridge's hip end less
-    /// than a rafter's thickness from that node, square to that ridge:
-    /// the node. Its own king in this plane is left out (the two boards
+    /// than a rafter's thickness from that node, at 30 degrees or more to
+    /// that ridge: the node. Its own king in this plane is left out (the two boards
     /// would overlap) and this one stands in for it
     /// ([`king_standing_in`]).
     pub stands_in_for: Option<DVec2>,
@@ -298,8 +298,8 @@ pub fn rafter_lines(
 /// that runs on and leaves the other out: `a`'s ridge end is then cut back
 /// to `b`'s side and the hip at `a`'s node bears on `b` (`b` cannot be
 /// cut short without losing its own ridge). Only where `a`'s ridge runs
-/// from the node away from `b`'s line at 30 degrees or more to the kings
-/// (the end then butts against `b`'s side) and not on past it: a ridge
+/// from the node away from `b`'s line, not across it, at 30 degrees or
+/// more to the kings (the end then butts against `b`'s side): a ridge
 /// running along the kings' line is another case (two ridges side by
 /// side), left as it is.
 pub fn king_standing_in(b: &RafterLine, a: &RafterLine, lines: &[PlanLine], thickness: f64) -> bool {
