@@ -461,11 +461,12 @@ impl Ctx<'_> {
     /// cut is left out between the two ridges or a ridge ends beside the
     /// king's line), each by rafter line with the king's side face the end
     /// is cut back to and whether it is at the ridge's start: the king runs
-    /// on past the end, which bears on its side. Not at a hip end (its
-    /// kings bear on the end), not a king at less than 30 degrees to the
-    /// ridge (the end would be cut back along its length: left to a fitted
-    /// block), and not where a rafter bearing on the end would lose its
-    /// bearing.
+    /// on past the end, which bears on its side. At a hip end (whose kings
+    /// bear on the end) only a king standing in for the end's own king in
+    /// its plane ([`super::layout::king_standing_in`]); not a king at less
+    /// than 30 degrees to the ridge (the end would be cut back along its
+    /// length: left to a fitted block), and not where a rafter bearing on
+    /// the end would lose its bearing.
     pub fn ridge_end_king_clearances(&self, li: usize, line: &PlanLine) -> Vec<(usize, HalfSpace, bool)> {
         let Some(dir) = (line.to - line.from).try_normalize() else {
             return Vec::new();
@@ -483,7 +484,9 @@ impl Ctx<'_> {
                 .lines
                 .iter()
                 .any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3);
-            if hip_end {
+            let standing_in =
+                |r: &RafterLine| r.stands_in_for.is_some_and(|n| n.distance(node) < PLAN_TOL_IN * 1e3);
+            if hip_end && !self.rafters.iter().any(standing_in) {
                 continue;
             }
             let end = node + out_dir * self.ridge_end_offset(li, -out_dir, node);
@@ -503,7 +506,7 @@ impl Ctx<'_> {
             let Some(end_part) = ConvexPart::from_half_spaces(&end_box) else { continue };
             let end_solid = Solid { parts: vec![end_part] };
             for (ri, r) in self.rafters.iter().enumerate() {
-                if r.king.is_none() || r.upper_edge == EdgeKind::Line(li) {
+                if r.king.is_none() || r.upper_edge == EdgeKind::Line(li) || (hip_end && !standing_in(r)) {
                     continue;
                 }
                 let Some(kd) = (r.upper - r.lower).try_normalize() else { continue };
@@ -965,11 +968,14 @@ impl Ctx<'_> {
             }
         }
         for &pi in &[left, right] {
-            // The king in this plane at the hip's top, if any.
+            // The king in this plane at the hip's top, if any, or the king
+            // standing in for it (running on past the node less than a
+            // rafter's thickness off): the cheek bears on its side.
             let king = self.rafters.iter().enumerate().find(|(_, r)| {
                 self.same_group(r.plane, pi)
                     && r.king.is_some()
-                    && r.upper.distance(line.to) < PLAN_TOL_IN * 1e3
+                    && (r.upper.distance(line.to) < PLAN_TOL_IN * 1e3
+                        || r.stands_in_for.is_some_and(|n| n.distance(line.to) < PLAN_TOL_IN * 1e3))
             });
             match king {
                 Some((ki, r)) => {

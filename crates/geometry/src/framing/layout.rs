@@ -75,6 +75,12 @@ pub struct RafterLine {
     pub upper_also: Option<EdgeKind>,
     /// Set for king commons.
     pub king: Option<King>,
+    /// For a king common running on past another ridge's hip end less
+    /// than a rafter's thickness from that node, at 30 degrees or more to
+    /// that ridge: the node. Its own king in this plane is left out (the two boards
+    /// would overlap) and this one stands in for it
+    /// ([`king_standing_in`]).
+    pub stands_in_for: Option<DVec2>,
 }
 
 impl RafterLine {
@@ -177,8 +183,18 @@ pub fn rafter_lines(
             upper_edge: EdgeKind::Line(ridge),
             upper_also: None,
             king: Some(king),
+            stands_in_for: None,
         });
         reserved.push(tau(node));
+    }
+    // Two kings in one plane less than a rafter's thickness apart cannot
+    // both be cut: the one running on past the other's node stands in for
+    // it, and that one is left out.
+    let kings_here = out.clone();
+    out.retain(|a| !kings_here.iter().any(|b| king_standing_in(b, a, lines, thickness)));
+    for b in &mut out {
+        b.stands_in_for =
+            kings_here.iter().find(|a| king_standing_in(b, a, lines, thickness)).map(|a| a.upper);
     }
 
     // Gable-end rafters: flush inside each rake edge running up the slope.
@@ -268,10 +284,48 @@ pub fn rafter_lines(
                 upper_edge,
                 upper_also,
                 king: None,
+                stands_in_for: None,
             },
         ));
     }
     out
+}
+
+/// Whether king `b` stands in for king `a` of the same plane (both square
+/// to its wall, `thickness` thick): `b`'s line passes `a`'s node less than
+/// a thickness off, so the two boards would overlap, and runs on past it
+/// by more than a thickness to a ridge further up. A framer cuts the one
+/// that runs on and leaves the other out: `a`'s ridge end is then cut back
+/// to `b`'s side and the hip at `a`'s node bears on `b` (`b` cannot be
+/// cut short without losing its own ridge). Only where `a`'s ridge runs
+/// from the node away from `b`'s line, not across it, at 30 degrees or
+/// more to the kings (the end then butts against `b`'s side): a ridge
+/// running along the kings' line is another case (two ridges side by
+/// side), left as it is.
+pub fn king_standing_in(b: &RafterLine, a: &RafterLine, lines: &[PlanLine], thickness: f64) -> bool {
+    let (Some(King::Side { ridge } | King::End { ridge }), Some(_)) = (a.king, b.king) else {
+        return false;
+    };
+    let Some(up) = (b.upper - b.lower).try_normalize() else { return false };
+    let Some(ridge_line) = lines.get(ridge) else { return false };
+    let into = if ridge_line.from.distance(a.upper) < ridge_line.to.distance(a.upper) {
+        ridge_line.to - ridge_line.from
+    } else {
+        ridge_line.from - ridge_line.to
+    };
+    let Some(into) = into.try_normalize() else { return false };
+    let rel = a.upper - b.lower;
+    // Across the kings' line from `b`'s centre line to `a`'s node.
+    let across = rel.perp_dot(up);
+    let runs_on = (b.upper - b.lower).dot(up) - rel.dot(up);
+    a.upper.distance(b.upper) > PLAN_TOL_IN * 1e3
+        && across.abs() < thickness
+        && runs_on > thickness
+        && rel.dot(up) > 0.0
+        && into.perp_dot(up).abs() >= 0.5
+        // The ridge runs from the node away from `b`'s line (the node on
+        // `b`'s line counts either way).
+        && (across.abs() < PLAN_TOL_IN * 1e3 || into.perp_dot(up) * across >= 0.0)
 }
 
 /// Clips the line through `base` up the slope to the plane's polygon: the
