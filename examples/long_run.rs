@@ -17,6 +17,15 @@
 //! With `LONG_RUN_FAILURES=FILE` set, every outline that fails an invariant
 //! or panics is also written to FILE, one line each (seed, a tab, the
 //! message), so the failing seeds of two builds can be compared.
+//!
+//! With `LONG_RUN_INTERFERENCE=1` set, every pair of a frame's pieces,
+//! joined or not, is also checked for wood shared (parry's contact depth
+//! between their solids, the measure of the interference tests), and a
+//! depth of 1/64 in or more is an invariant failure. It reads what the
+//! joint check never does (boards side by side or crossing with no joint
+//! between them); it is not yet part of the default run because random
+//! outlines fail it far more often than the joint check (see
+//! RELIABILITY.md, "Pieces sharing wood").
 
 use std::collections::HashMap;
 use std::io::Write;
@@ -27,6 +36,11 @@ use std::time::Instant;
 use pitchframe_geometry::{
     FramingSettings, OutlineFeatures, OutlineShape, Roof, check_roof, frame_roof, random_outline_or_refusal,
 };
+
+// Parry's reading of the pieces' solids, shared with the framing tests.
+#[allow(dead_code)]
+#[path = "../crates/geometry/tests/framing_support/parry_fit.rs"]
+mod parry_fit;
 
 // The allocator the app runs with, so the outlines a second are the app's.
 #[global_allocator]
@@ -94,7 +108,7 @@ fn feature_names(f: OutlineFeatures) -> Vec<&'static str> {
     all.iter().filter(|(on, _)| *on).map(|(_, name)| *name).collect()
 }
 
-fn run_one(seed: u64, settings: &FramingSettings) -> Outcome {
+fn run_one(seed: u64, settings: &FramingSettings, interference: bool) -> Outcome {
     // A draw the outline check refuses as a person's plan would be (a gable
     // nearly in line with a pitched wall) counts as refused, with its message.
     let outline = match random_outline_or_refusal(shape_of(seed), seed, OutlineFeatures::from_seed(seed)) {
@@ -123,6 +137,15 @@ fn run_one(seed: u64, settings: &FramingSettings) -> Outcome {
             "joint {} on {}: gap {:.4} in, overlap {:.4} in (worst in frame {worst_gap:.4} / {worst_overlap:.4})",
             j.members[0], j.members[1], j.max_gap, j.max_overlap
         ));
+    }
+    // Two boards sharing wood, joined or not (a king laid across a hip,
+    // ridges side by side): what the joint check alone never reads.
+    if interference {
+        let (depth, a, b, _unhulled) = parry_fit::interference_where_measurable(&frame, |_, _| false);
+        // A NaN depth fails too.
+        if depth >= JOINT_TOLERANCE_IN || depth.is_nan() {
+            return Outcome::Invariant(format!("pieces {a} and {b} overlap by {depth:.4} in"));
+        }
     }
     Outcome::Ok
 }
@@ -234,6 +257,7 @@ fn main() {
         }
     }));
     let settings = FramingSettings::default();
+    let interference = std::env::var_os("LONG_RUN_INTERFERENCE").is_some_and(|v| v == "1");
     let mut figures = Figures {
         first,
         ok: 0,
@@ -261,7 +285,7 @@ fn main() {
             break;
         }
         let t = Instant::now();
-        let outcome = catch_unwind(AssertUnwindSafe(|| run_one(seed, &settings)))
+        let outcome = catch_unwind(AssertUnwindSafe(|| run_one(seed, &settings, interference)))
             .unwrap_or_else(|_| Outcome::Panic(LAST_PANIC.lock().map(|s| s.clone()).unwrap_or_default()));
         let seconds = t.elapsed().as_secs_f64();
         if seconds > figures.slowest.0 {

@@ -209,7 +209,6 @@ fn seed_727620_slivers_side_by_side_are_joined_by_their_lines() {
     assert_every_corner_starts_its_line(&SEED_727620, &roof);
 }
 
-
 /// Seed 1029986: walls 14 and 16 (13/12 and 4/12, 0.016 and 0.022 in
 /// long) stand either side of wall 15 (6/12, 74.6 in), all three nearly
 /// in line along the west side, wall 15 bent 0.43 in into the plan.

@@ -94,33 +94,48 @@ pub fn worst_interference(frame: &Frame) -> (f64, String, String) {
 }
 
 /// As [`worst_interference`], leaving out the pairs of pieces `skip`
-/// names (by index).
+/// names (by index). Panics where parry cannot hull a part.
 pub fn worst_interference_except(
     frame: &Frame,
     skip: impl Fn(usize, usize) -> bool,
 ) -> (f64, String, String) {
+    let (depth, a, b, unhulled) = interference_where_measurable(frame, skip);
+    if let Some(label) = unhulled.first() {
+        panic!("{label} part is not a hull");
+    }
+    (depth, a, b)
+}
+
+/// The deepest interpenetration between any two pieces of a frame (but
+/// the pairs `skip` names), with their labels, over the parts parry can
+/// hull, and the labels of pieces with a part it cannot (a wedge thinner
+/// than its round-off, beside a wall a hair out of line), left out.
+pub fn interference_where_measurable(
+    frame: &Frame,
+    skip: impl Fn(usize, usize) -> bool,
+) -> (f64, String, String, Vec<String>) {
     let id = Pose::identity();
+    let mut unhulled = Vec::new();
     let hulls: Vec<Vec<(ConvexPolyhedron, glam::DVec3, glam::DVec3)>> = frame
         .pieces
         .iter()
         .map(|p| {
-            hulls(p)
-                .into_iter()
-                .zip(&p.solid.parts)
-                .map(|(h, part)| {
-                    let lo = part
-                        .vertices
-                        .iter()
-                        .copied()
-                        .fold(glam::DVec3::splat(f64::INFINITY), glam::DVec3::min);
-                    let hi = part
-                        .vertices
-                        .iter()
-                        .copied()
-                        .fold(glam::DVec3::splat(f64::NEG_INFINITY), glam::DVec3::max);
-                    (h, lo, hi)
-                })
-                .collect()
+            let bounded = p.solid.parts.iter().filter_map(|part| {
+                let pts: Vec<Vector> = part.vertices.iter().map(|x| v(*x)).collect();
+                let hull = ConvexPolyhedron::from_convex_hull(&pts);
+                if hull.is_none() {
+                    unhulled.push(p.label.clone());
+                }
+                let lo =
+                    part.vertices.iter().copied().fold(glam::DVec3::splat(f64::INFINITY), glam::DVec3::min);
+                let hi = part
+                    .vertices
+                    .iter()
+                    .copied()
+                    .fold(glam::DVec3::splat(f64::NEG_INFINITY), glam::DVec3::max);
+                Some((hull?, lo, hi))
+            });
+            bounded.collect()
         })
         .collect();
     let mut worst = (0.0, String::new(), String::new());
@@ -143,5 +158,5 @@ pub fn worst_interference_except(
             }
         }
     }
-    worst
+    (worst.0, worst.1, worst.2, unhulled)
 }
