@@ -1549,3 +1549,81 @@ fn a_king_passing_a_ridges_hip_end_0_4_in_off_stands_in_for_its_king() {
         dvec2(1.0, 0.0),
     );
 }
+
+/// No two pieces of `frame` for which `pair` holds share wood, as parry
+/// measures their solids (1/64 in, common practice, no source), and parry
+/// can hull every part.
+fn assert_no_wood_shared(frame: &Frame, pair: impl Fn(MemberKind, MemberKind) -> bool) {
+    let kind = |i: usize| frame.pieces[i].kind;
+    let (depth, a, b, unhulled) =
+        parry_fit::interference_where_measurable(frame, |i, j| !pair(kind(i), kind(j)));
+    assert!(unhulled.is_empty(), "parts parry cannot hull: {unhulled:?}");
+    assert!(depth < FIT_IN, "{a} and {b} share {depth} in");
+}
+
+/// Seed 10: two hips rising from the ridge ends at (229.758, 180.153)
+/// and (56.541, 142.631) meet at the south ridge's north end
+/// (76.555, 127.621), one each side of the courtyard's south wall's plane
+/// (wall 8, x = 141.4 to 226.0, so the node lies west of the wall and the
+/// plane has no king there). Each hip was cut to its other plane's king
+/// (the kings along y = 127.621 from east and west) and to nothing on the
+/// king-less side, so the two ran 0.12 in into each other in front of
+/// the kings' ends (and 0.36 in at the north ridge's end). They now share
+/// that space as hips at a peak do, each keeping the plan angle nearer
+/// its own line; the whole frame shares no wood.
+#[test]
+fn hips_meeting_at_a_ridge_end_with_no_king_between_them_are_cut_to_each_other() {
+    let frame = framed(&SEED_10, &[&SEED_10_COURTYARD]);
+    for j in &frame.joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+    assert_no_wood_shared(&frame, |_, _| true);
+}
+
+/// Seed 1: a star of ten walls where hips merge: the hips of walls 0/3
+/// and 3/4 come up to (601.792, 399.165) and the hip of walls 0/4 rises
+/// on from there, and so at two more nodes. Their ends were cut plumb at
+/// the point, square to each hip, and overlapped each other by 0.4 to
+/// 1.0 in round the node. Each end is now cut to the planes halving the
+/// plan angles to its neighbours there (the hub cut of hips meeting at a
+/// peak), so no two hips share wood (derived from the cut: the plan
+/// angles each hip keeps do not overlap).
+#[test]
+fn hips_merging_into_one_rising_on_share_the_node() {
+    let frame = framed(&SEED_1, &[]);
+    assert_no_wood_shared(&frame, |a, b| a == MemberKind::Hip && b == MemberKind::Hip);
+}
+
+#[rustfmt::skip]
+const SEED_10: [WallRow; 8] = [
+    (0.0, 559.7636591154593, 0.5833333333333334, 22.0), // 0
+    (244.0033583006307, 559.7636591154593, 0.342887773088532, 19.0), // 1
+    (244.0033583006307, 111.95273182309187, 0.4166666666666667, 8.0), // 2
+    (537.0369021154615, 111.95273182309187, 0.75, 9.0), // 3
+    (537.0369021154615, 559.7636591154593, 1.3973536802002695, 11.0), // 4
+    (653.2645698689691, 559.7636591154593, 0.16666666666666666, 2.0), // 5
+    (653.2645698689691, 0.0, 1.25, 16.0), // 6
+    (0.0, 0.0, 0.75, 14.0), // 7
+];
+
+#[rustfmt::skip]
+const SEED_10_COURTYARD: [WallRow; 4] = [
+    (141.35246319780708, 185.03712438087615, 1.0, 2.0),
+    (225.9858773789959, 185.03712438087615, 1.2947937418737578, 0.0),
+    (225.9858773789959, 270.8789627789717, 0.5, 21.0),
+    (141.35246319780708, 270.8789627789717, 0.5, 8.0),
+];
+
+#[rustfmt::skip]
+const SEED_1: [WallRow; 10] = [
+    (-272.89590084567027, 640.3891739967203, 0.4166666666666667, 3.0), // 0
+    (189.67757078083156, 754.0259024556372, 0.3333333333333333, 8.0), // 1
+    (276.91457793172094, 543.5655104942502, 0.0, 23.0), // 2
+    (770.1684227970999, 359.4200436491653, 1.0833333333333333, 9.0), // 3
+    (726.2804472920795, -413.49228327992887, 0.25, 2.0), // 4
+    (430.43575983297575, -619.2797437658228, 1.058097954138982, 15.0), // 5
+    (12.911081124508172, -761.4580985831761, 1.1109056673111115, 4.0), // 6
+    (-366.36900077365715, -644.9888356511227, 0.4166666666666667, 23.0), // 7
+    (-666.5764873881443, -198.71035730997875, 0.0, 21.0), // 8
+    (-904.1927761030192, 200.34459984662064, 0.9166666666666666, 13.0), // 9
+];

@@ -835,23 +835,36 @@ impl Ctx<'_> {
         (0..self.planes.len()).any(|j| self.same_group(a, j) && self.planes[j].contains(p))
     }
 
-    /// Cuts for a hip top at a peak where hips meet with no ridge: for each
-    /// other hip there, the vertical plane halving the plan angle between
-    /// the two, so the hips share the space round the peak without
-    /// overlapping. `far` is this hip's other end. None where a hip also
-    /// rises on from the node.
+    /// Cuts for a hip's end at a node where hips meet with no king between
+    /// them (a peak with no ridge, hips merging into one rising on from the
+    /// node, or hips either side of a king-less plane at a ridge's end):
+    /// for each other hip there (left-out ones aside), the vertical plane
+    /// halving the plan angle between the two, so the hips share the space
+    /// round the node without overlapping. `far` is this hip's other end.
+    /// Before, hips merging into one were cut plumb at the point and ran
+    /// into each other by up to an inch round it.
     pub fn hub_cuts(&self, node: DVec2, far: DVec2, end: CutEnd, frame: &BoardFrame) -> Vec<HalfSpace> {
+        self.hub_cuts_against(node, far, end, frame, |_| true)
+    }
+
+    /// As [`Ctx::hub_cuts`], against only the other hips `against` keeps.
+    fn hub_cuts_against(
+        &self,
+        node: DVec2,
+        far: DVec2,
+        end: CutEnd,
+        frame: &BoardFrame,
+        against: impl Fn(&PlanLine) -> bool,
+    ) -> Vec<HalfSpace> {
         let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
         let Some(mine) = (far - node).try_normalize() else { return Vec::new() };
-        // Where hips merge into one rising on (irregular plans) the node
-        // is left to a fitted block: the ends are cut plumb and flagged.
-        if self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && near(l.from)) {
-            return Vec::new();
-        }
         self.lines
             .iter()
             .enumerate()
-            .filter(|(_, l)| l.kind == RoofLineKind::Hip)
+            // A hip too short to cut (left out) takes no share of the node.
+            .filter(|(i, l)| {
+                l.kind == RoofLineKind::Hip && against(l) && !self.left_out.get(*i).copied().unwrap_or(false)
+            })
             .filter_map(|(_, l)| {
                 let other_far = if near(l.to) {
                     l.from
@@ -967,6 +980,7 @@ impl Ctx<'_> {
                 ));
             }
         }
+        let mut kingless = Vec::new();
         for &pi in &[left, right] {
             // The king in this plane at the hip's top, if any, or the king
             // standing in for it (running on past the node less than a
@@ -993,7 +1007,10 @@ impl Ctx<'_> {
                         bearings.push((Bearing::Piece(*piece), h));
                     }
                 }
-                None => peak_without_ridge = true,
+                None => {
+                    peak_without_ridge = true;
+                    kingless.push(pi);
+                }
             }
         }
         let king_missing = peak_without_ridge;
@@ -1009,6 +1026,14 @@ impl Ctx<'_> {
                     upper_cuts.push(h);
                     bearings.push((Bearing::Line(k), h));
                 }
+            }
+            if !upper_cuts.is_empty() {
+                // With no king on either side, nothing stands between this
+                // hip and another ending at the ridge's end beside it: the
+                // two share the space in front of the end as hips at a
+                // peak do, each keeping the plan angle nearer its own
+                // line, or they would run into each other there.
+                upper_cuts.extend(self.hub_cuts(line.to, line.from, CutEnd::Top, &frame));
             }
         }
         if upper_cuts.is_empty() {
@@ -1101,6 +1126,20 @@ impl Ctx<'_> {
             // from the node is beside the king, and the top is cut to it
             // too wherever it would run into it.
             self.clear_ridges_at_top(line, &mut spec, &mut bearings, -up_dir, mid);
+            // Nor does anything stand between this hip and another hip of
+            // the plane with no king ending at the node (the two sides of
+            // a plane topping out there): they share the space in front of
+            // the kings' ends as hips at a peak do, or they would run into
+            // each other there.
+            let beside =
+                |l: &PlanLine| l.planes.iter().any(|&p| kingless.iter().any(|&k| self.same_group(p, k)));
+            spec.upper_cuts.extend(self.hub_cuts_against(
+                line.to,
+                line.from,
+                CutEnd::Top,
+                &spec.frame,
+                beside,
+            ));
         }
         Some((spec, bearings, peak_without_ridge || foot_without_ridge))
     }
