@@ -534,35 +534,45 @@ fn join_close_nodes(sk: &Skeleton, join: f64) -> Vec<usize> {
 /// nodes within `join` of each other count as one where face edges are
 /// paired into lines (see `join_close_nodes`).
 fn build_roof(sk: &Skeleton, tol: &Tolerance, join: f64) -> Roof {
-    let rep = join_close_nodes(sk, join);
-    let joined = |a: usize, b: usize| (rep.get(a).copied().unwrap_or(a), rep.get(b).copied().unwrap_or(b));
     let edges: usize = sk.faces.iter().chain(sk.holes.iter().flatten()).map(Vec::len).sum();
-    // Each face edge by its nodes, and by the nodes they are taken as: an
-    // edge whose exact twin is missing is paired with one whose ends are
-    // within `join` of its own.
+    let face_edges = || {
+        sk.faces.iter().enumerate().flat_map(move |(w, face)| {
+            std::iter::once(face).chain(sk.holes.get(w).into_iter().flatten()).flat_map(move |lp| {
+                let k = lp.len();
+                (0..k).filter_map(move |i| Some(((*lp.get(i)?, *lp.get((i + 1) % k)?), w)))
+            })
+        })
+    };
+    // Each face edge by its nodes, and, built only once some edge has no
+    // exact twin (rare: beside slivers), by the nodes they are taken as:
+    // such an edge is paired with one whose ends are within `join` of its
+    // own.
     let mut owner: QuickMap<(usize, usize), usize> =
         QuickMap::with_capacity_and_hasher(edges, Default::default());
-    let mut near_owner: QuickMap<(usize, usize), usize> =
-        QuickMap::with_capacity_and_hasher(edges, Default::default());
-    for (w, face) in sk.faces.iter().enumerate() {
-        let loops = std::iter::once(face).chain(sk.holes.get(w).into_iter().flatten());
-        for lp in loops {
-            let k = lp.len();
-            for i in 0..k {
-                if let (Some(&a), Some(&b)) = (lp.get(i), lp.get((i + 1) % k)) {
-                    owner.insert((a, b), w);
-                    let (ja, jb) = joined(a, b);
-                    if ja != jb {
-                        near_owner.entry((ja, jb)).or_insert(w);
-                    }
+    owner.extend(face_edges());
+    let near = std::cell::OnceCell::new();
+    let near_owner = || {
+        near.get_or_init(|| {
+            let rep = join_close_nodes(sk, join);
+            let joined = move |a: usize, b: usize| {
+                (rep.get(a).copied().unwrap_or(a), rep.get(b).copied().unwrap_or(b))
+            };
+            let mut by_joined: QuickMap<(usize, usize), usize> =
+                QuickMap::with_capacity_and_hasher(edges, Default::default());
+            for ((a, b), w) in face_edges() {
+                let (ja, jb) = joined(a, b);
+                if ja != jb {
+                    by_joined.entry((ja, jb)).or_insert(w);
                 }
             }
-        }
-    }
+            (joined, by_joined)
+        })
+    };
     let twin_owner = |a: usize, b: usize| {
         owner.get(&(b, a)).or_else(|| {
+            let (joined, by_joined) = near_owner();
             let (ja, jb) = joined(a, b);
-            near_owner.get(&(jb, ja))
+            by_joined.get(&(jb, ja))
         })
     };
     let node_pos = |n: usize| sk.nodes.get(n).map_or(DVec2::ZERO, |x| x.pos);
