@@ -1371,13 +1371,14 @@ impl Ctx<'_> {
         // if they all met at one node. (A top meeting no ridge at its node
         // is left: what starts there, a hip's foot, bears on it.)
         let across = if ridges.is_empty() { Vec::new() } else { self.ridges_across_short_lines(line.to) };
+        let own: Vec<HalfSpace> = ridges.iter().map(|&(_, h)| h).collect();
         // Ridge bearings are resolved to pieces by the caller; a foot up on
         // the roof bears on what it was cut to there.
         let mut bearings: Vec<(Bearing, HalfSpace)> =
             ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
         let down = (line.from - line.to).normalize_or_zero();
         if !across.is_empty() {
-            self.clear_ridges_at(&across, &mut spec, &mut bearings, down, mid, CutEnd::Top);
+            self.clear_ridges_across_valley_top(&across, &own, &mut spec, &mut bearings, down, mid);
         }
         let passing = self.ridges_passing(line.to, size);
         if !passing.is_empty() {
@@ -1385,6 +1386,96 @@ impl Ctx<'_> {
         }
         self.clear_kings_at(line.to, &mut spec, &mut bearings, mid, CutEnd::Top, rafter_piece);
         Some((spec, bearings, false))
+    }
+
+    /// Cuts a valley's top (`spec`) to the ridges across a hip or valley
+    /// too short to cut at its node (`across`, each with the node where it
+    /// is met) that its body would otherwise run into, as
+    /// [`Ctx::clear_ridges_at`] does, bearing on each there.
+    ///
+    /// The top is seated first on the ridges at its own node (`own`, the
+    /// cuts against them). The ridge across the short line stands a
+    /// fraction of an inch off that node, so the face its own node would
+    /// give (its side, or its end run half a rafter past that node) can lie
+    /// wholly beyond the own ridge's face and take the seat off it: the
+    /// top then stops short of the ridge it was seated on (seed 5340: 1.0
+    /// in short, cut to the side of a ridge whose end is north of the
+    /// top). Where it would, the top is cut to the other face of that
+    /// ridge instead (its end for its side, its side for its end), which
+    /// clears the ridge all the same, as any face of its board does, and
+    /// leaves the seat: a framer seats the valley on its own ridge and
+    /// trims the corner of the other one's end out of the way.
+    fn clear_ridges_across_valley_top(
+        &self,
+        across: &[(usize, DVec2)],
+        own: &[HalfSpace],
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        down: DVec2,
+        toward: DVec2,
+    ) {
+        for &(k, node) in across {
+            let Some(other) = self.lines.get(k) else { continue };
+            let solid = spec.solid();
+            let runs_in = self.ridge_specs(k, other).iter().any(|r| runs_into(&solid, &r.solid()));
+            if !runs_in {
+                continue;
+            }
+            let Some(first) = self.ridge_face_at(k, node, down, toward, CutEnd::Top) else { continue };
+            let seated = |h: HalfSpace| {
+                let mut trial = spec.clone();
+                trial.upper_cuts.push(h);
+                let cut = trial.solid();
+                own.iter().all(|o| face_area_on(&cut, o) > SEAT_AREA_MIN_SQ_IN)
+            };
+            let chosen = if seated(first) {
+                first
+            } else {
+                self.ridge_other_face(k, node, &first, toward, CutEnd::Top)
+                    .filter(|&h| seated(h))
+                    .unwrap_or(first)
+            };
+            let h = HalfSpace { tag: cut_tag(&chosen, &spec.frame), ..chosen };
+            spec.upper_cuts.push(h);
+            bearings.push((Bearing::Line(k), h));
+        }
+    }
+
+    /// Of ridge `li`'s end at `node` and its side toward `toward`, the one
+    /// that is not `face`; `None` where the ridge does not end at `node`.
+    fn ridge_other_face(
+        &self,
+        li: usize,
+        node: DVec2,
+        face: &HalfSpace,
+        toward: DVec2,
+        end: CutEnd,
+    ) -> Option<HalfSpace> {
+        let ridge = self.lines.get(li)?;
+        let dir = (ridge.to - ridge.from).try_normalize()?;
+        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
+        let into = if near(ridge.from) {
+            dir
+        } else if near(ridge.to) {
+            -dir
+        } else {
+            return None;
+        };
+        let e = self.ridge_end_offset(li, dir, node);
+        let end_face =
+            HalfSpace::through((node - into * e).extend(0.0), into.extend(0.0), FaceTag::Cheek, Some(end))?;
+        let side =
+            side_face(ridge.from, ridge.to, self.settings.ridge.thickness_in, toward, FaceTag::Cheek, end)?;
+        let same = |a: &HalfSpace, b: &HalfSpace| {
+            a.normal.dot(b.normal) > 1.0 - 1e-12 && (a.offset - b.offset).abs() < 1e-9
+        };
+        if same(face, &side) {
+            Some(end_face)
+        } else if same(face, &end_face) {
+            Some(side)
+        } else {
+            None
+        }
     }
 
     /// The ridges that pass beside `node` without meeting it, near enough
@@ -1459,6 +1550,25 @@ impl Ctx<'_> {
             }
         }
     }
+}
+
+/// The least area, square inches, of a valley top's face on the ridge at
+/// its own node for the top to count as seated there: a face smaller than
+/// a tenth of an inch square is a sliver, not a seat (common practice, no
+/// source).
+const SEAT_AREA_MIN_SQ_IN: f64 = 0.01;
+
+/// The area of `solid`'s faces lying on the plane of cut `h`, facing as it
+/// does, square inches.
+fn face_area_on(solid: &Solid, h: &HalfSpace) -> f64 {
+    solid
+        .faces()
+        .filter(|f| {
+            f.normal.dot(h.normal) > 1.0 - 1e-9
+                && f.vertices.first().is_some_and(|&v| h.distance(v).abs() < 1e-5)
+        })
+        .map(|f| f.area())
+        .sum()
 }
 
 /// Whether two solids run into each other: a corner of either deeper than
