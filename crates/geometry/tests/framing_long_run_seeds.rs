@@ -982,16 +982,32 @@ const SEED_2504: [WallRow; 11] = [
     (0.0, 0.018952240191145428, 1.4166666666666667, 3.0),
 ];
 
+/// Seed 8010: a small block at 8.6/12 round a courtyard at 4/12.
+#[rustfmt::skip]
+const SEED_8010: [WallRow; 5] = [
+    (0.0, 0.0, 0.7149684601097285, 6.0),
+    (45.56804708991002, 0.0, 0.7149684601097285, 16.0),
+    (45.56804708991002, 132.66455171981363, 0.7149684601097285, 15.0),
+    (45.56804708991002, 276.54127090673717, 0.7149684601097285, 13.0),
+    (0.0, 276.54127090673717, 0.7149684601097285, 18.0),
+];
+
+#[rustfmt::skip]
+const SEED_8010_COURTYARD: [WallRow; 4] = [
+    (23.561068490002494, 79.76403318185537, 0.3333333333333333, 22.0),
+    (30.2228223432346, 79.76403318185537, 0.3333333333333333, 16.0),
+    (30.2228223432346, 74.48342249337414, 0.3333333333333333, 6.0),
+    (23.561068490002494, 74.48342249337414, 0.3333333333333333, 14.0),
+];
+
 #[test]
 fn a_joint_that_does_not_fit_is_flagged_on_the_member_cut_to_it() {
-    let frame = framed(&SEED_2504, &[]);
-    // The ridge from (52.749, 218.456) to (137.138, 134.068) runs at 45
-    // degrees in plan; the kings at its hip ends run square to their walls,
-    // so a king's top, cut to the ridge's end, stops short of where the
-    // hip's cheek meets the king's side: the hip's top corner finds the
-    // king over an inch on. That needs a block fitted in place, and the
-    // member cut to fit is flagged with both labels and the gap and
-    // overlap the joint check measured; a joint that fits is not flagged.
+    let frame = framed(&SEED_8010, &[&SEED_8010_COURTYARD]);
+    // A valley's top runs 0.11 in into the ridge it is cut to (a fault of
+    // the framing not mended yet; should it be, this test wants another
+    // frame with a misfit). The member cut to fit is flagged with both
+    // labels and the gap and overlap the joint check measured; a joint
+    // that fits is not flagged.
     let misfits: Vec<_> =
         frame.joints.iter().filter(|j| !(j.max_gap < FIT_IN && j.max_overlap < FIT_IN)).collect();
     assert!(!misfits.is_empty());
@@ -1289,14 +1305,26 @@ fn assert_king_stands_in(frame: &Frame, king_foot: glam::DVec2, node: glam::DVec
     assert!(nearest > half - 1e-6, "the ridge reaches {nearest} in from the king's line");
     let hip = piece_ending_at(frame, MemberKind::Hip, 1, node)
         .unwrap_or_else(|| panic!("the hip ending at the node"));
-    for cut in [ridge, hip] {
-        let joint = frame
-            .joints
-            .iter()
-            .find(|j| j.pieces == [cut, king])
-            .unwrap_or_else(|| panic!("{} bears on the king", frame.pieces[cut].label));
-        assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+    let joint = frame
+        .joints
+        .iter()
+        .find(|j| j.pieces == [ridge, king])
+        .unwrap_or_else(|| panic!("{} bears on the king", frame.pieces[ridge].label));
+    assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+    // The hip's top bears on the king's side, or, where it meets the
+    // ridge's side short of the king (a hip coming in at a low plan angle
+    // to the king), on the ridge; either way it fits and runs into neither.
+    let top_joints: Vec<_> =
+        frame.joints.iter().filter(|j| j.pieces == [hip, king] || j.pieces == [hip, ridge]).collect();
+    assert!(!top_joints.is_empty(), "{} bears on neither the king nor the ridge", frame.pieces[hip].label);
+    for j in top_joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
     }
+    let pair = |a: usize, b: usize| {
+        (a == hip && (b == king || b == ridge)) || (b == hip && (a == king || a == ridge))
+    };
+    let (depth, a, b, _) = parry_fit::interference_where_measurable(frame, |a, b| !pair(a, b));
+    assert!(depth < FIT_IN, "{a} and {b} share {depth} in");
     for j in frame.joints.iter().filter(|j| j.pieces.contains(&king)) {
         assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
         let (gap, overlap, _) = parry_fit::fit(frame, j.pieces[0], j.pieces[1]);
@@ -1389,8 +1417,12 @@ fn a_king_passing_a_ridges_hip_end_1_4_in_off_stands_in_for_its_king() {
     // 0.097 in, and the ridge's end, run half a rafter past its node to
     // y = 814.930, ran 0.097 in into it. The end's king is left out: the
     // ridge's end is cut back to the passing king's south side at
-    // y = 815.583 - 0.75 = 814.833 and bears on it, and so does the hip's
-    // top. Derivation (nodes from the solved roof's lines).
+    // y = 815.583 - 0.75 = 814.833 and bears on it. The hip from the
+    // south-east, at 16.6 degrees to the king in plan, meets the ridge's
+    // east side (x = 448.584) with its north side at y = 814.738, short
+    // of the king: it bears on the ridge (cut to the king only, it ran
+    // into the ridge's side with no corner of either inside the other).
+    // Derivation (nodes from the solved roof's lines).
     assert_king_stands_in(
         &frame,
         dvec2(719.7340133166734, 815.582949758633),
@@ -1841,5 +1873,118 @@ fn a_valley_top_is_seated_on_its_ridge_and_cut_to_the_end_of_one_in_line() {
         &frame,
         dvec2(291.28697766233313, 396.1706619836744),
         dvec2(291.0132095609181, 396.3355613770458),
+    );
+}
+
+/// Every joint of piece `i` fits, by the frame's check and by parry.
+fn assert_joints_of_fit(frame: &Frame, i: usize) {
+    let joints: Vec<_> = frame.joints.iter().filter(|j| j.pieces.contains(&i)).collect();
+    assert!(!joints.is_empty(), "{} has no joint", frame.pieces[i].label);
+    for j in joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        let (gap, overlap, _) = parry_fit::fit(frame, j.pieces[0], j.pieces[1]);
+        assert!(gap < FIT_IN && overlap < FIT_IN, "{:?}: parry {gap} / {overlap}", j.members);
+    }
+}
+
+#[test]
+fn a_hip_meeting_a_slanting_ridges_side_short_of_the_end_king_bears_on_the_ridge_only() {
+    let frame = framed(&SEED_2504, &[]);
+    // Read from the solve: the ridge runs from its west end at
+    // (52.749, 218.456) to the south-east at 45 degrees. The hip between
+    // the north plane (wall 1) and the plane of the tiny wall 4 comes up
+    // to that end from (80.261, 242.991); the north plane's king runs
+    // square to the north wall along x = 52.749 and is cut back along the
+    // ridge's end, a 45 degree face, so its east side (x = 53.499) starts
+    // only at y = 220.27. The hip reaches the ridge's north-east side
+    // before it: cut to the king's side, its face there met nothing, 1.14
+    // in short of the king's slanting end, and it ran on into the ridge's
+    // side with no corner of either inside the other.
+    let node = dvec2(52.74922917126327, 218.45623563843222);
+    let hip = piece_ending_at(&frame, MemberKind::Hip, 1, node).unwrap_or_else(|| panic!("the hip"));
+    assert!(frame.pieces[hip].plan_line[0].distance(dvec2(80.26099758228936, 242.99139061804286)) < 0.01);
+    let king =
+        piece_ending_at(&frame, MemberKind::KingCommon, 0, dvec2(52.749229171263295, 267.9383450038189))
+            .unwrap_or_else(|| panic!("the north king"));
+    let ridge = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Ridge && p.plan_line.iter().any(|q| q.distance(node) < 1.5))
+        .unwrap_or_else(|| panic!("the ridge"));
+    assert!(frame.joints.iter().any(|j| j.pieces == [hip, ridge]), "the hip bears on the ridge");
+    assert!(!frame.joints.iter().any(|j| j.pieces == [hip, king]), "the hip is cut to the king");
+    assert_joints_of_fit(&frame, hip);
+    // Nor do the hip and the king, or the hip and the ridge, share wood.
+    let pair = |a: usize, b: usize| {
+        (a == hip && (b == king || b == ridge)) || (b == hip && (a == king || a == ridge))
+    };
+    let (depth, a, b, unhulled) = parry_fit::interference_where_measurable(&frame, |a, b| !pair(a, b));
+    assert!(![hip, king, ridge].iter().any(|&i| unhulled.contains(&frame.pieces[i].label)));
+    assert!(depth < FIT_IN, "{a} and {b} share {depth} in");
+}
+
+/// Seed 13610: a plan of wings at one pitch with tiny corners cut off at
+/// 45 degrees, its main ridge a hair (4.7e-7 rad) off square to the south
+/// wall.
+#[rustfmt::skip]
+const SEED_13610: [WallRow; 26] = [
+    (0.0, 136.43843463776187, 0.5833333333333334, 17.0),
+    (89.9599911591671, 136.43843463776187, 0.5833333333333334, 12.0),
+    (269.86868983570656, 136.43843463776187, 0.5833333333333334, 5.0),
+    (269.8799734775013, 136.44971827955663, 0.5833333333333334, 2.0),
+    (269.8799734775013, 320.43352148602, 0.5833333333333334, 21.0),
+    (303.09010078503997, 320.43352148602, 0.5833333333333334, 18.0),
+    (303.1002264847355, 320.43352148602, 0.5833333333333334, 8.0),
+    (328.04336710409837, 320.43352148602, 0.5833333333333334, 22.0),
+    (359.8333985915513, 320.43352148602, 0.5833333333333334, 19.0),
+    (359.8399646366684, 320.4400875311371, 0.5833333333333334, 18.0),
+    (359.8399646366684, 533.0269758883798, 0.5833333333333334, 11.0),
+    (359.8399646366684, 533.0377829757064, 0.5833333333333334, 16.0),
+    (359.8399646366684, 672.5071938194881, 0.5833333333333334, 18.0),
+    (269.8859609490483, 672.5071938194881, 0.5833333333333334, 10.0),
+    (269.8799734775013, 672.5012063479411, 0.5833333333333334, 14.0),
+    (269.8799734775013, 585.4406345292971, 0.5833333333333334, 3.0),
+    (269.86875361437035, 585.4294146661662, 0.5833333333333334, 21.0),
+    (236.93262117996701, 585.4294146661662, 0.5833333333333334, 8.0),
+    (217.44579565029807, 585.4294146661662, 0.5833333333333334, 6.0),
+    (179.92684086838491, 585.4294146661662, 0.5833333333333334, 22.0),
+    (179.9199823183342, 585.4362732162169, 0.5833333333333334, 15.0),
+    (179.9199823183342, 672.5071938194881, 0.5833333333333334, 5.0),
+    (89.9599911591671, 672.5071938194881, 0.5833333333333334, 12.0),
+    (89.9599911591671, 585.4361058893234, 0.5833333333333334, 21.0),
+    (89.95329993600997, 585.4294146661662, 0.5833333333333334, 12.0),
+    (0.0, 585.4294146661662, 0.5833333333333334, 2.0),
+];
+
+#[test]
+fn a_hip_whose_top_corner_meets_the_kings_a_millionth_off_fits() {
+    let frame = framed(&SEED_13610, &[]);
+    // Read from the solve: the main ridge's south hip end at
+    // (134.940, 271.378), with the south plane's king along x = 134.940
+    // cut to the ridge's end, a face 4.7e-7 rad off square. The hip from
+    // the south-east corner is cut to that king's east side and to the
+    // east plane's king; its top corner, worked out from its own cuts,
+    // lies 1.3e-6 in outside the king's end, and the line square to the
+    // king's side from it grazed that end and read 0.60 in of gap.
+    let node = dvec2(134.9399030753007, 271.37833771306254);
+    let hip = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::Hip
+                && p.plan_line[1].distance(node) < 0.01
+                && p.plan_line[0].distance(dvec2(269.860711096077, 136.45769701918618)) < 0.01
+        })
+        .unwrap_or_else(|| panic!("the south-east hip"));
+    let king =
+        piece_ending_at(&frame, MemberKind::KingCommon, 0, dvec2(134.9399030753007, 136.43843463776187))
+            .unwrap_or_else(|| panic!("the south king"));
+    assert!(frame.joints.iter().any(|j| j.pieces == [hip, king]), "the hip bears on the south king");
+    assert_joints_of_fit(&frame, hip);
+    assert!(
+        !frame
+            .members
+            .iter()
+            .any(|m| m.warnings.iter().any(|w| matches!(w, FramingWarning::JointDoesNotFit { .. })))
     );
 }

@@ -981,6 +981,7 @@ impl Ctx<'_> {
             }
         }
         let mut kingless = Vec::new();
+        let mut king_cuts = Vec::new();
         for &pi in &[left, right] {
             // The king in this plane at the hip's top, if any, or the king
             // standing in for it (running on past the node less than a
@@ -1003,6 +1004,7 @@ impl Ctx<'_> {
                     )?;
                     h.tag = cut_tag(&h, &frame);
                     upper_cuts.push(h);
+                    king_cuts.push((ki, h));
                     if let Some(Some(piece)) = rafter_piece.get(ki) {
                         bearings.push((Bearing::Piece(*piece), h));
                     }
@@ -1141,7 +1143,71 @@ impl Ctx<'_> {
                 beside,
             ));
         }
+        if self.drop_king_cuts_not_met(&mut spec, &mut bearings, &king_cuts) {
+            // With a king's cut taken off, the top may now run into the
+            // ridge it stopped short of: cut to it where it does.
+            self.clear_ridges_at_top(line, &mut spec, &mut bearings, -up_dir, mid);
+        }
         Some((spec, bearings, peak_without_ridge || foot_without_ridge))
+    }
+
+    /// Takes off a hip's top each cut to a king's side (`king_cuts`, by
+    /// rafter line) where the king's side is not there to bear on and the
+    /// hip would not run into the king without it, with its bearing.
+    ///
+    /// A king is cut at its top to what it meets there; where the ridge
+    /// runs off the node at a slant to the king (a ridge at 45 degrees in
+    /// plan, the king square to its wall), the king's top is cut back
+    /// along the ridge's end and its side stops short of the hip, whose
+    /// top meets the ridge's side instead. Cut to the king's side all the
+    /// same, the hip's face there met nothing (seed 2504 of the long run:
+    /// 1.14 in of gap).
+    fn drop_king_cuts_not_met(
+        &self,
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        king_cuts: &[(usize, HalfSpace)],
+    ) -> bool {
+        let mut dropped = false;
+        for &(ki, h) in king_cuts {
+            let Some(r) = self.rafters.get(ki) else { continue };
+            // A king's top cut square or along it (a ridge at the node in
+            // line with it or square to it) leaves its sides their full
+            // length to the top; a king running on past the node has its
+            // side there whatever its top is cut to.
+            let Some(up) = (r.upper - r.lower).try_normalize() else { continue };
+            let slanting = self.lines.iter().any(|l| {
+                let dir = (l.to - l.from).try_normalize().unwrap_or(up);
+                l.kind == RoofLineKind::Ridge
+                    && l.touches(r.upper)
+                    && dir.perp_dot(up).abs() > 1e-9
+                    && dir.dot(up).abs() > 1e-9
+            });
+            if !slanting || r.stands_in_for.is_some() {
+                continue;
+            }
+            let Some((king, ..)) = self.rafter_spec(r, MemberKind::KingCommon) else { continue };
+            let king = king.solid();
+            let solid = spec.solid();
+            let on_plane = |v: DVec3| h.distance(v).abs() < 1e-5;
+            let lands = solid
+                .faces()
+                .filter(|f| f.normal.dot(h.normal) > 1.0 - 1e-9 && f.vertices.iter().all(|&v| on_plane(v)))
+                .flat_map(|f| f.vertices.iter().copied())
+                .all(|v| king.depth_of(v) > -OVERLAP_TOL_IN);
+            if lands {
+                continue;
+            }
+            let mut without = spec.clone();
+            without.upper_cuts.retain(|c| c != &h);
+            if without.solid().runs_into(&king, OVERLAP_TOL_IN) {
+                continue;
+            }
+            *spec = without;
+            bearings.retain(|(_, m)| m != &h);
+            dropped = true;
+        }
+        dropped
     }
 
     /// The cuts of a hip's or valley's foot where it starts up on the roof,
@@ -1260,10 +1326,7 @@ impl Ctx<'_> {
             let Some(other) = self.lines.get(k) else { continue };
             let solid = spec.solid();
             let ridges: Vec<_> = self.ridge_specs(k, other).iter().map(PieceSpec::solid).collect();
-            let runs_in = ridges.iter().any(|r| {
-                solid.vertices().any(|v| r.depth_of(v) > OVERLAP_TOL_IN)
-                    || r.vertices().any(|v| solid.depth_of(v) > OVERLAP_TOL_IN)
-            });
+            let runs_in = ridges.iter().any(|r| solid.runs_into(r, OVERLAP_TOL_IN));
             if !runs_in {
                 continue;
             }

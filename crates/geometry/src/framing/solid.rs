@@ -234,6 +234,75 @@ impl Solid {
     pub fn depth_of(&self, p: DVec3) -> f64 {
         self.parts.iter().map(|part| part.depth_of(p)).fold(f64::NEG_INFINITY, f64::max)
     }
+
+    /// Whether this solid and `other` share wood deeper than `tol`: a
+    /// corner of either inside the other, or an edge of either passing
+    /// through the other with no corner inside (a board's end run through
+    /// the side of another at a slant).
+    ///
+    /// Two convex polyhedra sharing volume have a corner of one inside the
+    /// other or an edge of one crossing the other, so between them the
+    /// corners and edges of both find every overlap. Only parts whose boxes
+    /// overlap are compared.
+    pub fn runs_into(&self, other: &Solid, tol: f64) -> bool {
+        let boxes = |s: &Solid| -> Vec<(DVec3, DVec3)> { s.parts.iter().map(ConvexPart::bounds).collect() };
+        let (mine, theirs) = (boxes(self), boxes(other));
+        self.parts.iter().zip(&mine).any(|(a, (alo, ahi))| {
+            other.parts.iter().zip(&theirs).any(|(b, (blo, bhi))| {
+                let apart = (*alo + tol).cmpgt(*bhi).any() || (*blo + tol).cmpgt(*ahi).any();
+                !apart && a.meets(b, tol)
+            })
+        })
+    }
+}
+
+impl ConvexPart {
+    /// The corner-wise bounds of the part.
+    pub fn bounds(&self) -> (DVec3, DVec3) {
+        let far = (DVec3::splat(f64::INFINITY), DVec3::splat(f64::NEG_INFINITY));
+        self.vertices.iter().fold(far, |(lo, hi), v| (lo.min(*v), hi.max(*v)))
+    }
+
+    /// Whether this part and `other` share a point deeper than `depth`
+    /// inside both: a corner of either, or a point of an edge of either.
+    fn meets(&self, other: &ConvexPart, depth: f64) -> bool {
+        let corner_in = |a: &ConvexPart, b: &ConvexPart| a.vertices.iter().any(|&v| b.depth_of(v) > depth);
+        let edge_in = |a: &ConvexPart, b: &ConvexPart| a.edges().any(|(p, q)| b.segment_reaches(p, q, depth));
+        corner_in(self, other) || corner_in(other, self) || edge_in(self, other) || edge_in(other, self)
+    }
+
+    /// The part's edges, each once per face it bounds (twice in all).
+    pub fn edges(&self) -> impl Iterator<Item = (DVec3, DVec3)> + '_ {
+        self.faces.iter().flat_map(|f| {
+            let n = f.vertices.len();
+            (0..n).map(move |i| (f.vertices[i], f.vertices[(i + 1) % n]))
+        })
+    }
+
+    /// Whether some point of segment `p`-`q` lies deeper than `depth`
+    /// inside the part: whether the segment, clipped to the part's planes
+    /// each moved `depth` inward, keeps some length.
+    pub fn segment_reaches(&self, p: DVec3, q: DVec3, depth: f64) -> bool {
+        let u = q - p;
+        let (mut lo, mut hi) = (0.0_f64, 1.0_f64);
+        for h in &self.planes {
+            let nu = h.normal.dot(u);
+            let room = h.offset - h.normal.dot(p) - depth;
+            if nu.abs() < 1e-15 {
+                if room <= 0.0 {
+                    return false;
+                }
+            } else if nu > 0.0 {
+                hi = hi.min(room / nu);
+            } else {
+                lo = lo.max(room / nu);
+            }
+            if lo >= hi {
+                return false;
+            }
+        }
+        true
+    }
 }
 
 /// Orders coplanar points of a convex polygon counter-clockwise about
@@ -326,6 +395,46 @@ mod tests {
         let part = ConvexPart::from_half_spaces(&planes).unwrap();
         assert_eq!(part.faces.len(), 7);
         approx::assert_relative_eq!(part.volume(), 1.0 - 0.125 / 6.0, epsilon = 1e-12);
+    }
+
+    /// A box from `lo` to `hi` as a one-part solid.
+    fn block(lo: DVec3, hi: DVec3) -> Solid {
+        let mut planes = Vec::new();
+        for axis in [DVec3::X, DVec3::Y, DVec3::Z] {
+            planes.push(HalfSpace::through(hi, axis, FaceTag::Side, None).unwrap());
+            planes.push(HalfSpace::through(lo, -axis, FaceTag::Side, None).unwrap());
+        }
+        Solid { parts: vec![ConvexPart::from_half_spaces(&planes).unwrap()] }
+    }
+
+    #[test]
+    fn boards_crossing_with_no_corner_inside_either_run_into_each_other() {
+        // Derivation: a board along x (y 4 to 6, z 0 to 1) through one
+        // along y (x 4 to 6, z -1 to 2); every corner of each lies outside
+        // the other, and the first board's edge along y = 4, z = 0 passes
+        // 1 in deep through the second at x = 5 (1 in from its sides x = 4
+        // and x = 6 and from its bottom z = -1).
+        let a = block(DVec3::new(0.0, 4.0, 0.0), DVec3::new(10.0, 6.0, 1.0));
+        let b = block(DVec3::new(4.0, 0.0, -1.0), DVec3::new(6.0, 10.0, 2.0));
+        assert!(!a.vertices().any(|v| b.depth_of(v) > 0.0) && !b.vertices().any(|v| a.depth_of(v) > 0.0));
+        assert!(a.runs_into(&b, 0.99) && b.runs_into(&a, 0.99));
+        assert!(!a.runs_into(&b, 1.01));
+        let edge = (DVec3::new(0.0, 4.0, 0.0), DVec3::new(10.0, 4.0, 0.0));
+        assert!(b.parts[0].segment_reaches(edge.0, edge.1, 0.99));
+        assert!(!b.parts[0].segment_reaches(edge.0, edge.1, 1.01));
+    }
+
+    #[test]
+    fn boards_side_by_side_do_not_run_into_each_other() {
+        // Derivation: two boards touching face to face at x = 1.5 share no
+        // wood; one 0.1 in off shares none either; one 0.1 in into the
+        // other shares 0.1 in.
+        let a = block(DVec3::ZERO, DVec3::new(1.5, 10.0, 7.25));
+        let b = block(DVec3::new(1.5, 0.0, 0.0), DVec3::new(3.0, 10.0, 7.25));
+        let c = block(DVec3::new(1.6, 2.0, 1.0), DVec3::new(3.1, 8.0, 5.0));
+        let d = block(DVec3::new(1.4, 2.0, 1.0), DVec3::new(2.9, 8.0, 5.0));
+        assert!(!a.runs_into(&b, 1e-6) && !a.runs_into(&c, 1e-6) && !c.runs_into(&a, 1e-6));
+        assert!(a.runs_into(&d, 0.09) && !a.runs_into(&d, 0.11));
     }
 
     #[test]
