@@ -1988,3 +1988,73 @@ fn a_hip_whose_top_corner_meets_the_kings_a_millionth_off_fits() {
             .any(|m| m.warnings.iter().any(|w| matches!(w, FramingWarning::JointDoesNotFit { .. })))
     );
 }
+
+/// Seed 4512: a plan of wings at mixed pitches round a courtyard, one gable
+/// end (wall 6).
+#[rustfmt::skip]
+const SEED_4512: [WallRow; 14] = [
+    (0.0, 869.978686287212, 0.8858918476544412, 11.0),
+    (0.0, 975.4051162056912, 0.8858918476544412, 12.0),
+    (0.0, 1113.0371410542987, 0.6666666666666666, 3.0),
+    (0.016953996966513337, 1113.0540950512652, 0.5, 11.0),
+    (198.97776788179078, 1113.0540950512652, 0.9166666666666666, 17.0),
+    (198.97776788179078, 1302.7026913652426, 0.48560588308562497, 20.0),
+    (397.95553576358157, 1302.7026913652426, 0.16666666666666666, 0.0),
+    (397.95553576358157, 869.978686287212, 1.1666666666666667, 4.0),
+    (198.97776788179078, 869.978686287212, 1.430822354248795, 9.0),
+    (198.97776788179078, 643.176176786709, 1.0, 18.0),
+    (397.95553576358157, 643.176176786709, 1.5, 7.0),
+    (397.95553576358157, 558.9858553550163, 1.5, 4.0),
+    (397.95553576358157, 442.6143875180827, 1.5, 20.0),
+    (0.0, 442.6143875180827, 0.8858918476544412, 11.0),
+];
+
+#[rustfmt::skip]
+const SEED_4512_COURTYARD: [WallRow; 4] = [
+    (236.4331786099398, 935.7241269937697, 1.1724154656251942, 23.0),
+    (297.7095103073971, 935.7241269937697, 1.1513401583820837, 18.0),
+    (297.7095103073971, 1004.6780514198897, 0.8333333333333334, 18.0),
+    (236.4331786099398, 1004.6780514198897, 0.25, 13.0),
+];
+
+#[test]
+fn a_ridges_hip_end_is_cut_back_to_a_hip_passing_just_beyond_it() {
+    let frame = framed(&SEED_4512, &[&SEED_4512_COURTYARD]);
+    // Read from the solve: the ridge along x = 172.744 has its north hip
+    // end at (172.744, 902.152), and runs half a rafter past it, to
+    // y = 902.902, flush with the side kings. The hip from the courtyard's
+    // corner ridge end at (310.386, 923.276) to (63.014, 888.110) passes
+    // 1.55 in north of that node, its south side about 0.06 in short of
+    // the ridge's north-west corner (172.744 - 0.75, 902.902): the corner
+    // ran 0.056 in into the hip's side. The ridge's end is now cut back to
+    // the hip's side where it runs into it and bears on it there.
+    let ridge = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::Ridge
+                && p.plan_line.iter().any(|q| q.distance(dvec2(172.744, 902.902)) < 0.01)
+        })
+        .unwrap_or_else(|| panic!("the ridge ending at y = 902.902"));
+    let hip = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::Hip
+                && p.plan_line[0].distance(dvec2(310.3859779795172, 923.2755311459136)) < 0.01
+                && p.plan_line[1].distance(dvec2(63.01400038556836, 888.1099570460024)) < 0.01
+        })
+        .unwrap_or_else(|| panic!("the hip passing by"));
+    let joint = frame
+        .joints
+        .iter()
+        .find(|j| j.pieces == [ridge, hip])
+        .unwrap_or_else(|| panic!("the ridge's end bears on the hip"));
+    assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+    for j in frame.joints.iter().filter(|j| j.pieces.contains(&hip) || j.pieces[0] == ridge) {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+    let pair = |a: usize, b: usize| (a == hip && b == ridge) || (a == ridge && b == hip);
+    let (depth, a, b, _) = parry_fit::interference_where_measurable(&frame, |a, b| !pair(a, b));
+    assert!(depth < FIT_IN, "{a} and {b} share {depth} in");
+}

@@ -20,6 +20,12 @@ pub const STOCK_TOL_IN: f64 = 1e-6;
 /// the 1/64 in a joint is held to, coarser than round-off.
 const OVERLAP_TOL_IN: f64 = 1e-6;
 
+/// How far from a ridge's hip end, inches, a hip or valley must end for the
+/// ridge's end to be cut back to it as to a line passing by (common
+/// practice, no source: a foot, well past the few inches a member's end is
+/// cut back from its node at a crowded node).
+const HIP_END_REACH_IN: f64 = 12.0;
+
 /// Two plan directions within 10 degrees of each other count as in line
 /// for a hip carrying a valley's line on past its top: the valley's side
 /// would cut such a hip along a cheek over 8 in long, the hip's 1-1/2 in
@@ -294,10 +300,12 @@ impl Ctx<'_> {
             if short_here && !hip_end {
                 out.extend(self.ridge_end_across_short_line(li, line, node, out_dir, at_start));
             }
-            if hip_end {
-                continue;
-            }
-            let end = node;
+            // A hip end runs on past its node (half a rafter, flush with
+            // the side kings): a hip or valley passing just beyond it is
+            // cleared where the end's corners are, the kings keeping the
+            // rest of the end.
+            let end =
+                if hip_end { node + out_dir * self.ridge_end_offset(li, dir, node).max(0.0) } else { node };
             for (k, other) in self.lines.iter().enumerate() {
                 let (ot, od) = match other.kind {
                     RoofLineKind::Hip => (self.settings.hip.thickness_in, self.settings.hip.depth_in),
@@ -307,6 +315,17 @@ impl Ctx<'_> {
                     RoofLineKind::Ridge => continue,
                 };
                 if other.touches(node) || self.left_out.get(k).copied().unwrap_or(false) {
+                    continue;
+                }
+                // At a hip end, only a line passing by, a foot or more from
+                // its own ends: one ending near the node meets the members
+                // framed there (a ridge in line a fraction of an inch aside,
+                // across a hip left out), and its end is cut to them, back
+                // from its node by up to a few inches.
+                if hip_end
+                    && (other.from.distance(node) < HIP_END_REACH_IN
+                        || other.to.distance(node) < HIP_END_REACH_IN)
+                {
                     continue;
                 }
                 let Some(odir) = (other.to - other.from).try_normalize() else { continue };
