@@ -160,6 +160,11 @@ impl Ctx<'_> {
         out
     }
 
+    /// Whether `node` is an end of a ridge left out beside another.
+    pub fn at_left_out_ridge(&self, node: DVec2) -> bool {
+        self.lines.iter().enumerate().any(|(k, l)| self.ridge_left_out(k) && l.touches(node))
+    }
+
     /// The tail cuts of a rafter in plane `p`.
     pub fn tail_cuts(&self, p: &PlaneFrame) -> Vec<HalfSpace> {
         let o = p.overhang_in;
@@ -581,7 +586,8 @@ impl Ctx<'_> {
     /// a ridge ends beside the king's line), bearing on the king:
     /// `rafter_piece` gives each rafter line's piece. `toward` is a point of
     /// the member. Kings ending at the node are left: what ends there bears
-    /// on them by its own cuts.
+    /// on them by its own cuts. At a node of a ridge left out beside
+    /// another, a face the end is already cut to is not cut again.
     pub fn clear_kings_at(
         &self,
         node: DVec2,
@@ -593,6 +599,11 @@ impl Ctx<'_> {
     ) {
         let tr = self.settings.rafter.thickness_in;
         let reach = tr / 2.0 + spec.size.thickness_in + spec.size.depth_in;
+        // At a node of a ridge left out beside another, the kings moved
+        // onto the kept ridge run on past the node and can cross the end
+        // with no corner of either inside the other: read the wood the two
+        // share there.
+        let crossings = self.at_left_out_ridge(node);
         for (ri, r) in self.rafters.iter().enumerate() {
             if r.king.is_none()
                 || r.upper.distance(node) < PLAN_TOL_IN * 1e3
@@ -603,11 +614,18 @@ impl Ctx<'_> {
             }
             let Some(Some(piece)) = rafter_piece.get(ri) else { continue };
             let Some((king, ..)) = self.rafter_spec(r, MemberKind::KingCommon) else { continue };
-            if !runs_into(&king.solid(), &spec.solid()) {
+            let (king, member) = (king.solid(), spec.solid());
+            let meets = runs_into(&king, &member) || (crossings && share_wood(&king, &member));
+            if !meets {
                 continue;
             }
             let Some(mut h) = side_face(r.lower, r.upper, tr, toward, FaceTag::Cheek, end) else { continue };
             h.tag = cut_tag(&h, &spec.frame);
+            let same =
+                |c: &HalfSpace| c.normal.dot(h.normal) > 1.0 - 1e-12 && (c.offset - h.offset).abs() < 1e-9;
+            if crossings && spec.upper_cuts.iter().chain(&spec.lower_cuts).any(same) {
+                continue;
+            }
             if end == CutEnd::Bottom {
                 spec.lower_cuts.push(h);
             } else {
@@ -1175,6 +1193,12 @@ impl Ctx<'_> {
                 beside,
             ));
         }
+        if self.at_left_out_ridge(line.to) {
+            // At a node of a ridge left out beside another, the kings moved
+            // onto the kept ridge, and the kept ridge's own kings, run on
+            // past the node: the top is cut back to any it would run into.
+            self.clear_kings_at(line.to, &mut spec, &mut bearings, mid, CutEnd::Top, rafter_piece);
+        }
         Some((spec, bearings, peak_without_ridge || foot_without_ridge))
     }
 
@@ -1613,6 +1637,25 @@ fn face_area_on(solid: &Solid, h: &HalfSpace) -> f64 {
         })
         .map(|f| f.area())
         .sum()
+}
+
+/// Two solids share wood (for [`share_wood`]) where their common part
+/// holds more than this, cubic inches: a tenth of an inch each way, far
+/// more than two boards flush against each other leave in round-off
+/// (common practice, no source).
+const SHARED_VOLUME_MIN_CU_IN: f64 = 1e-3;
+
+/// Whether two solids share wood, read from the volume common to any part
+/// of each: unlike [`runs_into`], this finds two boards crossing each
+/// other with no corner of either inside the other.
+fn share_wood(a: &Solid, b: &Solid) -> bool {
+    a.parts.iter().any(|pa| {
+        b.parts.iter().any(|pb| {
+            let planes: Vec<HalfSpace> = pa.planes.iter().chain(&pb.planes).copied().collect();
+            ConvexPart::from_half_spaces(&planes)
+                .is_some_and(|common| common.volume() > SHARED_VOLUME_MIN_CU_IN)
+        })
+    })
 }
 
 /// Whether two solids run into each other: a corner of either deeper than
