@@ -408,8 +408,10 @@ pub fn ridges_beside(lines: &[PlanLine], settings: &FramingSettings) -> Vec<Opti
 /// wall, less than a rafter's `thickness` off it (the end kings of two
 /// ridge ends a fraction of an inch apart, along the ridges' line or
 /// across it) is left out, since the two boards would overlap: the kept
-/// ridge's king stands in for it. A line that would meet the kept ridge at
-/// less than 30 degrees is left as it was.
+/// ridge's king stands in for it (unless that king already stands in for
+/// another, when neither changes). A line that would meet the kept ridge
+/// at less than 30 degrees, or a king already standing in for another
+/// king, is left as it was. (In seeds 0 to 39,999 neither case comes up.)
 pub fn rafters_onto_kept_ridges(
     rafters: &mut Vec<RafterLine>,
     lines: &[PlanLine],
