@@ -109,6 +109,23 @@ pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
             if *left_out == MemberKind::Valley { "valley" } else { "hip" },
             length(*length_in)
         ),
+        FramingWarning::RidgeBesideLeftOut { label, ridge, length_in, apart_in } => {
+            if label == ridge {
+                format!(
+                    "a ridge {} long running {} beside this one is left out, since the two boards would \
+                     overlap: the members on its side are cut to this ridge instead",
+                    length(*length_in),
+                    length(*apart_in)
+                )
+            } else {
+                format!(
+                    "cut to {ridge} in place of a ridge {} long running {} beside it, left out since the \
+                     two boards would overlap",
+                    length(*length_in),
+                    length(*apart_in)
+                )
+            }
+        }
         FramingWarning::JointDoesNotFit { bears_on, gap_in, overlap_in, .. } => format!(
             "does not fit {bears_on} as framed (gap {}, overlap {}): fit this joint in place, with a \
              block or a cut by hand, before cutting the run",

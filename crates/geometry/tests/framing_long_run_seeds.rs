@@ -6,9 +6,9 @@
 mod framing_support;
 
 use framing_support::parry_fit;
-use glam::dvec2;
+use glam::{DVec2, dvec2};
 use pitchframe_geometry::framing::{Cut, Frame, FramingSettings, FramingWarning, MemberKind, frame_roof};
-use pitchframe_geometry::{Outline, Roof, Wall, WallRoof, check_roof};
+use pitchframe_geometry::{Outline, Roof, RoofLineKind, Wall, WallRoof, check_roof};
 
 /// One wall: its first corner, rise per run (0 for a gable) and overhang.
 type WallRow = (f64, f64, f64, f64);
@@ -2057,4 +2057,281 @@ fn a_ridges_hip_end_is_cut_back_to_a_hip_passing_just_beyond_it() {
     let pair = |a: usize, b: usize| (a == hip && b == ridge) || (a == ridge && b == hip);
     let (depth, a, b, _) = parry_fit::interference_where_measurable(&frame, |a, b| !pair(a, b));
     assert!(depth < FIT_IN, "{a} and {b} share {depth} in");
+}
+
+/// The ends of the ridge of `outer`'s solved roof whose ends lie within
+/// 0.01 in of `a` and `b` (either way round): the exact nodes, read from
+/// the outline's own geometry.
+fn solved_ridge(outer: &[WallRow], courtyards: &[&[WallRow]], a: DVec2, b: DVec2) -> [DVec2; 2] {
+    let o = Outline::new(walls(outer), courtyards.iter().map(|c| walls(c)).collect())
+        .unwrap_or_else(|e| panic!("outline: {e}"));
+    let roof = Roof::solve(&o).unwrap_or_else(|e| panic!("solve: {e}"));
+    roof.lines
+        .iter()
+        .filter(|l| l.kind == RoofLineKind::Ridge)
+        .map(|l| [l.from.truncate(), l.to.truncate()])
+        .find(|[p, q]| {
+            (p.distance(a) < 0.01 && q.distance(b) < 0.01) || (p.distance(b) < 0.01 && q.distance(a) < 0.01)
+        })
+        .unwrap_or_else(|| panic!("no ridge from {a} to {b}"))
+}
+
+/// Two ridges of the solved roof run parallel less than a ridge board's
+/// thickness apart, `short` (its centre line's ends) beside the longer
+/// `kept` along its whole length, a sliver of a plane between them. Their
+/// boards overlapped along the whole common length. Asserts that one
+/// board is framed there: no ridge piece lies along `short`'s centre
+/// line, the kept ridge's pieces beside it carry the warning with the
+/// left-out ridge's length and the distance between the two (both read
+/// from the two centre lines), every rafter that came up to `short` from
+/// its far side (its plan line crossing `short`'s centre line within its
+/// stretch) now ends on `kept`'s centre line and bears on the kept ridge
+/// with the warning, every hip or valley ending at `short`'s ends carries
+/// the warning and its top's joints on the ridge or a king fit, no two of the ridges, kings and commons share wood (by
+/// parry), and every joint cut to a kept ridge piece or by it fits by the
+/// frame's own check and by parry. Returns the rafters moved.
+fn assert_ridge_left_out_beside(frame: &Frame, kept: [DVec2; 2], short: [DVec2; 2]) -> usize {
+    let t = FramingSettings::default().ridge.thickness_in;
+    let dir = (kept[1] - kept[0]).normalize();
+    let across = |p: DVec2| (p - kept[0]).perp_dot(dir);
+    let along = |p: DVec2| (p - kept[0]).dot(dir);
+    let apart = across((short[0] + short[1]) / 2.0);
+    let length = short[0].distance(short[1]);
+    assert!(apart.abs() < t, "the two ridges lie {apart} in apart");
+    let (lo, hi) = (along(short[0]).min(along(short[1])), along(short[0]).max(along(short[1])));
+    let on_kept = |p: DVec2| across(p).abs() < 1e-6;
+    let ridges: Vec<usize> =
+        (0..frame.pieces.len()).filter(|&i| frame.pieces[i].kind == MemberKind::Ridge).collect();
+    for &i in &ridges {
+        let [a, b] = frame.pieces[i].plan_line;
+        let beside = along(a).max(along(b)) > lo && along(a).min(along(b)) < hi;
+        assert!(
+            !(beside && (across(a) - apart).abs() < 1e-3 && (across(b) - apart).abs() < 1e-3),
+            "{} lies along the ridge beside",
+            frame.pieces[i].label
+        );
+    }
+    let warned = |i: usize, ridge: &str| {
+        frame.members.iter().filter(|m| m.label == frame.pieces[i].label).any(|m| {
+            m.warnings.iter().any(|w| {
+                matches!(w, FramingWarning::RidgeBesideLeftOut { ridge: r, length_in, apart_in, .. }
+                    if r == ridge && (length_in - length).abs() < 1e-9 && (apart_in - apart.abs()).abs() < 1e-9)
+            })
+        })
+    };
+    let kept_pieces: Vec<usize> = ridges
+        .iter()
+        .copied()
+        .filter(|&i| frame.pieces[i].plan_line.iter().all(|&p| on_kept(p)))
+        .filter(|&i| {
+            let [a, b] = frame.pieces[i].plan_line;
+            along(a).max(along(b)) > lo && along(a).min(along(b)) < hi
+        })
+        .collect();
+    assert!(!kept_pieces.is_empty(), "no ridge piece on the kept ridge's line");
+    for &i in &kept_pieces {
+        assert!(warned(i, &frame.pieces[i].label), "{} has no warning", frame.pieces[i].label);
+    }
+    let fits = |j: &pitchframe_geometry::framing::Joint| {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        let (gap, overlap, _) = parry_fit::fit(frame, j.pieces[0], j.pieces[1]);
+        assert!(gap < FIT_IN && overlap < FIT_IN, "{:?}: parry {gap} / {overlap}", j.members);
+    };
+    let rafter = |k: MemberKind| {
+        matches!(
+            k,
+            MemberKind::Common
+                | MemberKind::KingCommon
+                | MemberKind::HipJack
+                | MemberKind::ValleyJack
+                | MemberKind::CrippleJack
+        )
+    };
+    let mut moved = 0;
+    for (i, p) in frame.pieces.iter().enumerate().filter(|(_, p)| rafter(p.kind)) {
+        let [foot, top] = p.plan_line;
+        // From `short`'s far side, across its centre line within its stretch.
+        let far_side = across(foot) * apart > 0.0 && across(foot).abs() > apart.abs();
+        let s = (across(foot) - apart) / (across(foot) - across(top));
+        let crossing = foot + (top - foot) * s;
+        let within = along(crossing) > lo - 1e-6 && along(crossing) < hi + 1e-6;
+        if !(far_side && (0.0..=1.0 + 1e-9).contains(&s) && within) {
+            continue;
+        }
+        moved += 1;
+        assert!(on_kept(top), "{} ends {} in off the kept ridge", p.label, across(top));
+        let joint = frame
+            .joints
+            .iter()
+            .find(|j| j.pieces[0] == i && kept_pieces.contains(&j.pieces[1]))
+            .unwrap_or_else(|| panic!("{} does not bear on the kept ridge", p.label));
+        assert!(warned(i, &joint.members[1]), "{} has no warning", p.label);
+    }
+    assert!(moved > 0, "no rafter came up to the left-out ridge");
+    for (i, p) in frame.pieces.iter().enumerate() {
+        let at_short = p.plan_line.iter().any(|q| short.iter().any(|n| n.distance(*q) < 1e-6));
+        if matches!(p.kind, MemberKind::Hip | MemberKind::Valley) && at_short {
+            let ridge = &frame.pieces[kept_pieces[0]].label;
+            assert!(kept_pieces.len() > 1 || warned(i, ridge), "{} has no warning", p.label);
+            // Its top's joints, on the kept ridge or a king there.
+            let at_top = |j: &&pitchframe_geometry::framing::Joint| {
+                j.pieces[0] == i
+                    && matches!(frame.pieces[j.pieces[1]].kind, MemberKind::Ridge | MemberKind::KingCommon)
+            };
+            for j in frame.joints.iter().filter(at_top) {
+                fits(j);
+            }
+        }
+    }
+    let framed_square =
+        |k: MemberKind| matches!(k, MemberKind::Ridge | MemberKind::KingCommon | MemberKind::Common);
+    assert_no_wood_shared(frame, |a, b| framed_square(a) && framed_square(b));
+    for j in frame.joints.iter().filter(|j| j.pieces.iter().any(|i| kept_pieces.contains(i))) {
+        fits(j);
+    }
+    moved
+}
+
+/// Seed 4860: a block at 2/12 round a courtyard of 6.3 x 4.8 in at 5/12.
+/// The courtyard's west plane rises to a ridge of 25.2 in along
+/// x = 71.229, 0.968 in east of the block's ridge along x = 70.261 (173.2
+/// in), with a sliver of the block's east plane between the two and no
+/// hip between their ends.
+#[rustfmt::skip]
+const SEED_4860: [WallRow; 6] = [
+    (43.878250085678026, 0.0, 0.16666666666666666, 22.0),
+    (96.64417825215165, 0.0, 0.16666666666666666, 10.0),
+    (96.64417825215165, 112.7692620035609, 0.16666666666666666, 14.0),
+    (96.64417825215165, 225.9543167985862, 0.16666666666666666, 10.0),
+    (43.878250085678026, 225.9543167985862, 0.16666666666666666, 6.0),
+    (43.878250085678026, 92.49243445879353, 0.16666666666666666, 16.0),
+];
+
+#[rustfmt::skip]
+const SEED_4860_COURTYARD: [WallRow; 4] = [
+    (81.39518106115747, 142.36572248823467, 0.4166666666666667, 4.0),
+    (87.7365266391302, 142.36572248823467, 0.4166666666666667, 15.0),
+    (87.7365266391302, 137.51835041887495, 0.4166666666666667, 2.0),
+    (81.39518106115747, 137.51835041887495, 0.4166666666666667, 17.0),
+];
+
+#[test]
+fn a_ridge_beside_a_longer_one_closer_than_its_thickness_is_left_out() {
+    // The short ridge's two kings (from the east wall along y = 127.352
+    // and y = 152.532) and the two valleys from the courtyard's west
+    // corners came up to its ends; the kings read a gap of 0.968 in from
+    // their top corner above the lower ridge to the block ridge's face
+    // behind it. Now the kings run on across the sliver to the block
+    // ridge's east side, the valleys are cut to it, and one ridge board
+    // is framed. Derivation (nodes from the solved roof's lines).
+    let kept =
+        solved_ridge(&SEED_4860, &[&SEED_4860_COURTYARD], dvec2(70.261, 199.571), dvec2(70.261, 26.383));
+    let short =
+        solved_ridge(&SEED_4860, &[&SEED_4860_COURTYARD], dvec2(71.229, 127.352), dvec2(71.229, 152.532));
+    let frame = framed(&SEED_4860, &[&SEED_4860_COURTYARD]);
+    let moved = assert_ridge_left_out_beside(&frame, kept, short);
+    // The two kings at the short ridge's ends (no common lies between).
+    assert_eq!(moved, 2);
+}
+
+/// Seed 15026: an orthogonal outline of 14 walls, mixed pitches. The
+/// ridge along x = 89.044 (69.4 in) lies 0.417 in east of the ridge along
+/// x = 88.627 (95.6 in), a sliver of the plane of wall 6 between them; a
+/// hip of 0.42 in (left out) joins their south ends.
+#[rustfmt::skip]
+const SEED_15026: [WallRow; 14] = [
+    (0.0, 64.65922294647348, 0.4166666666666667, 9.0),
+    (35.65662511526169, 64.65922294647348, 0.4166666666666667, 3.0),
+    (64.70672631624858, 64.65922294647348, 1.1858694425955194, 17.0),
+    (64.70672631624858, 0.0, 0.9683456193314393, 1.0),
+    (194.12017894874572, 0.0, 0.26930164116813726, 18.0),
+    (194.12017894874572, 64.65922294647348, 0.8333333333333334, 1.0),
+    (258.8269052649943, 64.65922294647348, 0.16666666666666666, 17.0),
+    (258.8269052649943, 674.7998764235138, 0.25, 1.0),
+    (229.33952411275106, 674.7998764235138, 0.25, 20.0),
+    (194.12017894874572, 674.7998764235138, 1.4173888674222772, 6.0),
+    (194.12017894874572, 480.86903122264255, 0.6666666666666666, 18.0),
+    (129.41345263249715, 480.86903122264255, 0.8333333333333334, 14.0),
+    (129.41345263249715, 193.01358090625266, 0.4166666666666667, 13.0),
+    (0.0, 193.01358090625266, 0.9166666666666666, 8.0),
+];
+
+#[test]
+fn ridges_side_by_side_joined_by_a_left_out_hip_are_framed_as_one() {
+    // The end kings of the two south ends, both from the south wall along
+    // x = 88.627 and x = 89.044, overlapped each other by 1.5 - 0.417 =
+    // 1.083 in, and the kept ridge's king ran 0.072 in into the short
+    // ridge's board (the joint KC on R read). The short ridge's king gives
+    // way, the kept ridge's stands in for it under the hip from the south
+    // east corner, and the short ridge's other members (kings from the
+    // east wall, valley jacks, commons, a valley and a hip at its north
+    // end) are cut to the kept ridge's east side. Derivation (nodes from
+    // the solved roof's lines).
+    let kept = solved_ridge(&SEED_15026, &[], dvec2(88.627, 29.294), dvec2(88.627, 124.934));
+    let short = solved_ridge(&SEED_15026, &[], dvec2(89.044, 98.616), dvec2(89.044, 29.222));
+    let frame = framed(&SEED_15026, &[]);
+    assert_ridge_left_out_beside(&frame, kept, short);
+    // The hip from the south-east corner (194.120, 0) to the short ridge's
+    // south end bears on the kept ridge's end king from the south wall.
+    let hip = piece_ending_at(&frame, MemberKind::Hip, 1, short[1]).unwrap_or_else(|| panic!("the hip"));
+    let king = piece_ending_at(&frame, MemberKind::KingCommon, 0, dvec2(kept[0].x, 0.0))
+        .unwrap_or_else(|| panic!("the kept ridge's end king"));
+    let joint =
+        frame.joints.iter().find(|j| j.pieces == [hip, king]).unwrap_or_else(|| panic!("hip on king"));
+    assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+}
+
+/// Seed 5430: a block at 3/12 round a courtyard at 16/12 with overhangs
+/// of 4 to 18 in. South of the courtyard a ridge of 6.0 in along
+/// y = 152.542 lies 1.170 in north of the block's ridge along y = 151.373
+/// (56.6 in); a hip of 1.65 in (left out) joins their west ends.
+#[rustfmt::skip]
+const SEED_5430: [WallRow; 4] = [
+    (69.19766537044362, 110.49412428008895, 0.25, 19.0),
+    (207.59299611133085, 110.49412428008895, 0.25, 17.0),
+    (207.59299611133085, 192.25127235480304, 0.25, 17.0),
+    (69.19766537044362, 192.25127235480304, 0.25, 2.0),
+];
+
+#[rustfmt::skip]
+const SEED_5430_COURTYARD: [WallRow; 4] = [
+    (92.96439613355592, 172.53578076729542, 1.3333333333333333, 12.0),
+    (107.47938813872169, 172.53578076729542, 1.3333333333333333, 18.0),
+    (107.47938813872169, 159.98774770425865, 1.3333333333333333, 18.0),
+    (92.96439613355592, 159.98774770425865, 1.3333333333333333, 4.0),
+];
+
+#[test]
+fn members_at_a_left_out_ridges_ends_are_cut_back_to_the_kings_running_past() {
+    // The short ridge's kings from the north wall (x = 108.907 and
+    // 114.925) and from the west wall (y = 152.542) overlapped the block
+    // ridge's kings beside them (x = 110.076, y = 151.373) by 1.5 - 1.170
+    // = 0.330 in (the joints KC on R read that much). Now the short
+    // ridge's kings at its west end give way and the one at its east end
+    // runs on across the sliver to the block ridge's north side at
+    // y = 152.123, past the node where the courtyard's south-east valley
+    // and the hip from the courtyard ridge end; that valley crosses it
+    // there, and the hip from the west runs on along the block ridge's
+    // side into its king at x = 110.076, with no corner of either inside
+    // the other. Both are cut back to the king's side. Derivation (nodes
+    // from the solved roof's lines).
+    let rows = (&SEED_5430[..], &[&SEED_5430_COURTYARD[..]][..]);
+    let kept = solved_ridge(rows.0, rows.1, dvec2(166.714, 151.373), dvec2(110.076, 151.373));
+    let short = solved_ridge(rows.0, rows.1, dvec2(114.925, 152.542), dvec2(108.907, 152.542));
+    let frame = framed(rows.0, rows.1);
+    assert_ridge_left_out_beside(&frame, kept, short);
+    let king = |k: MemberKind| k == MemberKind::KingCommon;
+    let hip_or_valley = |k: MemberKind| matches!(k, MemberKind::Hip | MemberKind::Valley);
+    assert_no_wood_shared(&frame, |a, b| (king(a) && hip_or_valley(b)) || (hip_or_valley(a) && king(b)));
+    for node in short {
+        for kind in [MemberKind::Hip, MemberKind::Valley] {
+            if let Some(i) = piece_ending_at(&frame, kind, 1, node) {
+                let on_king = frame
+                    .joints
+                    .iter()
+                    .filter(|j| j.pieces[0] == i && frame.pieces[j.pieces[1]].kind == MemberKind::KingCommon);
+                assert!(on_king.count() > 0, "{} bears on no king", frame.pieces[i].label);
+            }
+        }
+    }
 }

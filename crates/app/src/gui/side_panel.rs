@@ -217,6 +217,23 @@ fn warning_text(units: DisplayUnits, warning: &FramingWarning) -> String {
             if *left_out == MemberKind::Valley { "valley" } else { "hip" },
             inches_text(units, *length_in)
         ),
+        FramingWarning::RidgeBesideLeftOut { label, ridge, length_in, apart_in } => {
+            if label == ridge {
+                format!(
+                    "A ridge {} long running {} beside this one is left out, since the two boards would \
+                     overlap: the members on its side are cut to this ridge instead",
+                    length_text(units, *length_in),
+                    inches_text(units, *apart_in)
+                )
+            } else {
+                format!(
+                    "Cut to {ridge} in place of a ridge {} long running {} beside it, left out since the \
+                     two boards would overlap",
+                    length_text(units, *length_in),
+                    inches_text(units, *apart_in)
+                )
+            }
+        }
         FramingWarning::JointDoesNotFit { bears_on, gap_in, overlap_in, .. } => format!(
             "Does not fit {bears_on} as framed (gap {}, overlap {}): fit this joint in place, with a \
              block or a cut by hand, before cutting the run",

@@ -96,6 +96,9 @@ pub struct Ctx<'a> {
     /// For each roof line, whether it is a hip or valley left out
     /// ([`left_out_lines`]).
     pub left_out: &'a [bool],
+    /// For each roof line, the ridge kept in its place where it is a ridge
+    /// left out beside a longer one ([`super::layout::ridges_beside`]).
+    pub kept_ridge: &'a [Option<usize>],
 }
 
 /// Which roof lines are hips or valleys too short to cut, left out of the
@@ -137,6 +140,37 @@ pub type Built = (PieceSpec, Vec<(Bearing, HalfSpace)>, bool);
 pub type LineBearing = Option<(usize, HalfSpace)>;
 
 impl Ctx<'_> {
+    /// Whether roof line `k` is a ridge left out beside a longer one.
+    pub fn ridge_left_out(&self, k: usize) -> bool {
+        self.kept_ridge.get(k).is_some_and(Option::is_some)
+    }
+
+    /// Ridge `k`, or the ridge kept in its place where it is left out.
+    pub fn ridge_framed(&self, k: usize) -> usize {
+        self.kept_ridge.get(k).copied().flatten().unwrap_or(k)
+    }
+
+    /// The ridges framed at `node`, in line order, once each: those that
+    /// touch it, each left-out one by the ridge kept in its place (which
+    /// passes beside the node, less than a board's thickness off).
+    pub fn ridges_at(&self, node: DVec2) -> Vec<usize> {
+        let mut out = Vec::new();
+        for (k, l) in self.lines.iter().enumerate() {
+            if l.kind == RoofLineKind::Ridge && l.touches(node) {
+                let k = self.ridge_framed(k);
+                if !out.contains(&k) {
+                    out.push(k);
+                }
+            }
+        }
+        out
+    }
+
+    /// Whether `node` is an end of a ridge left out beside another.
+    pub fn at_left_out_ridge(&self, node: DVec2) -> bool {
+        self.lines.iter().enumerate().any(|(k, l)| self.ridge_left_out(k) && l.touches(node))
+    }
+
     /// The tail cuts of a rafter in plane `p`.
     pub fn tail_cuts(&self, p: &PlaneFrame) -> Vec<HalfSpace> {
         let o = p.overhang_in;
@@ -212,14 +246,17 @@ impl Ctx<'_> {
     pub fn ridge_end_offset(&self, li: usize, dir: DVec2, node: DVec2) -> f64 {
         let hip_end =
             self.lines.iter().any(|l| l.kind == RoofLineKind::Hip && l.to.distance(node) < PLAN_TOL_IN * 1e3);
-        let butt =
-            self.lines.iter().take(li).filter(|l| l.kind == RoofLineKind::Ridge && l.touches(node)).find_map(
-                |l| {
-                    let other = (l.to - l.from).try_normalize()?;
-                    let sin = other.perp_dot(dir).abs();
-                    (sin > 1e-6).then(|| self.settings.ridge.thickness_in / 2.0 / sin)
-                },
-            );
+        let butt = self
+            .lines
+            .iter()
+            .enumerate()
+            .take(li)
+            .filter(|(k, l)| l.kind == RoofLineKind::Ridge && l.touches(node) && !self.ridge_left_out(*k))
+            .find_map(|(_, l)| {
+                let other = (l.to - l.from).try_normalize()?;
+                let sin = other.perp_dot(dir).abs();
+                (sin > 1e-6).then(|| self.settings.ridge.thickness_in / 2.0 / sin)
+            });
         match butt {
             Some(back) => -back,
             None if hip_end => self.settings.rafter.thickness_in / 2.0,
@@ -412,7 +449,12 @@ impl Ctx<'_> {
         let mut out = Vec::new();
         for far in self.across_short_lines(node) {
             for (k, other) in self.lines.iter().enumerate() {
-                if k == li || other.kind != RoofLineKind::Ridge || !other.touches(far) || other.touches(node)
+                // A ridge left out beside another is not there to cut to.
+                if k == li
+                    || other.kind != RoofLineKind::Ridge
+                    || !other.touches(far)
+                    || other.touches(node)
+                    || self.ridge_left_out(k)
                 {
                     continue;
                 }
@@ -563,7 +605,8 @@ impl Ctx<'_> {
     /// a ridge ends beside the king's line), bearing on the king:
     /// `rafter_piece` gives each rafter line's piece. `toward` is a point of
     /// the member. Kings ending at the node are left: what ends there bears
-    /// on them by its own cuts.
+    /// on them by its own cuts. At a node of a ridge left out beside
+    /// another, a face the end is already cut to is not cut again.
     pub fn clear_kings_at(
         &self,
         node: DVec2,
@@ -575,6 +618,11 @@ impl Ctx<'_> {
     ) {
         let tr = self.settings.rafter.thickness_in;
         let reach = tr / 2.0 + spec.size.thickness_in + spec.size.depth_in;
+        // At a node of a ridge left out beside another, the kings moved
+        // onto the kept ridge run on past the node and can cross the end
+        // with no corner of either inside the other: read the wood the two
+        // share there.
+        let crossings = self.at_left_out_ridge(node);
         for (ri, r) in self.rafters.iter().enumerate() {
             if r.king.is_none()
                 || r.upper.distance(node) < PLAN_TOL_IN * 1e3
@@ -585,11 +633,18 @@ impl Ctx<'_> {
             }
             let Some(Some(piece)) = rafter_piece.get(ri) else { continue };
             let Some((king, ..)) = self.rafter_spec(r, MemberKind::KingCommon) else { continue };
-            if !runs_into(&king.solid(), &spec.solid()) {
+            let (king, member) = (king.solid(), spec.solid());
+            let meets = runs_into(&king, &member) || (crossings && share_wood(&king, &member));
+            if !meets {
                 continue;
             }
             let Some(mut h) = side_face(r.lower, r.upper, tr, toward, FaceTag::Cheek, end) else { continue };
             h.tag = cut_tag(&h, &spec.frame);
+            let same =
+                |c: &HalfSpace| c.normal.dot(h.normal) > 1.0 - 1e-12 && (c.offset - h.offset).abs() < 1e-9;
+            if crossings && spec.upper_cuts.iter().chain(&spec.lower_cuts).any(same) {
+                continue;
+            }
             if end == CutEnd::Bottom {
                 spec.lower_cuts.push(h);
             } else {
@@ -1038,10 +1093,7 @@ impl Ctx<'_> {
         if upper_cuts.is_empty() {
             // A ridge starting where this hip ends (another hip rising on
             // from the node): the top keeps clear of it and bears on it.
-            for (k, other) in self.lines.iter().enumerate() {
-                if other.kind != RoofLineKind::Ridge || !other.touches(line.to) {
-                    continue;
-                }
+            for k in self.ridges_at(line.to) {
                 if let Some(mut h) = self.ridge_face_at(k, line.to, -up_dir, mid, CutEnd::Top) {
                     h.tag = cut_tag(&h, &frame);
                     upper_cuts.push(h);
@@ -1167,6 +1219,12 @@ impl Ctx<'_> {
             // ridge it stopped short of: cut to it where it does.
             self.clear_ridges_at_top(line, &mut spec, &mut bearings, -up_dir, mid);
         }
+        if self.at_left_out_ridge(line.to) {
+            // At a node of a ridge left out beside another, the kings moved
+            // onto the kept ridge, and the kept ridge's own kings, run on
+            // past the node: the top is cut back to any it would run into.
+            self.clear_kings_at(line.to, &mut spec, &mut bearings, mid, CutEnd::Top, rafter_piece);
+        }
         Some((spec, bearings, peak_without_ridge || foot_without_ridge))
     }
 
@@ -1245,6 +1303,7 @@ impl Ctx<'_> {
         on_valleys: bool,
     ) -> Vec<HalfSpace> {
         let mut cuts = Vec::new();
+        let mut ridges_done: Vec<usize> = Vec::new();
         for (k, other) in self.lines.iter().enumerate() {
             let meets = match other.kind {
                 RoofLineKind::Ridge => other.touches(line.from),
@@ -1256,6 +1315,15 @@ impl Ctx<'_> {
             };
             if !meets || std::ptr::eq(other, line) {
                 continue;
+            }
+            // A ridge left out beside another is met as the ridge kept in
+            // its place, once.
+            let k = if other.kind == RoofLineKind::Ridge { self.ridge_framed(k) } else { k };
+            if other.kind == RoofLineKind::Ridge {
+                if ridges_done.contains(&k) {
+                    continue;
+                }
+                ridges_done.push(k);
             }
             // A hip running on within 10 degrees of the valley's line past
             // its top (a hip of almost no rise carrying the valley's line
@@ -1300,13 +1368,8 @@ impl Ctx<'_> {
         down: DVec2,
         toward: DVec2,
     ) {
-        let at_node: Vec<(usize, DVec2)> = self
-            .lines
-            .iter()
-            .enumerate()
-            .filter(|(_, other)| other.kind == RoofLineKind::Ridge && other.touches(line.to))
-            .map(|(k, _)| (k, line.to))
-            .collect();
+        let at_node: Vec<(usize, DVec2)> =
+            self.ridges_at(line.to).into_iter().map(|k| (k, line.to)).collect();
         self.clear_ridges_at(&at_node, spec, bearings, down, toward, CutEnd::Top);
     }
 
@@ -1316,9 +1379,12 @@ impl Ctx<'_> {
     /// meet at `node`.
     fn ridges_across_short_lines(&self, node: DVec2) -> Vec<(usize, DVec2)> {
         let mut out = Vec::new();
+        let own = self.ridges_at(node);
         for far in self.across_short_lines(node) {
             for (k, other) in self.lines.iter().enumerate() {
-                let new = !out.iter().any(|(j, _)| *j == k);
+                // A ridge left out beside another is met as the one kept.
+                let k = self.ridge_framed(k);
+                let new = !out.iter().any(|(j, _)| *j == k) && !own.contains(&k);
                 if other.kind == RoofLineKind::Ridge && other.touches(far) && !other.touches(node) && new {
                     out.push((k, far));
                 }
@@ -1374,10 +1440,7 @@ impl Ctx<'_> {
         // The top bears on the side of each ridge board at the node.
         let mut upper_cuts = Vec::new();
         let mut ridges = Vec::new();
-        for (ri, r) in self.lines.iter().enumerate() {
-            if r.kind != RoofLineKind::Ridge || !r.touches(line.to) {
-                continue;
-            }
+        for ri in self.ridges_at(line.to) {
             let down = (line.from - line.to).normalize_or_zero();
             let Some(mut h) = self.ridge_face_at(ri, line.to, down, mid, CutEnd::Top) else { continue };
             h.tag = cut_tag(&h, &frame);
@@ -1567,14 +1630,19 @@ impl Ctx<'_> {
     /// whose side face is then the one met.
     fn ridges_passing(&self, node: DVec2, size: BoardSize) -> Vec<(usize, DVec2)> {
         let reach = self.settings.ridge.thickness_in / 2.0 + size.thickness_in + size.depth_in;
+        // Ridges framed at the node (a kept one in a left-out one's place)
+        // are met there already; a left-out one is not there.
+        let own = self.ridges_at(node);
         self.lines
             .iter()
             .enumerate()
-            .filter(|(_, l)| {
+            .filter(|(k, l)| {
                 let Some(dir) = (l.to - l.from).try_normalize() else { return false };
                 let along = (node - l.from).dot(dir);
                 l.kind == RoofLineKind::Ridge
                     && !l.touches(node)
+                    && !own.contains(k)
+                    && !self.ridge_left_out(*k)
                     && along > 0.0
                     && along < l.from.distance(l.to)
                     && distance_to_segment(node, l.from, l.to) < reach
@@ -1651,6 +1719,25 @@ fn face_area_on(solid: &Solid, h: &HalfSpace) -> f64 {
         })
         .map(|f| f.area())
         .sum()
+}
+
+/// Two solids share wood (for [`share_wood`]) where their common part
+/// holds more than this, cubic inches: a tenth of an inch each way, far
+/// more than two boards flush against each other leave in round-off
+/// (common practice, no source).
+const SHARED_VOLUME_MIN_CU_IN: f64 = 1e-3;
+
+/// Whether two solids share wood, read from the volume common to any part
+/// of each: unlike [`runs_into`], this finds two boards crossing each
+/// other with no corner of either inside the other.
+fn share_wood(a: &Solid, b: &Solid) -> bool {
+    a.parts.iter().any(|pa| {
+        b.parts.iter().any(|pb| {
+            let planes: Vec<HalfSpace> = pa.planes.iter().chain(&pb.planes).copied().collect();
+            ConvexPart::from_half_spaces(&planes)
+                .is_some_and(|common| common.volume() > SHARED_VOLUME_MIN_CU_IN)
+        })
+    })
 }
 
 /// Whether two solids run into each other: a corner of either deeper than

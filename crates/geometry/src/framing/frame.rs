@@ -9,7 +9,7 @@ use super::builders::{Bearing, Ctx, left_out_lines};
 use super::checks::piece_checks;
 use super::joints::{JOINT_FIT_IN, Joint, check_fit, part_bounds};
 use super::labels::label_pieces;
-use super::layout::{PlanLine, RafterLine, rafter_lines};
+use super::layout::{PlanLine, RafterLine, rafter_lines, rafters_onto_kept_ridges, ridges_beside};
 use super::measure::{Measured, measure};
 use super::plane_frame::{PLAN_TOL_IN, PlaneFrame, distance_to_segment};
 use super::{
@@ -116,17 +116,33 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     for (i, p) in planes.iter().enumerate() {
         rafters.extend(rafter_lines(i, p, &planes, &lines, &kings, origin, settings));
     }
+    // Two ridges side by side closer than a board's thickness: one board,
+    // the longer, with everything on the other moved onto it.
+    let beside = ridges_beside(&lines, settings);
+    let moved_from =
+        rafters_onto_kept_ridges(&mut rafters, &lines, &beside, &planes, settings.rafter.thickness_in);
+    let kept_ridge: Vec<Option<usize>> = beside.iter().map(|b| b.map(|(kept, _)| kept)).collect();
 
     let left_out_line = left_out_lines(&lines, settings);
-    let ctx =
-        Ctx { planes: &planes, lines: &lines, rafters: &rafters, heel, settings, left_out: &left_out_line };
+    let ctx = Ctx {
+        planes: &planes,
+        lines: &lines,
+        rafters: &rafters,
+        heel,
+        settings,
+        left_out: &left_out_line,
+        kept_ridge: &kept_ridge,
+    };
     let mut specs: Vec<PieceSpec> = Vec::new();
     let mut joint_specs: Vec<JointSpec> = Vec::new();
     let mut warnings_extra: Vec<(usize, FramingWarning)> = Vec::new();
 
     // Ridges, split at stock lengths.
     let mut ridge_pieces: Vec<Vec<usize>> = vec![Vec::new(); lines.len()];
-    for (li, line) in lines.iter().enumerate().filter(|(_, l)| l.kind == RoofLineKind::Ridge) {
+    let framed_ridges = || {
+        lines.iter().enumerate().filter(|(li, l)| l.kind == RoofLineKind::Ridge && kept_ridge[*li].is_none())
+    };
+    for (li, line) in framed_ridges() {
         let pieces = ctx.ridge_specs(li, line);
         let first = specs.len();
         for (k, spec) in pieces.into_iter().enumerate() {
@@ -193,7 +209,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     }
 
     // A ridge's end cut back to a king common passing it bears on the king.
-    for (li, line) in lines.iter().enumerate().filter(|(_, l)| l.kind == RoofLineKind::Ridge) {
+    for (li, line) in framed_ridges() {
         for (ri, mating, at_start) in ctx.ridge_end_king_clearances(li, line) {
             let piece = if at_start { ridge_pieces[li].first() } else { ridge_pieces[li].last() };
             if let (Some(&cut), Some(Some(king))) = (piece, rafter_piece.get(ri)) {
@@ -264,6 +280,40 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             }
         }
     }
+    // Flag the kept ridge beside each left-out one (where the two run
+    // side by side) and every piece moved onto it, with the kept ridge's
+    // piece there: (piece, ridge piece, left-out length, apart).
+    let mut beside_flags: Vec<(usize, usize, f64, f64)> = Vec::new();
+    for (li, line) in lines.iter().enumerate() {
+        let Some((kept, apart_in)) = beside[li] else { continue };
+        let length_in = line.from.distance(line.to);
+        let Some(kept_line) = lines.get(kept) else { continue };
+        let Some(dir) = (kept_line.to - kept_line.from).try_normalize() else { continue };
+        let along = |p: DVec2| (p - kept_line.from).dot(dir);
+        let (lo, hi) = (along(line.from).min(along(line.to)), along(line.from).max(along(line.to)));
+        for &piece in &ridge_pieces[kept] {
+            let [a, b] = specs[piece].plan_line;
+            if along(a).max(along(b)) > lo && along(a).min(along(b)) < hi {
+                beside_flags.push((piece, piece, length_in, apart_in));
+            }
+        }
+        let at_node =
+            |p: DVec2| p.distance(line.from) < PLAN_TOL_IN * 1e3 || p.distance(line.to) < PLAN_TOL_IN * 1e3;
+        let moved = rafter_piece
+            .iter()
+            .zip(&moved_from)
+            .filter(|(_, from)| **from == Some(li))
+            .filter_map(|(piece, _)| *piece)
+            .map(|piece| (piece, specs[piece].plan_line[1]));
+        let hips_valleys = line_piece.iter().flatten().filter_map(|&piece| {
+            specs[piece].plan_line.into_iter().find(|&p| at_node(p)).map(|p| (piece, p))
+        });
+        for (piece, p) in moved.chain(hips_valleys).collect::<Vec<_>>() {
+            if let Some(ridge) = ridge_piece_at(kept, p, &specs) {
+                beside_flags.push((piece, ridge, length_in, apart_in));
+            }
+        }
+    }
     // Bearings named by roof line become pieces now that all are built.
     let joint_specs: Vec<ResolvedJoint> = joint_specs
         .into_iter()
@@ -272,6 +322,8 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
                 Bearing::Piece(i) => Some(i),
                 Bearing::Line(li) => match lines.get(li).map(|l| l.kind) {
                     Some(RoofLineKind::Ridge) => {
+                        // A ridge left out beside another: the one kept.
+                        let li = kept_ridge[li].unwrap_or(li);
                         let end =
                             if matches!(j.mating.end, Some(CutEnd::Bottom | CutEnd::Start)) { 0 } else { 1 };
                         let cut_point = specs.get(j.cut)?.plan_line[end];
@@ -329,8 +381,8 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
                 .all(|x| x.is_finite())
     };
     let kept: Vec<usize> = (0..specs.len()).filter(|&i| usable(i)).collect();
-    let (specs, solids, measured, joint_specs, warnings_extra) = if kept.len() == specs.len() {
-        (specs, solids, measured, joint_specs, warnings_extra)
+    let (specs, solids, measured, joint_specs, warnings_extra, beside_flags) = if kept.len() == specs.len() {
+        (specs, solids, measured, joint_specs, warnings_extra, beside_flags)
     } else {
         let mut new_index = vec![None; specs.len()];
         for (n, &i) in kept.iter().enumerate() {
@@ -347,12 +399,19 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             })
             .collect();
         let extra = warnings_extra.into_iter().filter_map(|(i, w)| Some((new_index[i]?, w))).collect();
+        let flags = beside_flags
+            .into_iter()
+            .filter_map(|(i, ridge, length_in, apart_in)| {
+                Some((new_index[i]?, new_index[ridge]?, length_in, apart_in))
+            })
+            .collect();
         (
             kept_only(specs, &new_index),
             kept_only(solids, &new_index),
             kept_only(measured, &new_index),
             joints,
             extra,
+            flags,
         )
     };
     let labels = label_pieces(&specs, &measured);
@@ -423,6 +482,14 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             other => other,
         };
         piece_warnings[i].push(w);
+    }
+    for (i, ridge, length_in, apart_in) in beside_flags {
+        piece_warnings[i].push(FramingWarning::RidgeBesideLeftOut {
+            label: labels.labels[i].clone(),
+            ridge: labels.labels[ridge].clone(),
+            length_in,
+            apart_in,
+        });
     }
     for (joint, _) in &joints {
         // A NaN reading is no fit either.

@@ -328,6 +328,164 @@ pub fn king_standing_in(b: &RafterLine, a: &RafterLine, lines: &[PlanLine], thic
         && (across.abs() < PLAN_TOL_IN * 1e3 || into.perp_dot(up) * across >= 0.0)
 }
 
+/// Two ridges count as parallel for [`ridges_beside`] within 1 degree in
+/// plan (sine 0.0175): the solve gives such pairs exactly parallel (a
+/// sine of 1e-15 in seeds 0 to 19,999), and over a stretch of 100 in a
+/// degree would open the two a further 1.7 in apart, past a board's
+/// thickness, which the distance test catches anyway (common practice,
+/// no source).
+const BESIDE_SIN_MAX: f64 = 0.017_452_406_437_283_51; // sin 1 degree
+
+/// For each roof line, where it is a ridge left out beside a longer one:
+/// that ridge's index and the plan distance between their centre lines.
+///
+/// Two ridges side by side closer than a ridge board's thickness (the
+/// solve leaving a sliver of a plane between them) would be two boards
+/// overlapping along their whole common length, where a framer frames one
+/// ridge. A ridge is left out beside another when the two are parallel
+/// (within [`BESIDE_SIN_MAX`]), both of its ends lie less than a board's
+/// thickness from the other's centre line and no more than a thickness
+/// past the other's ends (it lies along the other, not running on past
+/// it), it is shorter, and the two share at least twice the thickness of
+/// their length (two ridges merely meeting end to end, a hip of an inch
+/// between them, share less). The longer one is kept. A ridge beside a
+/// ridge that is itself left out is kept.
+pub fn ridges_beside(lines: &[PlanLine], settings: &FramingSettings) -> Vec<Option<(usize, f64)>> {
+    let t = settings.ridge.thickness_in;
+    let length = |l: &PlanLine| l.from.distance(l.to);
+    // The longer ridge `long` that ridge `short` lies beside, and how far apart.
+    let beside = |short: &PlanLine, long: &PlanLine| -> Option<f64> {
+        let dir = (long.to - long.from).try_normalize()?;
+        let own = (short.to - short.from).try_normalize()?;
+        if own.perp_dot(dir).abs() > BESIDE_SIN_MAX {
+            return None;
+        }
+        let len = length(long);
+        let along = [short.from, short.to].map(|p| (p - long.from).dot(dir));
+        let across = [short.from, short.to].map(|p| (p - long.from).perp_dot(dir).abs());
+        let lo = along[0].min(along[1]);
+        let hi = along[0].max(along[1]);
+        let common = hi.min(len) - lo.max(0.0);
+        (across.iter().all(|&a| a < t) && lo > -t && hi < len + t && common >= 2.0 * t)
+            .then(|| ((short.from + short.to) / 2.0 - long.from).perp_dot(dir).abs())
+    };
+    let ridge = |i: usize| lines.get(i).filter(|l| l.kind == RoofLineKind::Ridge);
+    let longer = |a: usize, b: usize| match (ridge(a), ridge(b)) {
+        (Some(la), Some(lb)) => length(la) > length(lb) || (length(la) == length(lb) && a < b),
+        _ => false,
+    };
+    let candidates: Vec<Option<(usize, f64)>> = (0..lines.len())
+        .map(|i| {
+            let short = ridge(i)?;
+            (0..lines.len())
+                .filter(|&k| k != i && longer(k, i))
+                .filter_map(|k| Some((k, beside(short, ridge(k)?)?)))
+                .max_by(|a, b| {
+                    let (la, lb) = (ridge(a.0).map_or(0.0, length), ridge(b.0).map_or(0.0, length));
+                    la.total_cmp(&lb).then(b.0.cmp(&a.0))
+                })
+        })
+        .collect();
+    candidates
+        .iter()
+        .map(|c| c.filter(|(kept, _)| candidates.get(*kept).is_some_and(Option::is_none)))
+        .collect()
+}
+
+/// Re-points every rafter line that ends at a ridge left out beside a
+/// longer one ([`ridges_beside`]) to the ridge kept in its place, and
+/// gives the left-out ridge's kings that would overlap the kept ridge's
+/// way; returns, for each rafter line kept, the left-out ridge it was
+/// moved from.
+///
+/// A line bearing on the left-out ridge (a common, a jack, a king) comes
+/// from the side away from the kept ridge, so it runs on up its plane
+/// across the sliver between the two to the kept ridge's side: its upper
+/// end moves to the kept ridge's centre line, and it is cut to that
+/// ridge's side. A king so moved stays the king of the hips at its old
+/// node ([`RafterLine::stands_in_for`]). A king of the left-out ridge
+/// lying in one plane with a king of the kept ridge, square to the same
+/// wall, less than a rafter's `thickness` off it (the end kings of two
+/// ridge ends a fraction of an inch apart, along the ridges' line or
+/// across it) is left out, since the two boards would overlap: the kept
+/// ridge's king stands in for it (unless that king already stands in for
+/// another, when neither changes). A line that would meet the kept ridge
+/// at less than 30 degrees, or a king already standing in for another
+/// king, is left as it was. (In seeds 0 to 39,999 neither case comes up.)
+pub fn rafters_onto_kept_ridges(
+    rafters: &mut Vec<RafterLine>,
+    lines: &[PlanLine],
+    beside: &[Option<(usize, f64)>],
+    planes: &[PlaneFrame],
+    thickness: f64,
+) -> Vec<Option<usize>> {
+    let left_out_of = |r: &RafterLine| match r.upper_edge {
+        EdgeKind::Line(k) => beside.get(k).copied().flatten().map(|(kept, _)| (k, kept)),
+        _ => None,
+    };
+    if !rafters.iter().any(|r| left_out_of(r).is_some()) {
+        return vec![None; rafters.len()];
+    }
+    let group = |p: usize| planes.get(p).map(|f| f.plane_group);
+    // Two kings of one plane whose boards would overlap: parallel, less
+    // than a thickness apart, over a common stretch.
+    let overlapping = |a: &RafterLine, b: &RafterLine| {
+        let (Some(da), Some(db)) = ((a.upper - a.lower).try_normalize(), (b.upper - b.lower).try_normalize())
+        else {
+            return false;
+        };
+        let along = |p: DVec2| (p - a.lower).dot(da);
+        let (b0, b1) = (along(b.lower), along(b.upper));
+        da.perp_dot(db).abs() < 1e-6
+            && (b.lower - a.lower).perp_dot(da).abs() < thickness
+            && b0.max(b1) > 0.0
+            && b0.min(b1) < a.lower.distance(a.upper)
+    };
+    let before = rafters.clone();
+    let mut gives_way = vec![false; before.len()];
+    for (i, r) in before.iter().enumerate() {
+        let Some((_, kept)) = left_out_of(r) else { continue };
+        if r.king.is_none() {
+            continue;
+        }
+        let kept_king = before.iter().position(|q| {
+            q.king.is_some()
+                && q.upper_edge == EdgeKind::Line(kept)
+                && group(q.plane) == group(r.plane)
+                && overlapping(q, r)
+        });
+        if let Some(j) = kept_king
+            && rafters[j].stands_in_for.is_none()
+        {
+            gives_way[i] = true;
+            rafters[j].stands_in_for = Some(r.upper);
+        }
+    }
+    let mut moved_from = vec![None; before.len()];
+    for (i, r) in rafters.iter_mut().enumerate() {
+        let Some((left, kept)) = left_out_of(r) else { continue };
+        let (Some(line), Some(up)) = (lines.get(kept), (r.upper - r.lower).try_normalize()) else {
+            continue;
+        };
+        let Some(dir) = (line.to - line.from).try_normalize() else { continue };
+        let crossing = up.perp_dot(dir);
+        if gives_way[i] || crossing.abs() < 0.5 || (r.king.is_some() && r.stands_in_for.is_some()) {
+            continue;
+        }
+        let node = r.upper;
+        r.upper = node - up * ((node - line.from).perp_dot(dir) / crossing);
+        r.upper_edge = EdgeKind::Line(kept);
+        if r.king.is_some() {
+            r.king = Some(King::Side { ridge: kept });
+            r.stands_in_for = Some(node);
+        }
+        moved_from[i] = Some(left);
+    }
+    let mut keep = gives_way.iter().map(|g| !g);
+    rafters.retain(|_| keep.next().unwrap_or(true));
+    moved_from.into_iter().zip(&gives_way).filter(|(_, g)| !**g).map(|(m, _)| m).collect()
+}
+
 /// Clips the line through `base` up the slope to the plane's polygon: the
 /// inside stretches with the edges at their ends.
 fn clip(

@@ -94,6 +94,24 @@ pub enum FramingWarning {
         /// Its plan length, inches.
         length_in: f64,
     },
+    /// Two ridges run side by side closer than a ridge board's thickness
+    /// (the roof's planes leave a sliver between them), so their two boards
+    /// would overlap along their whole common length: the shorter is left
+    /// out and one ridge board is framed, the longer. Every member that
+    /// would bear on the left-out ridge runs on across the sliver and is
+    /// cut to the kept ridge's side instead. On the kept ridge, and on
+    /// each member moved onto it.
+    RidgeBesideLeftOut {
+        /// The member: the kept ridge, or a member cut to it in the
+        /// left-out ridge's place.
+        label: String,
+        /// The kept ridge.
+        ridge: String,
+        /// The left-out ridge's plan length, inches.
+        length_in: f64,
+        /// Plan distance between the two ridges' centre lines, inches.
+        apart_in: f64,
+    },
     /// Two pieces meet with a gap or an overlap of 1/64 in or more, as the
     /// joint check measures their solids: the geometry there needs a
     /// fitted block or a cut by hand (a node where lines of an irregular
@@ -140,6 +158,7 @@ impl FramingWarning {
             | Self::HipsMeetWithoutRidge { label }
             | Self::HipCutLevelAtPlate { label, .. }
             | Self::ShortMemberLeftOut { label, .. }
+            | Self::RidgeBesideLeftOut { label, .. }
             | Self::TailsLeftOut { label, .. }
             | Self::JointDoesNotFit { label, .. } => label,
             Self::HipTooShallow { jack, .. } => jack,
