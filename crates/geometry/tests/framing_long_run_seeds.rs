@@ -2335,3 +2335,70 @@ fn members_at_a_left_out_ridges_ends_are_cut_back_to_the_kings_running_past() {
         }
     }
 }
+
+/// Seed 13772: a block at 12/12 with a wing south (walls 2 to 4) and
+/// gables east and north-west.
+#[rustfmt::skip]
+const SEED_13772: [WallRow; 13] = [
+    (0.0, 73.12846420512982, 1.0, 14.0),
+    (169.85153594188216, 73.12846420512982, 1.0, 9.0),
+    (169.85153594188216, 0.0, 1.0, 0.0),
+    (451.3824409839607, 0.0, 1.0, 21.0),
+    (451.3824409839607, 73.12846420512982, 1.0, 22.0),
+    (581.0178870108425, 73.12846420512982, 0.0, 2.0),
+    (581.0178870108425, 516.2737678183695, 1.0, 24.0),
+    (451.3824409839607, 516.2737678183695, 1.0, 18.0),
+    (451.3824409839607, 354.28667281060825, 1.0, 17.0),
+    (451.37230811584567, 354.27653994249323, 1.0, 18.0),
+    (169.85153594188216, 354.27653994249323, 0.0, 21.0),
+    (169.85153594188216, 516.2737678183695, 0.0, 5.0),
+    (0.0, 516.2737678183695, 1.0, 14.0),
+];
+
+#[test]
+fn both_ridge_ends_beside_a_king_at_a_t_are_cut_back_to_its_sides() {
+    let frame = framed(&SEED_13772, &[]);
+    // Read from the solve: the main ridge along y = 213.703 comes in two in
+    // line, one ending at x = 310.426 and one at x = 310.808, and the
+    // wing's ridge along x = 310.617 comes up from the south to
+    // (310.617, 213.511), hips of 0.27 in (left out) running from there to
+    // the two ends. The king from the north wall along x = 310.617 runs
+    // down between the two ends to the wing ridge's end: its board, x =
+    // 309.867 to 311.367, covers both. The west ridge's end was cut back to
+    // the king's west side; the east one's was not (a valley jack's stub of
+    // 1.19 in, between the valley and that ridge at x = 312, too short to
+    // cut and left out, counted as a rafter that would lose its bearing),
+    // and its corner lay 0.19 in inside the king. Both are now cut back to
+    // the king's sides and bear on it.
+    let king =
+        piece_ending_at(&frame, MemberKind::KingCommon, 0, dvec2(310.6169884629214, 354.27653994249323))
+            .unwrap_or_else(|| panic!("the king from the north wall"));
+    let half = FramingSettings::default().rafter.thickness_in / 2.0;
+    for (end_x, side) in [(310.42557381056383, -1.0), (310.808403115279, 1.0)] {
+        let ridge = frame
+            .pieces
+            .iter()
+            .position(|p| {
+                p.kind == MemberKind::Ridge
+                    && p.plan_line.iter().any(|q| q.distance(dvec2(end_x, 213.7025020738115)) < 0.01)
+            })
+            .unwrap_or_else(|| panic!("the ridge ending at x = {end_x}"));
+        let nearest = frame.pieces[ridge]
+            .solid
+            .vertices()
+            .map(|v| (v.x - 310.6169884629214) * side)
+            .fold(f64::INFINITY, f64::min);
+        assert!(
+            nearest > half - 1e-6,
+            "{} reaches {nearest} in from the king's line",
+            frame.pieces[ridge].label
+        );
+        let joint = frame
+            .joints
+            .iter()
+            .find(|j| j.pieces == [ridge, king])
+            .unwrap_or_else(|| panic!("{} bears on the king", frame.pieces[ridge].label));
+        assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+    }
+    assert_joints_of_fit(&frame, king);
+}

@@ -680,8 +680,13 @@ impl Ctx<'_> {
             return false;
         }
         let half = self.settings.rafter.thickness_in / 2.0;
+        // A rafter line shorter in plan than a rafter is thick (a jack's
+        // stub between a valley and the ridge at a crowded node) is no
+        // board to keep a bearing for: its cheek finds no valley to land
+        // on and it is left out.
         self.rafters.iter().any(|r| {
             r.upper_edge == EdgeKind::Line(li)
+                && r.lower.distance(r.upper) >= 2.0 * half
                 && (r.upper - node).dot(-out_dir) - half < cut_back + OVERLAP_TOL_IN
         })
     }
