@@ -285,6 +285,41 @@ mod tests {
         rows.iter().filter_map(|&(p, n)| HalfSpace::through(p, n, FaceTag::Side, None)).collect()
     }
 
+    /// A one-part solid of the half-spaces.
+    fn solid(planes: &[HalfSpace]) -> Solid {
+        Solid { parts: ConvexPart::from_half_spaces(planes).into_iter().collect() }
+    }
+
+    /// A bearing board 1.5 in thick (x 0 to 1.5, z -1 to 1) from y = -10
+    /// to its end, the plane through `end_at` facing `end_normal`.
+    fn board_ending_at(end_at: DVec3, end_normal: DVec3) -> Solid {
+        solid(&planes_of(&[
+            (DVec3::new(1.5, 0.0, 0.0), DVec3::X),
+            (DVec3::ZERO, -DVec3::X),
+            (end_at, end_normal),
+            (DVec3::new(0.0, -10.0, 0.0), -DVec3::Y),
+            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+        ]))
+    }
+
+    /// A piece cut to the plane x = `face` (facing -x, toward the board),
+    /// running to x = 3, from y = -2 to y = `top`, z -1 to 1, and its fit
+    /// on `bearing` there.
+    fn fit_of_piece_cut_at(face: f64, top: f64, bearing: &Solid) -> JointFit {
+        let mating = HalfSpace::through(DVec3::new(face, 0.0, 0.0), -DVec3::X, FaceTag::Cheek, None);
+        let Some(mating) = mating else { panic!("the mating plane") };
+        let mut planes = planes_of(&[
+            (DVec3::new(3.0, 0.0, 0.0), DVec3::X),
+            (DVec3::new(0.0, top, 0.0), DVec3::Y),
+            (DVec3::new(0.0, -2.0, 0.0), -DVec3::Y),
+            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+        ]);
+        planes.push(mating);
+        check_fit(&solid(&planes), &mating, bearing, &part_bounds(bearing), None)
+    }
+
     #[test]
     fn a_corner_touching_the_bearing_board_a_hair_outside_its_end_reads_no_gap() {
         // The bearing board of the test above, its end y + eps (x - 0.75)
@@ -296,42 +331,14 @@ mod tests {
         // eps = 0.64 in on, and so read 0.64 in of gap. The corner touches
         // the board; the gap is nil. Derivation.
         let eps = 4.67e-7;
-        let bearing = planes_of(&[
-            (DVec3::new(1.5, 0.0, 0.0), DVec3::X),
-            (DVec3::ZERO, -DVec3::X),
-            (DVec3::new(0.75, 0.0, 0.0), DVec3::new(eps, 1.0, 0.0)),
-            (DVec3::new(0.0, -10.0, 0.0), -DVec3::Y),
-            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
-            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
-        ]);
+        let bearing = board_ending_at(DVec3::new(0.75, 0.0, 0.0), DVec3::new(eps, 1.0, 0.0));
         let y0 = -eps * 0.75 + 1.3e-6;
-        let cut = planes_of(&[
-            (DVec3::new(1.5, 0.0, 0.0), -DVec3::X),
-            (DVec3::new(3.0, 0.0, 0.0), DVec3::X),
-            (DVec3::new(0.0, y0, 0.0), DVec3::Y),
-            (DVec3::new(0.0, -2.0, 0.0), -DVec3::Y),
-            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
-            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
-        ]);
-        let solid =
-            |planes: &[HalfSpace]| Solid { parts: vec![ConvexPart::from_half_spaces(planes).unwrap()] };
-        let (cut, bearing) = (solid(&cut), solid(&bearing));
         assert!((bearing.depth_of(DVec3::new(1.5, y0, 1.0)) + 1.3e-6).abs() < 1e-9);
-        let mating = HalfSpace::through(DVec3::new(1.5, 0.0, 0.0), -DVec3::X, FaceTag::Cheek, None).unwrap();
-        let fit = check_fit(&cut, &mating, &bearing, &part_bounds(&bearing), None);
+        let fit = fit_of_piece_cut_at(1.5, y0, &bearing);
         assert!(fit.max_gap < 1e-5, "gap {}", fit.max_gap);
         assert!(fit.max_overlap < 1e-5, "overlap {}", fit.max_overlap);
         // 1e-3 in short of the side, the gap is read as it is.
-        let short = HalfSpace::through(DVec3::new(1.501, 0.0, 0.0), -DVec3::X, FaceTag::Cheek, None).unwrap();
-        let mut planes = planes_of(&[
-            (DVec3::new(3.0, 0.0, 0.0), DVec3::X),
-            (DVec3::new(0.0, -1.0, 0.0), DVec3::Y),
-            (DVec3::new(0.0, -2.0, 0.0), -DVec3::Y),
-            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
-            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
-        ]);
-        planes.push(short);
-        let fit = check_fit(&solid(&planes), &short, &bearing, &part_bounds(&bearing), None);
+        let fit = fit_of_piece_cut_at(1.501, -1.0, &bearing);
         assert!((fit.max_gap - 1e-3).abs() < 2e-6, "gap {}", fit.max_gap);
     }
 
@@ -346,27 +353,8 @@ mod tests {
         // the end plane, and there is no gap. Derivation (seed 13856 of the
         // long run: a hip's cheek past a king's end cut to a ridge at 45
         // degrees in plan read 1.5 in of gap).
-        let bearing = planes_of(&[
-            (DVec3::new(1.5, 0.0, 0.0), DVec3::X),
-            (DVec3::ZERO, -DVec3::X),
-            (DVec3::new(1.5, 0.0, 0.0), DVec3::new(1.0, 1.0, 0.0)),
-            (DVec3::new(0.0, -10.0, 0.0), -DVec3::Y),
-            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
-            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
-        ]);
-        let cut = planes_of(&[
-            (DVec3::new(1.5, 0.0, 0.0), -DVec3::X),
-            (DVec3::new(3.0, 0.0, 0.0), DVec3::X),
-            (DVec3::new(0.0, 1.5, 0.0), DVec3::Y),
-            (DVec3::new(0.0, -2.0, 0.0), -DVec3::Y),
-            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
-            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
-        ]);
-        let solid =
-            |planes: &[HalfSpace]| Solid { parts: vec![ConvexPart::from_half_spaces(planes).unwrap()] };
-        let (cut, bearing) = (solid(&cut), solid(&bearing));
-        let mating = HalfSpace::through(DVec3::new(1.5, 0.0, 0.0), -DVec3::X, FaceTag::Cheek, None).unwrap();
-        let fit = check_fit(&cut, &mating, &bearing, &part_bounds(&bearing), None);
+        let bearing = board_ending_at(DVec3::new(1.5, 0.0, 0.0), DVec3::new(1.0, 1.0, 0.0));
+        let fit = fit_of_piece_cut_at(1.5, 1.5, &bearing);
         assert!(fit.max_gap < 1e-5, "gap {}", fit.max_gap);
         assert!(fit.max_overlap < 1e-5, "overlap {}", fit.max_overlap);
         assert!((fit.max_hang - 1.5 / 2f64.sqrt()).abs() < 1e-5, "hang {}", fit.max_hang);
