@@ -245,8 +245,7 @@ impl Solid {
     /// corners and edges of both find every overlap. Only parts whose boxes
     /// overlap are compared.
     pub fn runs_into(&self, other: &Solid, tol: f64) -> bool {
-        let boxes = |s: &Solid| -> Vec<(DVec3, DVec3)> { s.parts.iter().map(ConvexPart::bounds).collect() };
-        let (mine, theirs) = (boxes(self), boxes(other));
+        let (mine, theirs) = (super::joints::part_bounds(self), super::joints::part_bounds(other));
         self.parts.iter().zip(&mine).any(|(a, (alo, ahi))| {
             other.parts.iter().zip(&theirs).any(|(b, (blo, bhi))| {
                 let apart = (*alo + tol).cmpgt(*bhi).any() || (*blo + tol).cmpgt(*ahi).any();
@@ -257,12 +256,6 @@ impl Solid {
 }
 
 impl ConvexPart {
-    /// The corner-wise bounds of the part.
-    pub fn bounds(&self) -> (DVec3, DVec3) {
-        let far = (DVec3::splat(f64::INFINITY), DVec3::splat(f64::NEG_INFINITY));
-        self.vertices.iter().fold(far, |(lo, hi), v| (lo.min(*v), hi.max(*v)))
-    }
-
     /// Whether this part and `other` share a point deeper than `depth`
     /// inside both: a corner of either, or a point of an edge of either.
     fn meets(&self, other: &ConvexPart, depth: f64) -> bool {
