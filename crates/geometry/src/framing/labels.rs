@@ -21,7 +21,7 @@ pub fn label_pieces(specs: &[PieceSpec], measured: &[Measured]) -> Labels {
     let key = |i: usize| -> (MemberKind, Vec<i64>) {
         let m = &measured[i];
         let s = &specs[i];
-        let q = |x: f64| (x * 1e4).round() as i64;
+        let q = |x: f64| step(x, 1e4);
         // The piece's numbers, then its cuts' numbers sorted, in one list.
         let mut k = Vec::with_capacity(PIECE_NUMBERS + 9 * m.cuts.len());
         k.extend([
@@ -56,9 +56,13 @@ pub fn label_pieces(specs: &[PieceSpec], measured: &[Measured]) -> Labels {
             }
         }
     }
+    // Longest first; lengths the same to a ten-thousandth of an inch (two
+    // hands of one jack, say, a hair apart) keep the order of their first
+    // pieces, so round-off never reorders labels.
     groups.sort_by(|a, b| {
         let (ka, kb) = (specs[a[0]].kind, specs[b[0]].kind);
-        ka.cmp(&kb).then(measured[b[0]].overall_length.total_cmp(&measured[a[0]].overall_length))
+        let length = |g: &[usize]| step(measured[g[0]].overall_length, 1e4);
+        ka.cmp(&kb).then(length(b).cmp(&length(a))).then(a[0].cmp(&b[0]))
     });
     let mut labels = vec![String::new(); specs.len()];
     let mut counter: HashMap<MemberKind, usize> = HashMap::new();
@@ -73,6 +77,20 @@ pub fn label_pieces(specs: &[PieceSpec], measured: &[Measured]) -> Labels {
     }
     Labels { labels, groups }
 }
+
+/// `x` in steps of `1 / per`, for grouping: whole steps counted from an
+/// offset of about 0.38 of a step, so that the values plans are made of
+/// (sixteenths and thirty-seconds of an inch, whole millimetres, round
+/// degrees), which land on half steps of a thousandth, never sit on a
+/// step's edge where round-off would put two identical pieces on either
+/// side of it.
+fn step(x: f64, per: f64) -> i64 {
+    (x * per + STEP_OFFSET).floor() as i64
+}
+
+/// Where a grouping step starts, in steps: the golden section, far from
+/// every simple fraction.
+const STEP_OFFSET: f64 = 0.381_966_011_250_105;
 
 /// How many of a piece's own numbers open its key, before its cuts'.
 const PIECE_NUMBERS: usize = 9;
@@ -114,10 +132,10 @@ impl Hasher for KeyHasher {
     }
 }
 
-/// The numbers of a cut list, rounded, hand-free, pushed onto `out`.
+/// The numbers of a cut list in steps, hand-free, pushed onto `out`.
 fn cut_numbers(cuts: &[super::Cut], out: &mut Vec<i64>) {
     use super::Cut;
-    let q = |x: f64| (x * 1e3).round() as i64;
+    let q = |x: f64| step(x, 1e3);
     let face = |f: &super::CutFace| {
         [q(f.side_angle_deg), q(f.top_edge_angle_deg), q(f.face_bevel_deg), q(f.edge_bevel_deg)]
     };
@@ -141,5 +159,31 @@ fn cut_numbers(cuts: &[super::Cut], out: &mut Vec<i64>) {
             Cut::Backing { left_deg, right_deg, .. } => out.extend([q(*left_deg), q(*right_deg)]),
             Cut::SquareEnd { .. } => {}
         }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn round_off_never_splits_the_values_plans_are_made_of() {
+        // Every sixteenth and thirty-second of an inch up to 24 in, and
+        // every whole millimetre (in inches) up to 600 mm, must fall in the
+        // same step as itself a few round-offs either side, at both steps
+        // the grouping uses (derivation: 7/16 in = 0.4375, 437.5
+        // thousandths, sits on a half step, where rounding to the nearest
+        // step would split it; common practice, no source).
+        let sixteenths = (0..=768).map(|k| f64::from(k) / 32.0);
+        let millimetres = (0..=600).map(|k| f64::from(k) / 25.4);
+        for x in sixteenths.chain(millimetres) {
+            for per in [1e3, 1e4] {
+                let wobble = x.abs().max(1.0) * 1e-12;
+                assert_eq!(step(x - wobble, per), step(x + wobble, per), "{x} at 1/{per}");
+            }
+        }
+        // And the steps still tell apart what a framer would.
+        assert_ne!(step(6.4375, 1e3), step(6.4385, 1e3));
+        assert_ne!(step(187.7971, 1e4), step(187.7973, 1e4));
     }
 }
