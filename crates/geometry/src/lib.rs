@@ -27,6 +27,7 @@ pub mod length;
 pub mod member_size;
 pub mod outline;
 pub mod pitch;
+mod quick_hash;
 pub mod rafter_table;
 pub mod random_outline;
 pub mod roof;

@@ -1,5 +1,6 @@
 //! A quick hash for the solver's maps and sets, whose keys are its own
-//! node, vertex and wall numbers and plan cells.
+//! node, vertex and wall numbers and plan cells, and for framing's table
+//! of the piece shapes already cut.
 //!
 //! The standard library's hash guards against keys chosen to collide,
 //! which numbers the solver makes never are, and on a large comb it cost

@@ -18,10 +18,10 @@ use glam::DVec2;
 mod skeleton;
 
 use crate::outline::{Meeting, segments_meet};
+use crate::quick_hash::QuickMap;
 use crate::{Outline, Wall, WallRoof};
 use skeleton::eaves::{EdgeSide, eave_outline};
 use skeleton::lines::WallLine;
-use skeleton::quick_hash::QuickMap;
 use skeleton::tolerance::Tolerance;
 use skeleton::{Ring, Skeleton, SkeletonError};
 

@@ -4,9 +4,10 @@ use glam::DVec2;
 use serde::Serialize;
 
 use super::bearing_stretch::{cheek_past_cut_wall_line, lands_on_bearing};
-use super::board::{PieceSpec, SolidScratch};
+use super::board::PieceSpec;
 use super::builders::{Bearing, Ctx, left_out_lines};
 use super::checks::piece_checks;
+use super::copies::solids_of;
 use super::joints::{JOINT_FIT_IN, Joint, check_fit, part_bounds};
 use super::labels::label_pieces;
 use super::layout::{PlanLine, RafterLine, rafter_lines, rafters_onto_kept_ridges, ridges_beside};
@@ -341,8 +342,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         })
         .collect();
 
-    let mut scratch = SolidScratch::default();
-    let solids: Vec<_> = specs.iter().map(|s| s.solid_with(&mut scratch)).collect();
+    let solids = solids_of(&specs);
     let measured: Vec<Measured> =
         specs.iter().zip(&solids).map(|(s, solid)| measure(s, solid, settings)).collect();
     // A piece its cuts leave nothing of (a layout line squeezed out at a
@@ -550,7 +550,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
         let mut warnings: Vec<FramingWarning> = Vec::new();
         for &i in group {
             for w in &piece_warnings[i] {
-                if !warnings.contains(w) {
+                if !warnings.iter().any(|seen| seen.repeats(w)) {
                     warnings.push(w.clone());
                 }
             }
@@ -576,7 +576,7 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     let mut warnings: Vec<FramingWarning> = Vec::new();
     for m in &members {
         for w in &m.warnings {
-            if !warnings.contains(w) {
+            if !warnings.iter().any(|seen| seen.repeats(w)) {
                 warnings.push(w.clone());
             }
         }

@@ -9,6 +9,7 @@ mod bearing_stretch;
 mod board;
 mod builders;
 mod checks;
+mod copies;
 mod corners;
 mod cuts;
 mod error;

@@ -148,7 +148,62 @@ pub enum FramingWarning {
     },
 }
 
+/// Two warnings whose numbers differ by less than this (inches, or
+/// degrees) say the same thing: the same cut on pieces of one shape at
+/// different places in a plan comes out a few billionths apart.
+const REPEAT_TOL: f64 = 1e-6;
+
 impl FramingWarning {
+    /// Whether `other` says what this warning says: the same kind about
+    /// the same members, every number within [`REPEAT_TOL`].
+    pub fn repeats(&self, other: &Self) -> bool {
+        use FramingWarning as W;
+        let close = |a: &f64, b: &f64| (a - b).abs() <= REPEAT_TOL;
+        match (self, other) {
+            (
+                W::NotchTooDeep { label: a, notch_depth_in: da, limit_in: la },
+                W::NotchTooDeep { label: b, notch_depth_in: db, limit_in: lb },
+            ) => a == b && close(da, db) && close(la, lb),
+            (
+                W::BevelBeyondSaw { label: a, end: ea, saw: sa, bevel_deg: ba, max_deg: ma },
+                W::BevelBeyondSaw { label: b, end: eb, saw: sb, bevel_deg: bb, max_deg: mb },
+            ) => a == b && ea == eb && sa == sb && close(ba, bb) && close(ma, mb),
+            (
+                W::HipTooShallow { hip: ha, jack: ja, short_by_in: sa },
+                W::HipTooShallow { hip: hb, jack: jb, short_by_in: sb },
+            ) => ha == hb && ja == jb && close(sa, sb),
+            (
+                W::RidgeTooShallow { ridge: ra, rafter: fa, short_by_in: sa },
+                W::RidgeTooShallow { ridge: rb, rafter: fb, short_by_in: sb },
+            ) => ra == rb && fa == fb && close(sa, sb),
+            (
+                W::StockLengthExceeded { label: a, length_in: la, longest_stock_in: sa },
+                W::StockLengthExceeded { label: b, length_in: lb, longest_stock_in: sb },
+            ) => a == b && close(la, lb) && close(sa, sb),
+            (
+                W::HipCutLevelAtPlate { label: a, cut_in: ca },
+                W::HipCutLevelAtPlate { label: b, cut_in: cb },
+            ) => a == b && close(ca, cb),
+            (
+                W::ShortMemberLeftOut { label: a, left_out: ka, length_in: la },
+                W::ShortMemberLeftOut { label: b, left_out: kb, length_in: lb },
+            ) => a == b && ka == kb && close(la, lb),
+            (
+                W::RidgeBesideLeftOut { label: a, ridge: ra, length_in: la, apart_in: pa },
+                W::RidgeBesideLeftOut { label: b, ridge: rb, length_in: lb, apart_in: pb },
+            ) => a == b && ra == rb && close(la, lb) && close(pa, pb),
+            (
+                W::JointDoesNotFit { label: a, bears_on: ba, gap_in: ga, overlap_in: oa },
+                W::JointDoesNotFit { label: b, bears_on: bb, gap_in: gb, overlap_in: ob },
+            ) => a == b && ba == bb && close(ga, gb) && close(oa, ob),
+            (W::TailsLeftOut { label: a, count: ca }, W::TailsLeftOut { label: b, count: cb }) => {
+                a == b && ca == cb
+            }
+            (W::HipsMeetWithoutRidge { label: a }, W::HipsMeetWithoutRidge { label: b }) => a == b,
+            _ => false,
+        }
+    }
+
     /// The label of the member the warning is mainly about.
     pub fn label(&self) -> &str {
         match self {
@@ -164,5 +219,27 @@ impl FramingWarning {
             Self::HipTooShallow { jack, .. } => jack,
             Self::RidgeTooShallow { rafter, .. } => rafter,
         }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn warnings_a_hair_apart_repeat_and_others_do_not() {
+        // Derivation: 1e-9 in is round-off at a plan's size, 1/1000 in
+        // is a real difference (common practice, no source).
+        let notch = |depth: f64| FramingWarning::NotchTooDeep {
+            label: "C1".into(),
+            notch_depth_in: depth,
+            limit_in: 2.4,
+        };
+        assert!(notch(2.5).repeats(&notch(2.5 + 1e-9)));
+        assert!(!notch(2.5).repeats(&notch(2.501)));
+        let other = FramingWarning::NotchTooDeep { label: "C2".into(), notch_depth_in: 2.5, limit_in: 2.4 };
+        assert!(!notch(2.5).repeats(&other));
+        let hub = FramingWarning::HipsMeetWithoutRidge { label: "C1".into() };
+        assert!(!notch(2.5).repeats(&hub) && hub.repeats(&hub.clone()));
     }
 }

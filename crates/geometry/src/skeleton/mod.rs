@@ -24,7 +24,6 @@ pub(crate) mod eaves;
 mod events;
 mod faces;
 pub(crate) mod lines;
-pub(crate) mod quick_hash;
 mod resolve;
 mod split_search;
 mod sweep_index;
@@ -35,9 +34,9 @@ use std::collections::BinaryHeap;
 
 use glam::DVec2;
 
+use crate::quick_hash::QuickMap;
 use events::{Event, EventKind};
 use lines::WallLine;
-use quick_hash::QuickMap;
 use resolve::Site;
 use sweep_index::SweepIndex;
 use tolerance::Tolerance;

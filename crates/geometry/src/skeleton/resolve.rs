@@ -4,8 +4,8 @@
 
 use glam::DVec2;
 
-use super::quick_hash::QuickSet;
 use super::wavefront::{EdgeId, VertexId, Wavefront};
+use crate::quick_hash::QuickSet;
 
 /// One wall-line ray at the event point: an edge arriving or leaving.
 #[derive(Debug, Clone, Copy)]

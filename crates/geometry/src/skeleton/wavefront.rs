@@ -3,9 +3,9 @@
 use glam::DVec2;
 
 use super::lines::WallLine;
-use super::quick_hash::QuickMap;
 use super::split_search::LineBlocks;
 use super::tolerance::Tolerance;
+use crate::quick_hash::QuickMap;
 
 /// Index of a wavefront vertex.
 pub(crate) type VertexId = usize;
