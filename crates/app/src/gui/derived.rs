@@ -265,6 +265,7 @@ fn outline_walls(plan: &Plan, error: &OutlineError) -> Vec<usize> {
         }
         OutlineError::StraightCornerRoofChanges { wall: w, next, .. } => vec![wall(w), wall(next)],
         OutlineError::GableNearlyInLine { gable, wall: w, .. } => vec![wall(gable), wall(w)],
+        OutlineError::CourtyardTooSmallForOverhangs { wall: w, other, .. } => vec![wall(w), wall(other)],
         // About the whole outline or a whole courtyard, not one wall.
         OutlineError::TooFewCorners { .. }
         | OutlineError::CourtyardTooFewCorners { .. }
