@@ -504,3 +504,14 @@ fn a_round_courtyard_of_many_corners() {
     let got = message(rectangle(), vec![round_courtyard(400, 20.0, 24.0)]);
     assert!(got.contains("48 in together, but there is room for only 40 in, 8.01 in short"), "{got}");
 }
+
+#[test]
+fn the_walls_are_named_lower_number_first() {
+    // The strip courtyard given from its top left corner: its first wall
+    // is the short one on the left, whose fascia turns round between the
+    // second wall (the bottom) and the last (the top).
+    let mut court = strip_courtyard(30.0, 16.0);
+    court.rotate_right(1);
+    let got = message(rectangle(), vec![court]);
+    assert!(got.contains(": wall 6 (corner 2 to corner 3) and wall 8 (corner 4 to corner 1) overhang"), "{got}");
+}

@@ -143,7 +143,8 @@ impl Courtyard {
             if (edge.b - edge.a).dot(u) <= 0.0 {
                 // The tails at its two ends cross: it is the walls either
                 // side whose fascias have come too close.
-                return Some(Collapse { wall: (edge.wall + n - 1) % n, other: (edge.wall + 1) % n });
+                let (prev, next) = ((edge.wall + n - 1) % n, (edge.wall + 1) % n);
+                return Some(Collapse { wall: prev.min(next), other: prev.max(next) });
             }
         }
         let m = ring.len();
