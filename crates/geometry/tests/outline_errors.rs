@@ -513,5 +513,8 @@ fn the_walls_are_named_lower_number_first() {
     let mut court = strip_courtyard(30.0, 16.0);
     court.rotate_right(1);
     let got = message(rectangle(), vec![court]);
-    assert!(got.contains(": wall 6 (corner 2 to corner 3) and wall 8 (corner 4 to corner 1) overhang"), "{got}");
+    assert!(
+        got.contains(": wall 6 (corner 2 to corner 3) and wall 8 (corner 4 to corner 1) overhang"),
+        "{got}"
+    );
 }
