@@ -38,7 +38,9 @@ pub use compound_cut::{CompoundCut, CutAngles, CutWarning, MiterSetting, SquareF
 pub use framing::{Frame, FramingError, FramingSettings, Member, MemberKind, frame_roof};
 pub use length::{Length, LengthError, LengthStyle, LengthUnit};
 pub use member_size::{MemberSize, MemberSizeError};
-pub use outline::{CornerName, GABLE_TURN_MIN_DEG, Outline, OutlineError, Wall, WallName, WallRoof};
+pub use outline::{
+    CornerName, CourtyardShortfall, GABLE_TURN_MIN_DEG, Outline, OutlineError, Wall, WallName, WallRoof,
+};
 pub use pitch::{Pitch, PitchError};
 pub use rafter_table::{AngleSetting, MarkAlong, MetricRafterTable, RafterTable, SquareSetting};
 pub use random_outline::{

@@ -18,6 +18,9 @@
 //!   least [`GABLE_TURN_MIN_DEG`] where they meet.
 //! - Every courtyard lies inside the outer ring and outside every other
 //!   courtyard.
+//! - Every courtyard has room for the overhangs into it: its fascia lines
+//!   (each wall line moved into it by its own overhang) still enclose it
+//!   without crossing or closing up (see [`OutlineError::CourtyardTooSmallForOverhangs`]).
 //!
 //! # Tolerance
 //! [`Outline::tolerance`] is [`TOLERANCE_PER_SIZE`] times the larger side
@@ -34,6 +37,7 @@ use glam::DVec2;
 use robust::{Coord, orient2d};
 use thiserror::Error;
 
+mod courtyard_eaves;
 mod segment_grid;
 
 pub(crate) use segment_grid::SegmentGrid;
@@ -326,6 +330,58 @@ pub enum OutlineError {
         /// The courtyard around it, from 0.
         other: usize,
     },
+    /// A courtyard narrower than the overhangs hung into it: the fascia
+    /// lines of its walls cross or close up, so the rafter, hip and valley
+    /// tails from its sides would cross each other and run into the
+    /// members beyond. No framer builds that.
+    #[error(
+        "courtyard {} is too small for the overhangs into it: {} (corner {} to corner {}) and {} (corner {} to corner {}) overhang {} in and {} in, {} in together, but there is room for only {} in, {} in short; shorten those overhangs or widen the courtyard",
+        courtyard + 1,
+        wall.short(), wall.from_corner + 1, wall.to_corner + 1,
+        other.short(), other.from_corner + 1, other.to_corner + 1,
+        fmt_in(shortfall.overhangs_in[0]), fmt_in(shortfall.overhangs_in[1]),
+        fmt_in(shortfall.overhangs_total_in()), fmt_in(shortfall.room_in), fmt_in(shortfall.short_in())
+    )]
+    CourtyardTooSmallForOverhangs {
+        /// The courtyard, from 0.
+        courtyard: usize,
+        /// The lower-numbered of the two walls whose overhangs meet.
+        wall: WallName,
+        /// The other wall.
+        other: WallName,
+        /// How far the courtyard falls short.
+        shortfall: CourtyardShortfall,
+    },
+}
+
+/// How far a courtyard falls short of the overhangs of two of its walls.
+///
+/// `room_in` is how much of the two overhangs together the courtyard has
+/// room for: with each overhang scaled down by `room_in / (sum of the
+/// two)` (and every other overhang into the courtyard by the same
+/// fraction) the fascias just stop meeting. For two facing walls in line
+/// with each other that is the clear width between them, less the
+/// outline's tolerance; for walls at an angle it is the same measure taken
+/// along their overhangs.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct CourtyardShortfall {
+    /// The two walls' overhangs, in inches, in the order the error names
+    /// the walls.
+    pub overhangs_in: [f64; 2],
+    /// How much of their sum the courtyard has room for, in inches.
+    pub room_in: f64,
+}
+
+impl CourtyardShortfall {
+    /// The two overhangs together, in inches.
+    pub fn overhangs_total_in(&self) -> f64 {
+        self.overhangs_in[0] + self.overhangs_in[1]
+    }
+
+    /// By how much the overhangs exceed the room for them, in inches.
+    pub fn short_in(&self) -> f64 {
+        self.overhangs_total_in() - self.room_in
+    }
 }
 
 /// A length in inches with three significant digits, for messages.
@@ -471,6 +527,7 @@ impl Outline {
         outline.ring_signed_areas = (0..outline.ring_count())
             .map(|r| signed_area(&outline.ring_points(r).collect::<Vec<_>>()))
             .collect();
+        outline.check_courtyard_eaves()?;
         Ok(outline)
     }
 

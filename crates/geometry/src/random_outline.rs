@@ -94,8 +94,10 @@ pub fn random_outline_with(shape: OutlineShape, seed: u64, features: OutlineFeat
 
 /// As [`random_outline_with`], but the first draw refused for what a
 /// person could have drawn (a gable nearly in line with a pitched wall,
-/// [`OutlineError::GableNearlyInLine`]) is handed back with its message
-/// instead of drawn again, so a long run can count such plans as refused.
+/// [`OutlineError::GableNearlyInLine`], or a courtyard too small for its
+/// overhangs, [`OutlineError::CourtyardTooSmallForOverhangs`]) is handed
+/// back with its message instead of drawn again, so a long run can count
+/// such plans as refused.
 pub fn random_outline_or_refusal(
     shape: OutlineShape,
     seed: u64,
@@ -108,7 +110,10 @@ pub fn random_outline_or_refusal(
         attempt += 1;
         match draw(shape, use_features, &mut rng) {
             Ok(outline) => return Ok(outline),
-            Err(e @ OutlineError::GableNearlyInLine { .. }) => return Err(e),
+            Err(
+                e @ (OutlineError::GableNearlyInLine { .. }
+                | OutlineError::CourtyardTooSmallForOverhangs { .. }),
+            ) => return Err(e),
             Err(_) => {}
         }
     }
@@ -192,13 +197,18 @@ fn draw(
     let outer = roof_walls(&points, features, rng);
     let mut courtyards = Vec::new();
     if features.courtyard {
-        // Keep the first courtyard that fits; without one, the outline stands alone.
+        // Keep the first courtyard that fits; without one, the outline
+        // stands alone. One too small for its overhangs is kept: a person
+        // could draw it, and it is refused with its message.
         for _ in 0..20 {
             let ring = courtyard_points(min, max, shape, rng);
             let walls = roof_walls(&ring, OutlineFeatures { gables: false, ..features }, rng);
-            if Outline::new(outer.clone(), vec![walls.clone()]).is_ok() {
-                courtyards.push(walls);
-                break;
+            match Outline::new(outer.clone(), vec![walls.clone()]) {
+                Ok(_) | Err(OutlineError::CourtyardTooSmallForOverhangs { .. }) => {
+                    courtyards.push(walls);
+                    break;
+                }
+                Err(_) => {}
             }
         }
     }

@@ -69,11 +69,13 @@ const SEED_420: [WallRow; 22] = [
     (0.0, 0.0, 1.25, 15.0),
 ];
 
+// The draw's overhangs 14, 4, 10, 4 in cut to 6, 4, 4, 4 in: as
+// drawn the courtyard is too small for them, and refused.
 #[rustfmt::skip]
 const SEED_420_COURTYARD: [WallRow; 4] = [
-    (208.83505446014766, 44.005070361305584, 1.3333333333333333, 14.0),
+    (208.83505446014766, 44.005070361305584, 1.3333333333333333, 6.0),
     (223.80141667112417, 44.005070361305584, 0.6666666666666666, 4.0),
-    (223.80141667112417, 33.48140969250558, 0.75, 10.0),
+    (223.80141667112417, 33.48140969250558, 0.75, 4.0),
     (208.83505446014766, 33.48140969250558, 0.5604885404795198, 4.0),
 ];
 
@@ -377,9 +379,11 @@ const SEED_382: [WallRow; 8] = [
     (0.0, 0.0, 0.5833333333333334, 20.0),
 ];
 
+// The draw's overhangs 20, 3, 5, 15 in cut to 12, 3, 5, 15 in: as
+// drawn the courtyard is too small for them, and refused.
 #[rustfmt::skip]
 const SEED_382_COURTYARD: [WallRow; 4] = [
-    (157.64228958781342, 349.62562416470627, 0.8796394681680416, 20.0),
+    (157.64228958781342, 349.62562416470627, 0.8796394681680416, 12.0),
     (182.5626571556893, 349.62562416470627, 0.8796394681680416, 3.0),
     (182.5626571556893, 331.9022156189557, 0.8796394681680416, 5.0),
     (157.64228958781342, 331.9022156189557, 0.8796394681680416, 15.0),
@@ -982,32 +986,33 @@ const SEED_2504: [WallRow; 11] = [
     (0.0, 0.018952240191145428, 1.4166666666666667, 3.0),
 ];
 
-/// Seed 8010: a small block at 8.6/12 round a courtyard at 4/12.
+/// Seed 3072: a long block at 3/12 with two wings north, its west wall
+/// and the north wall east of the east wing each bent by a hair.
 #[rustfmt::skip]
-const SEED_8010: [WallRow; 5] = [
-    (0.0, 0.0, 0.7149684601097285, 6.0),
-    (45.56804708991002, 0.0, 0.7149684601097285, 16.0),
-    (45.56804708991002, 132.66455171981363, 0.7149684601097285, 15.0),
-    (45.56804708991002, 276.54127090673717, 0.7149684601097285, 13.0),
-    (0.0, 276.54127090673717, 0.7149684601097285, 18.0),
-];
-
-#[rustfmt::skip]
-const SEED_8010_COURTYARD: [WallRow; 4] = [
-    (23.561068490002494, 79.76403318185537, 0.3333333333333333, 22.0),
-    (30.2228223432346, 79.76403318185537, 0.3333333333333333, 16.0),
-    (30.2228223432346, 74.48342249337414, 0.3333333333333333, 6.0),
-    (23.561068490002494, 74.48342249337414, 0.3333333333333333, 14.0),
+const SEED_3072: [WallRow; 12] = [
+    (0.0, 0.0, 0.2515071967878663, 13.0),
+    (1140.4690133866545, 0.0, 0.2515071967878663, 17.0),
+    (1140.4690133866545, 221.42106761396803, 0.2515071967878663, 16.0),
+    (1082.393506955501, 221.28285387861274, 0.2515071967878663, 21.0),
+    (1018.5646360788403, 221.42106761396803, 0.2515071967878663, 11.0),
+    (1018.5646360788403, 885.6842704558721, 0.2515071967878663, 15.0),
+    (797.9361354256619, 885.6842704558721, 0.2515071967878663, 6.0),
+    (797.9361354256619, 221.42106761396803, 0.2515071967878663, 12.0),
+    (130.5220759485384, 221.42106761396803, 0.2515071967878663, 16.0),
+    (130.5220759485384, 1107.1053380698402, 0.2515071967878663, 22.0),
+    (0.0, 1107.1053380698402, 0.2515071967878663, 17.0),
+    (0.35202839694789034, 700.1476502554078, 0.2515071967878663, 15.0),
 ];
 
 #[test]
 fn a_joint_that_does_not_fit_is_flagged_on_the_member_cut_to_it() {
-    let frame = framed(&SEED_8010, &[&SEED_8010_COURTYARD]);
-    // A valley's top runs 0.11 in into the ridge it is cut to (a fault of
-    // the framing not mended yet; should it be, this test wants another
-    // frame with a misfit). The member cut to fit is flagged with both
-    // labels and the gap and overlap the joint check measured; a joint
-    // that fits is not flagged.
+    let frame = framed(&SEED_3072, &[]);
+    // A valley's top lies 0.043 in inside a ridge board it is not cut to,
+    // two hips too short to cut being left out in a row from its node (a
+    // fault of the framing not mended yet; should it be, this test wants
+    // another frame with a misfit). The member cut to fit is flagged with
+    // both labels and the gap and overlap the joint check measured; a
+    // joint that fits is not flagged.
     let misfits: Vec<_> =
         frame.joints.iter().filter(|j| !(j.max_gap < FIT_IN && j.max_overlap < FIT_IN)).collect();
     assert!(!misfits.is_empty());
@@ -1709,11 +1714,13 @@ const SEED_5340: [WallRow; 8] = [
     (0.0, 286.8092529883387, 1.4166666666666667, 17.0),
 ];
 
+// The draw's overhangs 6, 2, 22, 8 in cut to 6, 2, 10, 8 in: as
+// drawn the courtyard is too small for them, and refused.
 #[rustfmt::skip]
 const SEED_5340_COURTYARD: [WallRow; 4] = [
     (272.15646094545343, 383.802810180881, 1.4359557074431943, 6.0),
     (293.34464933471827, 383.802810180881, 0.16666666666666666, 2.0),
-    (293.34464933471827, 365.58471578437207, 0.3333333333333333, 22.0),
+    (293.34464933471827, 365.58471578437207, 0.3333333333333333, 10.0),
     (272.15646094545343, 365.58471578437207, 1.4166666666666667, 8.0),
 ];
 
@@ -2207,12 +2214,14 @@ const SEED_4860: [WallRow; 6] = [
     (43.878250085678026, 92.49243445879353, 0.16666666666666666, 16.0),
 ];
 
+// The draw's overhangs 4, 15, 2, 17 in cut to 1, 3, 2, 3 in: as
+// drawn the courtyard is too small for them, and refused.
 #[rustfmt::skip]
 const SEED_4860_COURTYARD: [WallRow; 4] = [
-    (81.39518106115747, 142.36572248823467, 0.4166666666666667, 4.0),
-    (87.7365266391302, 142.36572248823467, 0.4166666666666667, 15.0),
+    (81.39518106115747, 142.36572248823467, 0.4166666666666667, 1.0),
+    (87.7365266391302, 142.36572248823467, 0.4166666666666667, 3.0),
     (87.7365266391302, 137.51835041887495, 0.4166666666666667, 2.0),
-    (81.39518106115747, 137.51835041887495, 0.4166666666666667, 17.0),
+    (81.39518106115747, 137.51835041887495, 0.4166666666666667, 3.0),
 ];
 
 #[test]
@@ -2281,8 +2290,8 @@ fn ridges_side_by_side_joined_by_a_left_out_hip_are_framed_as_one() {
     assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
 }
 
-/// Seed 5430: a block at 3/12 round a courtyard at 16/12 with overhangs
-/// of 4 to 18 in. South of the courtyard a ridge of 6.0 in along
+/// Seed 5430: a block at 3/12 round a courtyard at 16/12 (its overhangs
+/// cut to 4 to 10 in here from the draw's 4 to 18 in). South of the courtyard a ridge of 6.0 in along
 /// y = 152.542 lies 1.170 in north of the block's ridge along y = 151.373
 /// (56.6 in); a hip of 1.65 in (left out) joins their west ends.
 #[rustfmt::skip]
@@ -2293,11 +2302,13 @@ const SEED_5430: [WallRow; 4] = [
     (69.19766537044362, 192.25127235480304, 0.25, 2.0),
 ];
 
+// The draw's overhangs 12, 18, 18, 4 in cut to 6, 10, 6, 4 in: as
+// drawn the courtyard is too small for them, and refused.
 #[rustfmt::skip]
 const SEED_5430_COURTYARD: [WallRow; 4] = [
-    (92.96439613355592, 172.53578076729542, 1.3333333333333333, 12.0),
-    (107.47938813872169, 172.53578076729542, 1.3333333333333333, 18.0),
-    (107.47938813872169, 159.98774770425865, 1.3333333333333333, 18.0),
+    (92.96439613355592, 172.53578076729542, 1.3333333333333333, 6.0),
+    (107.47938813872169, 172.53578076729542, 1.3333333333333333, 10.0),
+    (107.47938813872169, 159.98774770425865, 1.3333333333333333, 6.0),
     (92.96439613355592, 159.98774770425865, 1.3333333333333333, 4.0),
 ];
 

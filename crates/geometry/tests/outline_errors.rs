@@ -322,3 +322,199 @@ fn ten_thousand_corners_are_checked() {
     let got = message(crossed, vec![]);
     assert!(got.contains("crosses"), "{got}");
 }
+
+/// A rectangular courtyard 100 in long (x) and `width` in wide (y) in the
+/// 40 ft by 30 ft rectangle, every wall overhanging `overhang_in`.
+fn strip_courtyard(width: f64, overhang_in: f64) -> Vec<Wall> {
+    let mut court = walls(&[(100.0, 100.0), (200.0, 100.0), (200.0, 100.0 + width), (100.0, 100.0 + width)]);
+    for wall in &mut court {
+        wall.overhang_in = overhang_in;
+    }
+    court
+}
+
+#[test]
+fn a_courtyard_just_wide_enough_for_its_overhangs() {
+    // 16 in overhangs each side need 16 + 16 = 32 in across (arithmetic);
+    // 32 1/4 in leaves a quarter inch between the fascias.
+    assert!(Outline::new(rectangle(), vec![strip_courtyard(32.25, 16.0)]).is_ok());
+    // Overhangs of 0 into a courtyard need no room at all.
+    assert!(Outline::new(rectangle(), vec![strip_courtyard(2.0, 0.0)]).is_ok());
+}
+
+#[test]
+fn a_courtyard_too_narrow_for_its_overhangs() {
+    // 30 in across with 16 in overhangs each side: 32 in of overhang
+    // (arithmetic), 2 in more than the room. Walls 1-4 are outer; the
+    // courtyard's walls 5 (its bottom) and 7 (its top) face each other.
+    assert_eq!(
+        message(rectangle(), vec![strip_courtyard(30.0, 16.0)]),
+        "courtyard 1 is too small for the overhangs into it: wall 5 (corner 1 to corner 2) and wall 7 \
+         (corner 3 to corner 4) overhang 16 in and 16 in, 32 in together, but there is room for only \
+         30 in, 2 in short; shorten those overhangs or widen the courtyard"
+    );
+    // Fascias that exactly meet leave no room for the fascia boards.
+    let got = message(rectangle(), vec![strip_courtyard(32.0, 16.0)]);
+    assert!(got.starts_with("courtyard 1 is too small for the overhangs into it"), "{got}");
+    // The same given clockwise, as the second of two courtyards.
+    let first = strip_courtyard(100.0, 16.0);
+    let mut second = strip_courtyard(30.0, 16.0);
+    second.reverse();
+    for wall in &mut second {
+        wall.corner.y += 150.0;
+    }
+    match Outline::new(rectangle(), vec![first, second]) {
+        Err(OutlineError::CourtyardTooSmallForOverhangs { courtyard, wall, other, shortfall }) => {
+            assert_eq!(courtyard, 1);
+            // Walls 9-12 are the second courtyard: given reversed, its
+            // bottom runs from its corner 3 to corner 4 (wall 11), its top
+            // from corner 1 to corner 2 (wall 9); numbered from 0 here.
+            assert_eq!((wall.wall, other.wall), (8, 10));
+            assert_eq!(shortfall.overhangs_in, [16.0, 16.0]);
+            // Room: 30 in less the 0.0048 in tolerance (1e-5 of 480 in).
+            assert!((shortfall.room_in - (30.0 - 0.0048)).abs() < 1e-9, "{shortfall:?}");
+            assert!((shortfall.short_in() - 2.0048).abs() < 1e-9, "{shortfall:?}");
+        }
+        other => panic!("unexpected {other:?}"),
+    }
+}
+
+#[test]
+fn a_gable_into_a_courtyard_overhangs_by_its_rake() {
+    // A gable's rake overhangs into the courtyard as an eave does: 20 in
+    // across with a 12 in rake on one side and a 12 in eave on the other
+    // is 24 in of overhang (arithmetic), 4 in more than the room.
+    let mut court = strip_courtyard(20.0, 12.0);
+    court[0].roof = WallRoof::Gable;
+    let got = message(rectangle(), vec![court]);
+    assert!(got.contains("wall 5 (corner 1 to corner 2) and wall 7 (corner 3 to corner 4)"), "{got}");
+    assert!(got.contains("room for only 20 in, 4 in short"), "{got}");
+}
+
+#[test]
+fn one_overhang_into_a_courtyard_against_a_bare_wall() {
+    // 20 in across: a 24 in overhang on one side with none on the other
+    // runs 4 in into the far wall (arithmetic); 18 in fits.
+    let mut court = strip_courtyard(20.0, 0.0);
+    court[0].overhang_in = 24.0;
+    let got = message(rectangle(), vec![court.clone()]);
+    assert!(
+        got.contains("overhang 24 in and 0 in, 24 in together, but there is room for only 20 in, 4 in short"),
+        "{got}"
+    );
+    court[0].overhang_in = 18.0;
+    assert!(Outline::new(rectangle(), vec![court]).is_ok());
+}
+
+#[test]
+fn an_l_shaped_courtyard_with_a_thin_arm() {
+    // An L: an arm 150 in long and 20 in wide along the bottom, and one
+    // 30 in wide up the left side. With 12 in overhangs the wide arm has
+    // 30 - 24 = 6 in to spare and the thin one is 24 - 20 = 4 in short
+    // (arithmetic): walls 5 (the arm's bottom) and 7 (its top) are named.
+    let court = walls(&[
+        (100.0, 100.0),
+        (250.0, 100.0),
+        (250.0, 120.0),
+        (130.0, 120.0),
+        (130.0, 250.0),
+        (100.0, 250.0),
+    ]);
+    assert_eq!(
+        message(rectangle(), vec![court]),
+        "courtyard 1 is too small for the overhangs into it: wall 5 (corner 1 to corner 2) and wall 7 \
+         (corner 3 to corner 4) overhang 12 in and 12 in, 24 in together, but there is room for only \
+         20 in, 4 in short; shorten those overhangs or widen the courtyard"
+    );
+    // With 9 in overhangs (18 in across the thin arm) it fits.
+    let mut court = walls(&[
+        (100.0, 100.0),
+        (250.0, 100.0),
+        (250.0, 120.0),
+        (130.0, 120.0),
+        (130.0, 250.0),
+        (100.0, 250.0),
+    ]);
+    for wall in &mut court {
+        wall.overhang_in = 9.0;
+    }
+    assert!(Outline::new(rectangle(), vec![court]).is_ok());
+}
+
+/// Two 100 in square courtyard rooms joined by a neck 60 in long and
+/// `neck` in wide, counter-clockwise from the first room's bottom left.
+fn waisted_courtyard(neck: f64) -> Vec<Wall> {
+    let (lo, hi) = (150.0 - neck / 2.0, 150.0 + neck / 2.0);
+    walls(&[
+        (100.0, 100.0),
+        (200.0, 100.0),
+        (200.0, lo),
+        (260.0, lo),
+        (260.0, 100.0),
+        (360.0, 100.0),
+        (360.0, 200.0),
+        (260.0, 200.0),
+        (260.0, hi),
+        (200.0, hi),
+        (200.0, 200.0),
+        (100.0, 200.0),
+    ])
+}
+
+#[test]
+fn a_courtyard_with_a_thin_neck() {
+    // The neck's walls have room to spare at both ends, so no fascia turns
+    // round; the fascias of the neck's two sides cross in its middle. With
+    // 12 in overhangs a 20 in neck is 24 - 20 = 4 in short (arithmetic).
+    // Its bottom is the courtyard's wall 3 (wall 7 counting the 4 outer
+    // walls), its top wall 9 (wall 13).
+    assert_eq!(
+        message(rectangle(), vec![waisted_courtyard(20.0)]),
+        "courtyard 1 is too small for the overhangs into it: wall 7 (corner 3 to corner 4) and wall 13 \
+         (corner 9 to corner 10) overhang 12 in and 12 in, 24 in together, but there is room for only \
+         20 in, 4 in short; shorten those overhangs or widen the courtyard"
+    );
+    assert!(Outline::new(rectangle(), vec![waisted_courtyard(25.0)]).is_ok());
+}
+
+/// A round courtyard of `corners` corners on a circle of `radius_in`
+/// round (240, 180), every wall overhanging `overhang_in`.
+fn round_courtyard(corners: usize, radius_in: f64, overhang_in: f64) -> Vec<Wall> {
+    (0..corners)
+        .map(|i| {
+            let angle = i as f64 / corners as f64 * std::f64::consts::TAU;
+            let mut wall = pitched(240.0 + radius_in * angle.cos(), 180.0 + radius_in * angle.sin());
+            wall.overhang_in = overhang_in;
+            wall
+        })
+        .collect()
+}
+
+#[test]
+fn a_round_courtyard_of_many_corners() {
+    // 400 corners on a circle of 100 in radius with 12 in overhangs: each
+    // wall's fascia is 2 * 12 * tan(180 / 400 degrees) = 0.19 in shorter
+    // than the 1.57 in wall (arithmetic), so the ring holds.
+    assert!(Outline::new(rectangle(), vec![round_courtyard(400, 100.0, 12.0)]).is_ok());
+    // On a 20 in radius, 24 in overhangs close the ring once they reach
+    // the walls' distance from the centre, 20 * cos(180 / 400 degrees)
+    // = 19.9995 in, less half the 0.0048 in tolerance: room for twice
+    // that, 39.994 in, across; 48 - 39.994 = 8.006 in short (arithmetic,
+    // shown to three digits).
+    let got = message(rectangle(), vec![round_courtyard(400, 20.0, 24.0)]);
+    assert!(got.contains("48 in together, but there is room for only 40 in, 8.01 in short"), "{got}");
+}
+
+#[test]
+fn the_walls_are_named_lower_number_first() {
+    // The strip courtyard given from its top left corner: its first wall
+    // is the short one on the left, whose fascia turns round between the
+    // second wall (the bottom) and the last (the top).
+    let mut court = strip_courtyard(30.0, 16.0);
+    court.rotate_right(1);
+    let got = message(rectangle(), vec![court]);
+    assert!(
+        got.contains(": wall 6 (corner 2 to corner 3) and wall 8 (corner 4 to corner 1) overhang"),
+        "{got}"
+    );
+}

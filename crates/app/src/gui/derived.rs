@@ -265,6 +265,7 @@ fn outline_walls(plan: &Plan, error: &OutlineError) -> Vec<usize> {
         }
         OutlineError::StraightCornerRoofChanges { wall: w, next, .. } => vec![wall(w), wall(next)],
         OutlineError::GableNearlyInLine { gable, wall: w, .. } => vec![wall(gable), wall(w)],
+        OutlineError::CourtyardTooSmallForOverhangs { wall: w, other, .. } => vec![wall(w), wall(other)],
         // About the whole outline or a whole courtyard, not one wall.
         OutlineError::TooFewCorners { .. }
         | OutlineError::CourtyardTooFewCorners { .. }
@@ -317,6 +318,23 @@ mod tests {
         let problem = derived.problem.clone().unwrap();
         assert!(problem.message.contains("degrees off a straight line"), "{}", problem.message);
         assert_eq!(problem.walls, vec![1, 0]);
+    }
+
+    #[test]
+    fn a_courtyard_too_small_for_its_overhangs_marks_the_two_walls() {
+        // A courtyard 30 in across with 16 in overhangs each side: 32 in
+        // of overhang (arithmetic). Its bottom and top are walls 4 and 6
+        // counting from 0 (the 4 outer walls first).
+        let text = "format = 1\nunits = \"in\"\n[roof]\npitch = \"6/12\"\noverhang = 16\n\
+                    [[wall]]\nat = [0, 0]\n[[wall]]\nat = [480, 0]\n[[wall]]\nat = [480, 288]\n\
+                    [[wall]]\nat = [0, 288]\n[[courtyard]]\n[[courtyard.wall]]\nat = [120, 120]\n\
+                    [[courtyard.wall]]\nat = [240, 120]\n[[courtyard.wall]]\nat = [240, 150]\n\
+                    [[courtyard.wall]]\nat = [120, 150]\n";
+        let plan = Plan::from_toml(text).unwrap();
+        let derived = Derived::new(&plan);
+        let problem = derived.problem.clone().unwrap();
+        assert!(problem.message.contains("too small for the overhangs into it"), "{}", problem.message);
+        assert_eq!(problem.walls, vec![4, 6]);
     }
 
     #[test]
