@@ -2402,3 +2402,117 @@ fn both_ridge_ends_beside_a_king_at_a_t_are_cut_back_to_its_sides() {
     }
     assert_joints_of_fit(&frame, king);
 }
+
+/// Seed 25797: a star of five walls round a courtyard set on the slant,
+/// mixed pitches.
+#[rustfmt::skip]
+const SEED_25797: [WallRow; 5] = [
+    (70.95811519514001, -100.30323345289321, 0.2569227314330342, 5.0),
+    (155.76910716130155, 88.8052889646289, 1.3333333333333333, 4.0),
+    (155.7666099956219, 88.81027527852625, 0.25, 13.0),
+    (-48.5724932200594, 134.6391823733638, 1.25, 21.0),
+    (-161.86868820728597, -115.00554495981503, 1.4608196542423426, 2.0),
+];
+
+#[rustfmt::skip]
+const SEED_25797_COURTYARD: [WallRow; 4] = [
+    (35.22130948404717, 56.87032637490936, 0.5833333333333334, 4.0),
+    (77.32189397184848, 97.55326825069974, 0.25, 5.0),
+    (125.25412437710904, 47.950785666560755, 0.4166666666666667, 9.0),
+    (83.15353988930772, 7.267843790770371, 0.3333333333333333, 15.0),
+];
+
+/// The hips starting at `node`, the top of `valley`, each with the corners
+/// of its foot's face on the valley's side (plumb, square to the valley
+/// and half its thickness off its line).
+fn feet_on_valley_side(frame: &Frame, valley: usize, node: DVec2) -> Vec<(usize, Vec<glam::DVec3>)> {
+    let [foot, top] = frame.pieces[valley].plan_line;
+    let u = (top - foot).normalize();
+    let half = 1.5 / 2.0;
+    frame
+        .pieces
+        .iter()
+        .enumerate()
+        .filter(|(_, p)| p.kind == MemberKind::Hip && p.plan_line[0].distance(node) < 0.01)
+        .map(|(i, p)| {
+            let corners = p
+                .solid
+                .faces()
+                .filter(|f| f.normal.z.abs() < 1e-9 && f.normal.truncate().dot(u).abs() < 1e-9)
+                .filter(|f| f.vertices.iter().all(|v| ((v.truncate() - node).perp_dot(u).abs() - half).abs() < 1e-6))
+                .flat_map(|f| f.vertices.iter().copied())
+                .collect();
+            (i, corners)
+        })
+        .collect()
+}
+
+#[test]
+fn hips_rising_from_a_valleys_top_bear_on_its_sides_their_feet_full_width() {
+    let frame = framed(&SEED_25797, &[&SEED_25797_COURTYARD]);
+    // Read from the solve: the valley over the courtyard's corner
+    // (125.254, 47.951) rises 1.46 in to a node at (131.900, 49.492) with
+    // no ridge, where two hips start: one at 140.7 degrees in plan from
+    // the valley's line, turned back beside it, the other at 86.3 degrees.
+    // Each foot is cut to the valley's side. With the valley's top cut
+    // plumb at the node, the first foot ran 0.27 in past it and the second
+    // 0.80 in, in the air. The valley now runs on, plumb and square, to
+    // the farthest corner of the feet, which the hips' lines give: a hip
+    // at plan angle a from the valley, both 1-1/2 in thick, crosses the
+    // valley's side (0.75 + 0.75 cos a) / sin a past the node (derived in
+    // plan, 0.80 in at 86.3 degrees).
+    let node = dvec2(131.899_606_835_954_87, 49.491_757_256_294_33);
+    let valley_foot = dvec2(125.254_124_377_109_04, 47.950_785_666_560_755);
+    let u = (node - valley_foot).normalize();
+    let valley = piece_ending_at(&frame, MemberKind::Valley, 1, node).expect("the valley up to the node");
+    let along = |v: glam::DVec3| (v.truncate() - node).dot(u);
+    let valley_top = frame.pieces[valley].solid.vertices().map(along).fold(f64::NEG_INFINITY, f64::max);
+    let feet = feet_on_valley_side(&frame, valley, node);
+    assert_eq!(feet.len(), 2, "two hips start at the valley's top");
+    let mut farthest = f64::NEG_INFINITY;
+    let mut expected = f64::NEG_INFINITY;
+    for (hip, corners) in &feet {
+        assert!(corners.len() >= 3, "{} has a face on the valley's side", frame.pieces[*hip].label);
+        for &c in corners {
+            assert!(along(c) <= valley_top + 1e-6, "{} hangs {} in past the valley", frame.pieces[*hip].label, along(c) - valley_top);
+            farthest = farthest.max(along(c));
+        }
+        let [a, b] = frame.pieces[*hip].plan_line;
+        let cos_a = (b - a).normalize().dot(u);
+        let sin_a = (1.0 - cos_a * cos_a).sqrt();
+        expected = expected.max((0.75 + 0.75 * cos_a) / sin_a);
+        let joint = frame.joints.iter().find(|j| j.pieces == [*hip, valley]).expect("the hip bears on the valley");
+        assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+        let (gap, overlap, mating) = parry_fit::fit(&frame, *hip, valley);
+        assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "parry {gap} / {overlap}");
+    }
+    assert!((farthest - valley_top).abs() < 1e-6, "the top runs {} in past the feet", valley_top - farthest);
+    assert!((valley_top - expected).abs() < 1e-6, "top {valley_top} in past the node, {expected} derived");
+    assert!((expected - 0.80).abs() < 0.005, "{expected}");
+    // The valley's top face is plumb and square to its line.
+    let top_face = frame.pieces[valley]
+        .solid
+        .faces()
+        .find(|f| f.vertices.iter().all(|&v| (along(v) - valley_top).abs() < 1e-6))
+        .expect("the valley's top face");
+    assert!(top_face.normal.z.abs() < 1e-9 && top_face.normal.truncate().dot(u) > 1.0 - 1e-9);
+    // The hip turned back beside the valley runs 3.07 in from the
+    // courtyard wall's line at its foot (its centre 3.51 in), inside the
+    // 3-1/2 in plate: it is cut level with the plate's top there and
+    // flagged, as a hip low beside a wall is, and no corner of it is left
+    // below the plate.
+    let (back, _) = feet
+        .iter()
+        .find(|(h, _)| (frame.pieces[*h].plan_line[1] - node).normalize().dot(u) < -0.7)
+        .expect("the hip turned back");
+    let label = &frame.pieces[*back].label;
+    assert!(
+        frame.warnings.iter().any(|w| matches!(w, FramingWarning::HipCutLevelAtPlate { label: l, .. } if l == label)),
+        "{label} is flagged as cut level at the plate"
+    );
+    let lowest = frame.pieces[*back].solid.vertices().map(|v| v.z).fold(f64::INFINITY, f64::min);
+    assert!(lowest > -1e-6, "{label} reaches {lowest} in below the plate");
+    for j in &frame.joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+}
