@@ -1591,7 +1591,8 @@ impl Ctx<'_> {
         let mut reach: f64 = 0.0;
         for (k, l) in self.lines.iter().enumerate() {
             let left_out = self.left_out.get(k).copied().unwrap_or(false);
-            if l.kind != RoofLineKind::Hip || !near(l.from) || near(l.to) || l.from_z.abs() < 1e-6 || left_out {
+            if l.kind != RoofLineKind::Hip || !near(l.from) || near(l.to) || l.from_z.abs() < 1e-6 || left_out
+            {
                 continue;
             }
             let Some(d) = (l.to - l.from).try_normalize() else { continue };
