@@ -2413,3 +2413,208 @@ fn both_ridge_ends_beside_a_king_at_a_t_are_cut_back_to_its_sides() {
     }
     assert_joints_of_fit(&frame, king);
 }
+
+/// Seed 25797: a star of five walls round a courtyard set on the slant,
+/// mixed pitches.
+#[rustfmt::skip]
+const SEED_25797: [WallRow; 5] = [
+    (70.95811519514001, -100.30323345289321, 0.2569227314330342, 5.0),
+    (155.76910716130155, 88.8052889646289, 1.3333333333333333, 4.0),
+    (155.7666099956219, 88.81027527852625, 0.25, 13.0),
+    (-48.5724932200594, 134.6391823733638, 1.25, 21.0),
+    (-161.86868820728597, -115.00554495981503, 1.4608196542423426, 2.0),
+];
+
+#[rustfmt::skip]
+const SEED_25797_COURTYARD: [WallRow; 4] = [
+    (35.22130948404717, 56.87032637490936, 0.5833333333333334, 4.0),
+    (77.32189397184848, 97.55326825069974, 0.25, 5.0),
+    (125.25412437710904, 47.950785666560755, 0.4166666666666667, 9.0),
+    (83.15353988930772, 7.267843790770371, 0.3333333333333333, 15.0),
+];
+
+/// The hips starting at `node`, the top of `valley`, each with the corners
+/// of its foot's face on the valley's side (plumb, square to the valley
+/// and half its thickness off its line).
+fn feet_on_valley_side(frame: &Frame, valley: usize, node: DVec2) -> Vec<(usize, Vec<glam::DVec3>)> {
+    let [foot, top] = frame.pieces[valley].plan_line;
+    let u = (top - foot).normalize();
+    let half = 1.5 / 2.0;
+    frame
+        .pieces
+        .iter()
+        .enumerate()
+        .filter(|(_, p)| p.kind == MemberKind::Hip && p.plan_line[0].distance(node) < 0.01)
+        .map(|(i, p)| {
+            let corners = p
+                .solid
+                .faces()
+                .filter(|f| f.normal.z.abs() < 1e-9 && f.normal.truncate().dot(u).abs() < 1e-9)
+                .filter(|f| {
+                    f.vertices.iter().all(|v| ((v.truncate() - node).perp_dot(u).abs() - half).abs() < 1e-6)
+                })
+                .flat_map(|f| f.vertices.iter().copied())
+                .collect();
+            (i, corners)
+        })
+        .collect()
+}
+
+#[test]
+fn hips_rising_from_a_valleys_top_bear_on_its_sides_their_feet_full_width() {
+    let frame = framed(&SEED_25797, &[&SEED_25797_COURTYARD]);
+    // Read from the solve: the valley over the courtyard's corner
+    // (125.254, 47.951) rises 1.46 in to a node at (131.900, 49.492) with
+    // no ridge, where two hips start: one at 140.7 degrees in plan from
+    // the valley's line, turned back beside it, the other at 86.3 degrees.
+    // Each foot is cut to the valley's side. With the valley's top cut
+    // plumb at the node, the first foot ran 0.27 in past it and the second
+    // 0.80 in, in the air. The valley now runs on, plumb and square, to
+    // the farthest corner of the feet, which the hips' lines give: a hip
+    // at plan angle a from the valley, both 1-1/2 in thick, crosses the
+    // valley's side (0.75 + 0.75 cos a) / sin a past the node (derived in
+    // plan, 0.80 in at 86.3 degrees).
+    let node = dvec2(131.899_606_835_954_87, 49.491_757_256_294_33);
+    let valley_foot = dvec2(125.254_124_377_109_04, 47.950_785_666_560_755);
+    let u = (node - valley_foot).normalize();
+    let valley = piece_ending_at(&frame, MemberKind::Valley, 1, node).expect("the valley up to the node");
+    let along = |v: glam::DVec3| (v.truncate() - node).dot(u);
+    let valley_top = frame.pieces[valley].solid.vertices().map(along).fold(f64::NEG_INFINITY, f64::max);
+    let feet = feet_on_valley_side(&frame, valley, node);
+    assert_eq!(feet.len(), 2, "two hips start at the valley's top");
+    let mut farthest = f64::NEG_INFINITY;
+    let mut expected = f64::NEG_INFINITY;
+    for (hip, corners) in &feet {
+        assert!(corners.len() >= 3, "{} has a face on the valley's side", frame.pieces[*hip].label);
+        for &c in corners {
+            assert!(
+                along(c) <= valley_top + 1e-6,
+                "{} hangs {} in past the valley",
+                frame.pieces[*hip].label,
+                along(c) - valley_top
+            );
+            farthest = farthest.max(along(c));
+        }
+        let [a, b] = frame.pieces[*hip].plan_line;
+        let cos_a = (b - a).normalize().dot(u);
+        let sin_a = (1.0 - cos_a * cos_a).sqrt();
+        expected = expected.max((0.75 + 0.75 * cos_a) / sin_a);
+        let joint =
+            frame.joints.iter().find(|j| j.pieces == [*hip, valley]).expect("the hip bears on the valley");
+        assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+        let (gap, overlap, mating) = parry_fit::fit(&frame, *hip, valley);
+        assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "parry {gap} / {overlap}");
+    }
+    assert!((farthest - valley_top).abs() < 1e-6, "the top runs {} in past the feet", valley_top - farthest);
+    assert!((valley_top - expected).abs() < 1e-6, "top {valley_top} in past the node, {expected} derived");
+    assert!((expected - 0.80).abs() < 0.005, "{expected}");
+    // The valley's top face is plumb and square to its line.
+    let top_face = frame.pieces[valley]
+        .solid
+        .faces()
+        .find(|f| f.vertices.iter().all(|&v| (along(v) - valley_top).abs() < 1e-6))
+        .expect("the valley's top face");
+    assert!(top_face.normal.z.abs() < 1e-9 && top_face.normal.truncate().dot(u) > 1.0 - 1e-9);
+    // The hip turned back beside the valley runs 3.07 in from the
+    // courtyard wall's line at its foot (its centre 3.51 in), inside the
+    // 3-1/2 in plate: it is cut level with the plate's top there and
+    // flagged, as a hip low beside a wall is, and no corner of it is left
+    // below the plate.
+    let (back, _) = feet
+        .iter()
+        .find(|(h, _)| (frame.pieces[*h].plan_line[1] - node).normalize().dot(u) < -0.7)
+        .expect("the hip turned back");
+    let label = &frame.pieces[*back].label;
+    assert!(
+        frame
+            .warnings
+            .iter()
+            .any(|w| matches!(w, FramingWarning::HipCutLevelAtPlate { label: l, .. } if l == label)),
+        "{label} is flagged as cut level at the plate"
+    );
+    let lowest = frame.pieces[*back].solid.vertices().map(|v| v.z).fold(f64::INFINITY, f64::min);
+    assert!(lowest > -1e-6, "{label} reaches {lowest} in below the plate");
+    for j in &frame.joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+}
+
+/// Seed 36779: a star of 23 walls round a courtyard, mixed pitches.
+#[rustfmt::skip]
+const SEED_36779: [WallRow; 23] = [
+    (7.516337615713791, 107.74757188321048, 0.5, 5.0),
+    (-15.287899438816682, 123.96990286886701, 1.5, 14.0),
+    (-15.291394511257032, 123.97239307227666, 0.16666666666666666, 1.0),
+    (-35.873241010490155, 138.65974695310445, 0.9166666666666666, 18.0),
+    (-35.87930279270809, 138.65778053656604, 0.16666666666666666, 16.0),
+    (-58.02243811272491, 72.64126153520996, 0.6666666666666666, 7.0),
+    (-94.56963531470322, 49.839565022118485, 0.6666666666666666, 22.0),
+    (-136.21282007555052, -17.258614011307717, 0.9166666666666666, 13.0),
+    (-99.0072882208938, -68.91764694351629, 0.3333333333333333, 20.0),
+    (-79.93409812624994, -82.29009126717968, 0.25, 9.0),
+    (-29.846226648294415, -137.74346136708496, 0.5, 14.0),
+    (35.8484479449025, -109.20602760151262, 1.3333333333333333, 5.0),
+    (67.7787905292464, -126.24284373307349, 0.7097374292110921, 15.0),
+    (114.70426768782549, -45.1414210583333, 0.4166666666666667, 23.0),
+    (122.49890902163114, -32.75951615441925, 0.9166666666666666, 14.0),
+    (130.66262295398533, -19.938808141315917, 1.456025234506196, 13.0),
+    (121.90931834808983, 2.79542678313924, 0.5036643346658161, 24.0),
+    (102.66597009051637, 52.90399469828704, 0.5, 18.0),
+    (102.66465913759743, 52.910396599604205, 0.16666666666666666, 2.0),
+    (100.55421688074989, 109.46450329746304, 0.5667897697489246, 8.0),
+    (100.5513240487616, 109.469533843111, 1.3333333333333333, 16.0),
+    (87.0259188066375, 118.03142013379878, 0.6676095293629788, 15.0),
+    (65.09351681682986, 131.67301126466288, 1.25, 18.0),
+];
+
+#[rustfmt::skip]
+const SEED_36779_COURTYARD: [WallRow; 4] = [
+    (-32.25071264479715, -24.535829340246856, 0.8333333333333334, 4.0),
+    (-5.329323741965936, 34.35898346004749, 0.16666666666666666, 4.0),
+    (-62.546576545208126, 60.513543453147484, 0.9166666666666666, 12.0),
+    (-89.46796544803934, 1.618730652853138, 0.804052048031553, 1.0),
+];
+
+#[test]
+fn a_hip_deeper_than_the_valley_top_it_butts_against_hangs_below_it_with_no_gap() {
+    let frame = framed(&SEED_36779, &[&SEED_36779_COURTYARD]);
+    // Read from the solve: the valley over the corner at (-58.022, 72.641)
+    // rises at 0.129 in per inch of run to a node at (35.643, 108.248),
+    // where a short hip carries its line on 8.7 degrees off it, rising at
+    // 0.226, and butts against its top: both are cut plumb there, square
+    // to the valley, in one plane. Both 9-1/4 in deep, the steeper hip is
+    // the deeper plumb (9.25 sqrt(1 + 0.226^2) = 9.48 in against 9.33 in
+    // for the valley), so its foot's lower corners are below the valley's
+    // bottom edge. The line square to the face from such a corner runs on
+    // under the valley's bottom, dropping 1 in 7.8 away from the top, and
+    // meets it about an inch on: that was read as 1.02 in of gap. It is
+    // the foot hanging below the valley's end. Derivation.
+    let node = dvec2(35.642_927_707_706_82, 108.248_154_625_980_75);
+    let u = (node - dvec2(-58.022_438_112_724_91, 72.641_261_535_209_96)).normalize();
+    let valley = piece_ending_at(&frame, MemberKind::Valley, 1, node).expect("the valley up to the node");
+    let hip = piece_ending_at(&frame, MemberKind::Hip, 0, node).expect("the hip starting at the node");
+    let along = |v: glam::DVec3| (v.truncate() - node).dot(u);
+    let on_plane = |f: &pitchframe_geometry::framing::Face| {
+        f.normal.z.abs() < 1e-9
+            && f.normal.truncate().dot(u).abs() > 1.0 - 1e-9
+            && f.vertices.iter().all(|&v| along(v).abs() < 1e-6)
+    };
+    let valley_face: Vec<_> = frame.pieces[valley].solid.faces().filter(|f| on_plane(f)).collect();
+    let hip_face: Vec<_> = frame.pieces[hip].solid.faces().filter(|f| on_plane(f)).collect();
+    assert!(
+        !valley_face.is_empty() && !hip_face.is_empty(),
+        "both ends plumb at the node, square to the valley"
+    );
+    let low = |faces: &[&pitchframe_geometry::framing::Face]| {
+        faces.iter().flat_map(|f| f.vertices.iter().map(|v| v.z)).fold(f64::INFINITY, f64::min)
+    };
+    let below = low(&valley_face) - low(&hip_face);
+    assert!(below > 0.1 && below < 0.2, "the hip's foot reaches {below} in below the valley's");
+    let joint = frame.joints.iter().find(|j| j.pieces == [hip, valley]).expect("the hip bears on the valley");
+    assert!(joint.max_gap < FIT_IN && joint.max_overlap < FIT_IN, "{joint:?}");
+    let (gap, overlap, mating) = parry_fit::fit(&frame, hip, valley);
+    assert!(mating >= 1 && gap < FIT_IN && overlap < FIT_IN, "parry {gap} / {overlap}");
+    for j in &frame.joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+}

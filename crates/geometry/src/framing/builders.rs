@@ -994,7 +994,13 @@ impl Ctx<'_> {
             below
                 && sides.iter().any(|w| {
                     let d = w.dist_in(p.truncate());
-                    (-size.thickness_in / 2.0..=self.settings.seat_width_in).contains(&d)
+                    // The lower edge's sides lie `half` nearer and farther
+                    // from the wall line than its centre: the one nearer
+                    // may be over the plate with the centre past its inner
+                    // face (seed 25797 of the long run: a hip's centre
+                    // 3.51 in in, its side 3.07 in, 1.3 in below the top).
+                    let half = size.thickness_in / 2.0 * frame.side.truncate().dot(w.inward).abs();
+                    (-size.thickness_in / 2.0..=self.settings.seat_width_in + half).contains(&d)
                 })
         })
     }
@@ -1452,13 +1458,21 @@ impl Ctx<'_> {
             upper_cuts.push(h);
             ridges.push((ri, h));
         }
-        if upper_cuts.is_empty() {
-            upper_cuts.extend(HalfSpace::through(
-                line.to.extend(line.to_z),
-                (line.to - line.from).extend(0.0),
+        // Nothing to butt into: cut plumb and square at the node (`reach`
+        // 0), or on past it as far as the hips starting there need to bear
+        // on its sides their feet's full width.
+        let dir = (line.to - line.from).normalize_or_zero();
+        let plumb_top = |reach: f64| {
+            HalfSpace::through(
+                (line.to + dir * reach).extend(line.to_z),
+                dir.extend(0.0),
                 FaceTag::Plumb,
                 Some(CutEnd::Top),
-            ));
+            )
+        };
+        let plumb_only = upper_cuts.is_empty();
+        if plumb_only {
+            upper_cuts.extend(plumb_top(0.0));
         }
         // A valley that starts up on the roof (where a ridge ends beside
         // another valley's top) has no seat: its foot is cut to what is
@@ -1535,7 +1549,63 @@ impl Ctx<'_> {
             self.clear_ridges_at(&passing, &mut spec, &mut bearings, down, mid, CutEnd::Top);
         }
         self.clear_kings_at(line.to, &mut spec, &mut bearings, mid, CutEnd::Top, rafter_piece);
+        let reach = if plumb_only && spec.upper_cuts.len() == 1 { self.hip_feet_reach(line) } else { 0.0 };
+        if let Some(longer) = plumb_top(reach).filter(|_| reach > 0.0) {
+            // Run on only where the longer top meets nothing the top at the
+            // node kept clear of: a ridge passing by or a king beside it.
+            let mut trial = spec.clone();
+            trial.upper_cuts = vec![longer];
+            let mut trial_bearings = Vec::new();
+            if !passing.is_empty() {
+                self.clear_ridges_at(&passing, &mut trial, &mut trial_bearings, down, mid, CutEnd::Top);
+            }
+            self.clear_kings_at(line.to, &mut trial, &mut trial_bearings, mid, CutEnd::Top, rafter_piece);
+            if trial.upper_cuts.len() == 1 {
+                spec = trial;
+            }
+        }
         Some((spec, bearings, false))
+    }
+
+    /// How far past its top node, in plan along its line, valley `line`
+    /// must run for every hip starting at the node with its foot cut to
+    /// the valley's side ([`Ctx::foot_on_roof`]) to bear on that side its
+    /// foot's full width: 0 where none reaches past the node, or where a
+    /// hip carries the valley's line on and butts against its top there.
+    ///
+    /// A hip leaving the node at plan angle `a` from the valley's line
+    /// has its foot cut to the valley's side, half the valley's
+    /// thickness `tv` off the line; the hip's sides, half its thickness
+    /// `th` off its own line, cross that side `(±th/2 + (tv/2) cos a) /
+    /// sin a` on from the node (derived in plan: the side line is
+    /// `node + s u + (tv/2) v`, with `u` along the valley and `v` square to
+    /// it toward the hip). At a right angle the foot reaches `th/2` past
+    /// the node; a hip turned back beside the valley, less (seed 25797 of
+    /// the long run: 0.27 in at 140.7 degrees, which a top cut plumb at
+    /// the node left hanging in the air).
+    fn hip_feet_reach(&self, line: &PlanLine) -> f64 {
+        let Some(u) = (line.to - line.from).try_normalize() else { return 0.0 };
+        let near = |p: DVec2| p.distance(line.to) < PLAN_TOL_IN * 1e3;
+        let tv = self.settings.valley.thickness_in;
+        let th = self.settings.hip.thickness_in;
+        let mut reach: f64 = 0.0;
+        for (k, l) in self.lines.iter().enumerate() {
+            let left_out = self.left_out.get(k).copied().unwrap_or(false);
+            if l.kind != RoofLineKind::Hip || !near(l.from) || near(l.to) || l.from_z.abs() < 1e-6 || left_out
+            {
+                continue;
+            }
+            let Some(d) = (l.to - l.from).try_normalize() else { continue };
+            let (cos_a, sin_a) = (u.dot(d), u.perp_dot(d).abs());
+            if cos_a > IN_LINE_COS {
+                return 0.0;
+            }
+            if sin_a < 1e-9 {
+                continue;
+            }
+            reach = reach.max((th / 2.0 + (tv / 2.0) * cos_a) / sin_a);
+        }
+        reach
     }
 
     /// Cuts a valley's top (`spec`) to the ridges across a hip or valley

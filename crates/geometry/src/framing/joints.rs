@@ -38,7 +38,9 @@ pub struct JointFit {
 ///
 /// Each corner of the cut face is measured square to the mating plane
 /// (gap outside, overlap inside) where its foot lands on the bearing solid;
-/// a foot off the bearing solid is a hang. Overlap also takes every corner
+/// a foot off the bearing solid is a hang, and so is one the line square to
+/// the mating face reaches only through a face of the bearing turned more
+/// than 60 degrees from it (past the bearing face's edge, beside another). Overlap also takes every corner
 /// of either solid found inside the other.
 ///
 /// A corner above `bearing_top` (the bearing member's top through its
@@ -100,8 +102,17 @@ pub fn check_fit(
                     // along an edge of it, in and out within a touch) does
                     // not land on it: the corner hangs past the bearing
                     // face's edge (a hip's cheek running on past a king's
-                    // end cut on the slant).
-                    (exit - enter > TOUCH_IN).then_some(enter)
+                    // end cut on the slant). Nor does one entering through
+                    // a face turned away from the corner, which it runs
+                    // nearly along: the corner is past the edge of the face
+                    // it should meet, beside that other face (a hip's foot,
+                    // deeper plumb than the valley top it butts against,
+                    // below the valley's bottom edge, whose line runs on
+                    // under the valley's bottom and enters it only where
+                    // the bottom has dropped to it, an inch on).
+                    let facing = entering_plane(&part.planes, p, mating.normal, tol)
+                        .is_some_and(|h| h.normal.dot(mating.normal) < -FACING_COS);
+                    (facing && exit - enter > TOUCH_IN).then_some(enter)
                 } else if exit >= -tol {
                     // The corner is inside the part: it overlaps by its
                     // depth there. The line's entry may lie far behind,
@@ -194,6 +205,30 @@ const TOUCH_IN: f64 = 1e-5;
 /// How far past the cut piece's box a bearing part may lie and still be
 /// checked, inches.
 const NEAR_IN: f64 = 1.0;
+
+/// How squarely the face a corner's line enters a bearing part through
+/// must face the corner for the way in to be a gap to close: the cosine of
+/// 60 degrees between the face's outward normal and the line, reversed. A
+/// face turned further away runs within 30 degrees of the line, which
+/// meets it only as far on as the corner lies off it, doubled or more: not
+/// a gap across the joint (common practice, no source).
+const FACING_COS: f64 = 0.5;
+
+/// The plane of `planes` through which the line `p + t u` enters their
+/// convex region grown by `tol` (as [`chord`] finds it), if it does.
+fn entering_plane(planes: &[HalfSpace], p: glam::DVec3, u: glam::DVec3, tol: f64) -> Option<&HalfSpace> {
+    let mut enter = f64::NEG_INFINITY;
+    let mut by = None;
+    for h in planes {
+        let nu = h.normal.dot(u);
+        let room = h.offset - h.normal.dot(p) + tol;
+        if nu < -1e-12 && room / nu > enter {
+            enter = room / nu;
+            by = Some(h);
+        }
+    }
+    by
+}
 
 /// The corner-wise bounds of each part of a solid.
 pub fn part_bounds(solid: &Solid) -> Vec<(glam::DVec3, glam::DVec3)> {
@@ -358,5 +393,51 @@ mod tests {
         assert!(fit.max_gap < 1e-5, "gap {}", fit.max_gap);
         assert!(fit.max_overlap < 1e-5, "overlap {}", fit.max_overlap);
         assert!((fit.max_hang - 1.5 / 2f64.sqrt()).abs() < 1e-5, "hang {}", fit.max_hang);
+    }
+
+    #[test]
+    fn a_corner_below_the_bearing_boards_sloping_bottom_hangs_and_reads_no_gap() {
+        // A bearing board with its end face x = 1.5 (x from -10 to 1.5, y
+        // -2 to 2, top z = 1), its bottom z = -1 + 0.1 (x - 1.5) dropping
+        // 1 in 10 away from the end. A piece cut to the end (x 1.5 to 3,
+        // y -1 to 1) reaches 0.05 in lower, to z = -1.05: its lower corners
+        // are past the end face's bottom edge. The line along -x from one
+        // runs under the bottom and enters it 0.5 in on, where the bottom
+        // has dropped 0.05 in, through a face turned 84 degrees from the
+        // corner. That is no gap across the joint: those corners hang,
+        // 0.05 / sqrt(1.01) = 0.0498 in outside the bottom, and the upper
+        // ones, on the end face, touch it. Derivation (seed 36779 of the
+        // long run: a hip's foot deeper plumb than the valley top it butts
+        // against read 1.02 in of gap).
+        let slope = 0.1;
+        let bearing = solid(&planes_of(&[
+            (DVec3::new(1.5, 0.0, 0.0), DVec3::X),
+            (DVec3::new(-10.0, 0.0, 0.0), -DVec3::X),
+            (DVec3::new(0.0, 2.0, 0.0), DVec3::Y),
+            (DVec3::new(0.0, -2.0, 0.0), -DVec3::Y),
+            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+            (DVec3::new(1.5, 0.0, -1.0), DVec3::new(slope, 0.0, -1.0)),
+        ]));
+        let cut_at = |face: f64, bottom: f64| {
+            let mating = HalfSpace::through(DVec3::new(face, 0.0, 0.0), -DVec3::X, FaceTag::Plumb, None);
+            let Some(mating) = mating else { panic!("the mating plane") };
+            let mut planes = planes_of(&[
+                (DVec3::new(3.0, 0.0, 0.0), DVec3::X),
+                (DVec3::new(0.0, 1.0, 0.0), DVec3::Y),
+                (DVec3::new(0.0, -1.0, 0.0), -DVec3::Y),
+                (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+                (DVec3::new(0.0, 0.0, bottom), -DVec3::Z),
+            ]);
+            planes.push(mating);
+            check_fit(&solid(&planes), &mating, &bearing, &part_bounds(&bearing), None)
+        };
+        let fit = cut_at(1.5, -1.05);
+        assert!(fit.max_gap < 1e-5, "gap {}", fit.max_gap);
+        assert!(fit.max_overlap < 1e-5, "overlap {}", fit.max_overlap);
+        assert!((fit.max_hang - 0.05 / 1.01f64.sqrt()).abs() < 1e-5, "hang {}", fit.max_hang);
+        // Cut 0.01 in short of the end, within its depth, the piece's face
+        // is read 0.01 in off it where it faces it.
+        let fit = cut_at(1.51, -0.9);
+        assert!((fit.max_gap - 0.01).abs() < 2e-6, "gap {}", fit.max_gap);
     }
 }
