@@ -139,6 +139,29 @@ pub enum FramingWarning {
         /// How many jacks are left out.
         count: usize,
     },
+    /// A valley jack laid out on the spacing would have held a lower
+    /// ridge's end in its board (the two would share wood): it is moved
+    /// off the layout along its wall by `by_in`, the least that clears the
+    /// ridge board, to the nearer side it can go. Mark its place off the
+    /// layout.
+    JackMovedOffLayout {
+        /// The jack.
+        label: String,
+        /// The ridge whose end it clears.
+        ridge: String,
+        /// How far it is moved off the layout, plan inches.
+        by_in: f64,
+    },
+    /// Valley jacks laid out on the spacing would have held this ridge's
+    /// end in their boards, with no place clear of it beside (a
+    /// neighbouring rafter or the plane's edge in the way): they are left
+    /// out, and the ridge's end carries the sheathing there.
+    JackLeftOutAtRidgeEnd {
+        /// The ridge.
+        label: String,
+        /// How many jacks are left out.
+        count: usize,
+    },
     /// Hips meet at a point with no ridge (a peak, or where two hips merge
     /// into one on an irregular plan): the ends there are cut plumb, square
     /// to the hip, at the theoretical point, and need a fitted block or hub.
@@ -160,9 +183,52 @@ impl FramingWarning {
             | Self::ShortMemberLeftOut { label, .. }
             | Self::RidgeBesideLeftOut { label, .. }
             | Self::TailsLeftOut { label, .. }
+            | Self::JackMovedOffLayout { label, .. }
+            | Self::JackLeftOutAtRidgeEnd { label, .. }
             | Self::JointDoesNotFit { label, .. } => label,
             Self::HipTooShallow { jack, .. } => jack,
             Self::RidgeTooShallow { rafter, .. } => rafter,
         }
+    }
+
+    /// Whether `other` says the same as this warning, to list once: equal,
+    /// or a jack moved off the layout by the same amount within
+    /// [`REPEAT_TOL_IN`] (pieces of one member moved by amounts that differ
+    /// only in the last bits of a float).
+    pub fn repeats(&self, other: &Self) -> bool {
+        match (self, other) {
+            (
+                Self::JackMovedOffLayout { label, ridge, by_in },
+                Self::JackMovedOffLayout { label: other_label, ridge: other_ridge, by_in: other_by_in },
+            ) => label == other_label && ridge == other_ridge && (by_in - other_by_in).abs() <= REPEAT_TOL_IN,
+            _ => self == other,
+        }
+    }
+}
+
+/// Two readings of one length closer than this (inches) are one warning:
+/// a millionth of an inch, far below the 1/16 in lengths are shown to
+/// (common practice, no source).
+pub const REPEAT_TOL_IN: f64 = 1e-6;
+
+#[cfg(test)]
+mod tests {
+    use super::FramingWarning;
+
+    fn moved(by_in: f64) -> FramingWarning {
+        FramingWarning::JackMovedOffLayout { label: "VJ1".into(), ridge: "R3".into(), by_in }
+    }
+
+    #[test]
+    fn jacks_moved_by_amounts_a_float_rounding_apart_are_one_warning() {
+        // 1e-12 in is rounding in the last bits; 1/64 in is a real difference
+        // (common practice, no source).
+        assert!(moved(1.0958640810346196).repeats(&moved(1.0958640810346196 + 1e-12)));
+        assert!(!moved(1.0958640810346196).repeats(&moved(1.0958640810346196 + 1.0 / 64.0)));
+        let other_ridge =
+            FramingWarning::JackMovedOffLayout { label: "VJ1".into(), ridge: "R4".into(), by_in: 1.0 };
+        assert!(!moved(1.0).repeats(&other_ridge));
+        let tails = FramingWarning::TailsLeftOut { label: "V1".into(), count: 2 };
+        assert!(tails.repeats(&tails.clone()) && !tails.repeats(&moved(1.0)));
     }
 }
