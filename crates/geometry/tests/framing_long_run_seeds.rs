@@ -2490,8 +2490,8 @@ fn jacks_moved(frame: &Frame) -> Vec<(String, String, f64)> {
 /// by `by_in`, that it is the valley jack whose plan line runs `to` (a
 /// plan coordinate read by `across`), that no valley jack is left at
 /// `layout_at` passing within 2 in of the ridge's end `node` (jacks of other
-/// planes on the same layout line stay), and that its member carries the
-/// warning.
+/// planes on the same layout line stay), that its member carries the
+/// warning, and that it shares no wood with any other piece.
 fn assert_jack_moved_clear(
     frame: &Frame,
     across: impl Fn(DVec2) -> f64,
@@ -2522,6 +2522,13 @@ fn assert_jack_moved_clear(
     );
     let member = frame.members.iter().find(|m| &m.label == label).expect("the moved jack's member");
     assert!(member.warnings.iter().any(|w| matches!(w, FramingWarning::JackMovedOffLayout { .. })));
+    // Where it stands now it shares no wood with any piece (parry's depth
+    // between the solids, under 1/64 in).
+    let moved_piece = frame.pieces.iter().position(|p| on(p, to)).expect("the moved jack's piece");
+    let (depth, a, b, unhulled) =
+        parry_fit::interference_where_measurable(frame, |i, j| i != moved_piece && j != moved_piece);
+    assert!(unhulled.is_empty(), "parts parry cannot hull: {unhulled:?}");
+    assert!(depth < FIT_IN, "{a} and {b} share {depth} in");
 }
 
 #[test]

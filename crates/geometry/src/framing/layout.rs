@@ -613,7 +613,8 @@ pub fn ridge_ends(
 }
 
 /// Where ridge end `end`'s board would share wood with valley jack `r`
-/// (in plane `frame`), the least moves of the jack along its wall that
+/// (in plane `frame`) by more than a thousandth of an inch (boards that
+/// only touch are left), the least moves of the jack along its wall that
 /// clear it by [`RIDGE_END_CLEARANCE_IN`]: one toward each side, plan
 /// inches across the jack (positive along the jack's left, `up.perp()`),
 /// either `None` where that side cannot clear (the ridge runs on that
@@ -676,8 +677,11 @@ pub fn ridge_end_in_jack(
     let across: Vec<f64> = outline.iter().map(|p| (*p - r.lower).dot(left)).collect();
     let lo = across.iter().copied().fold(f64::INFINITY, f64::min);
     let hi = across.iter().copied().fold(f64::NEG_INFINITY, f64::max);
-    // 1e-9 in: boards set exactly a clearance apart are clear.
-    if !(lo < w_jack - 1e-9 && hi > -w_jack + 1e-9) {
+    // Boards that only touch, or share less than a thousandth of an inch
+    // (the plan tolerance roof points are matched to), are left where they
+    // are: the check is for wood shared, the clearance only for the move.
+    let w_board = settings.rafter.thickness_in / 2.0 - PLAN_TOL_IN * 1e3;
+    if !(lo < w_board && hi > -w_board) {
         return None;
     }
     // A side is open where the board ends short of the jack's whole
