@@ -2509,7 +2509,9 @@ fn assert_jack_moved_clear(
     let on = |p: &pitchframe_geometry::framing::PlacedPiece, at: f64| {
         p.kind == MemberKind::ValleyJack && p.plan_line.iter().all(|&q| (across(q) - at).abs() < 1e-6)
     };
-    let jack = frame.pieces.iter().find(|p| on(p, to)).expect("a valley jack moved clear of the ridge's end");
+    let Some(jack) = frame.pieces.iter().find(|p| on(p, to)) else {
+        panic!("no valley jack moved clear of the ridge's end");
+    };
     assert_eq!(&jack.label, label);
     let near_node = |p: &pitchframe_geometry::framing::PlacedPiece| {
         let [a, b] = p.plan_line;
@@ -2520,11 +2522,15 @@ fn assert_jack_moved_clear(
         !frame.pieces.iter().any(|p| on(p, layout_at) && near_node(p)),
         "a valley jack is left on the layout at the ridge's end"
     );
-    let member = frame.members.iter().find(|m| &m.label == label).expect("the moved jack's member");
+    let Some(member) = frame.members.iter().find(|m| &m.label == label) else {
+        panic!("no member {label}");
+    };
     assert!(member.warnings.iter().any(|w| matches!(w, FramingWarning::JackMovedOffLayout { .. })));
     // Where it stands now it shares no wood with any piece (parry's depth
     // between the solids, under 1/64 in).
-    let moved_piece = frame.pieces.iter().position(|p| on(p, to)).expect("the moved jack's piece");
+    let Some(moved_piece) = frame.pieces.iter().position(|p| on(p, to)) else {
+        panic!("no piece of the moved jack");
+    };
     let (depth, a, b, unhulled) =
         parry_fit::interference_where_measurable(frame, |i, j| i != moved_piece && j != moved_piece);
     assert!(unhulled.is_empty(), "parts parry cannot hull: {unhulled:?}");
