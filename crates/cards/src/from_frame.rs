@@ -143,6 +143,17 @@ pub fn warning_words(warning: &FramingWarning, style: LengthStyle) -> String {
              frame it with lookouts or blocking fixed to the wall",
             if *count == 1 { "jack is" } else { "jacks are" }
         ),
+        FramingWarning::JackMovedOffLayout { ridge, by_in, .. } => format!(
+            "moved {} off the layout along its wall to clear the end of {ridge}: mark its place off the \
+             layout on the valley and the ridge",
+            length(*by_in)
+        ),
+        FramingWarning::JackLeftOutAtRidgeEnd { count, .. } => format!(
+            "{count} valley {} on the layout would hold this ridge's end and {} no room clear of it: left \
+             out, so this ridge's end carries the sheathing there",
+            if *count == 1 { "jack" } else { "jacks" },
+            if *count == 1 { "has" } else { "have" }
+        ),
     }
 }
 

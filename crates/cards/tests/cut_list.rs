@@ -54,3 +54,28 @@ fn a_joint_that_does_not_fit_is_told_with_both_members_and_its_fit() {
     let mm = pitchframe_cards::warning_words(&warning, LengthStyle::Millimetres);
     assert!(mm.contains("29.0 mm") && mm.contains("0.0 mm"), "{mm}");
 }
+
+#[test]
+fn a_jack_moved_off_the_layout_is_told_with_the_ridge_and_how_far() {
+    // A valley jack moved 1.0959 in clear of a ridge's end: to the
+    // nearest 1/16 in that is 1-1/8" (17.53 sixteenths), and 1.0959 x 25.4
+    // = 27.8 mm, 28 mm. Derivation.
+    let warning = pitchframe_geometry::framing::FramingWarning::JackMovedOffLayout {
+        label: "VJ1".to_string(),
+        ridge: "R3".to_string(),
+        by_in: 1.0959,
+    };
+    let inches = pitchframe_cards::warning_words(&warning, LengthStyle::FeetInches);
+    assert!(
+        inches.contains("R3") && inches.contains("1-1/8\"") && inches.contains("off the layout"),
+        "{inches}"
+    );
+    let mm = pitchframe_cards::warning_words(&warning, LengthStyle::Millimetres);
+    assert!(mm.contains("28 mm"), "{mm}");
+    let left_out = pitchframe_geometry::framing::FramingWarning::JackLeftOutAtRidgeEnd {
+        label: "R3".to_string(),
+        count: 2,
+    };
+    let words = pitchframe_cards::warning_words(&left_out, LengthStyle::FeetInches);
+    assert!(words.contains("2 valley jacks") && words.contains("carries the sheathing"), "{words}");
+}

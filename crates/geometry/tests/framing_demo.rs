@@ -4,7 +4,7 @@ mod framing_support;
 
 use framing_support::assert_joints_fit;
 use pitchframe_geometry::framing::{FramingSettings, FramingWarning, MemberKind, frame_roof};
-use pitchframe_geometry::{Roof, demo_plan};
+use pitchframe_geometry::{Plan, Roof, demo_plan};
 
 #[test]
 fn demo_house_frames_every_member_kind_and_every_joint_fits() {
@@ -72,5 +72,38 @@ fn demo_house_cripples_shorten_by_two_spaces() {
         for b in cheeks {
             approx::assert_abs_diff_eq!(b, 45.0, epsilon = 1e-9);
         }
+    }
+}
+
+/// The demo house and the example plans have no ridge end in any valley
+/// jack's board: no jack is moved off the layout or left out for one (the
+/// check must not fire where the layout is clear), and their joints fit.
+#[test]
+fn no_jack_is_moved_off_the_layout_where_no_ridge_end_is_in_the_way() {
+    let plans = [
+        ("demo", demo_plan().unwrap()),
+        (
+            "hillside cottage",
+            Plan::from_toml(include_str!("../../../examples/hillside-cottage.toml")).unwrap(),
+        ),
+        ("metric bungalow", Plan::from_toml(include_str!("../../../examples/metric-bungalow.toml")).unwrap()),
+    ];
+    for (name, plan) in plans {
+        let outline = plan.outline().unwrap();
+        let roof = Roof::solve(&outline).unwrap();
+        let frame = frame_roof(&outline, &roof, &plan.framing_settings().unwrap()).unwrap();
+        let moved: Vec<_> = frame
+            .warnings
+            .iter()
+            .filter(|w| {
+                matches!(
+                    w,
+                    FramingWarning::JackMovedOffLayout { .. } | FramingWarning::JackLeftOutAtRidgeEnd { .. }
+                )
+            })
+            .collect();
+        assert!(moved.is_empty(), "{name}: {moved:?}");
+        assert!(frame.members.iter().any(|m| m.kind == MemberKind::ValleyJack) || name != "demo");
+        assert_joints_fit(&frame);
     }
 }

@@ -2618,3 +2618,167 @@ fn a_hip_deeper_than_the_valley_top_it_butts_against_hangs_below_it_with_no_gap(
         assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
     }
 }
+
+/// Seed 194: a plan round a courtyard at 3/12 beside 6/12 walls, where the
+/// courtyard wall's plane runs on up past the end of a ridge (where that
+/// plane meets the steeper plane of wall 12) to the main ridge. The valley
+/// jack laid out 0.47 in from that ridge's end (at a hip end, where the
+/// ridge board runs half a rafter past its node) would hold it in its board.
+#[rustfmt::skip]
+const SEED_194: [WallRow; 15] = [
+    (340.39885780022325, 0.0, 0.5, 4.0),
+    (529.5900391721674, 0.0, 0.5, 19.0),
+    (745.5833920013444, 0.0, 0.5, 3.0),
+    (745.5833920013444, 163.30642591936916, 0.5, 10.0),
+    (745.5833920013444, 418.46256559806613, 0.5, 5.0),
+    (647.0941305958881, 418.46256559806613, 0.5, 22.0),
+    (647.0941305958881, 714.1737235866232, 0.5, 15.0),
+    (611.1732559452643, 714.1737235866232, 0.5, 11.0),
+    (569.5420552906595, 714.1737235866232, 0.5, 11.0),
+    (529.5900391721674, 714.1737235866232, 0.5, 2.0),
+    (529.5900391721674, 385.55594146877723, 0.5, 19.0),
+    (529.5900391721674, 163.30642591936916, 0.5, 15.0),
+    (340.39885780022325, 163.30642591936916, 0.5, 24.0),
+    (340.39885780022325, 111.76676005636291, 0.5, 9.0),
+    (340.39885780022325, 42.27130049014065, 0.5, 8.0),
+];
+
+#[rustfmt::skip]
+const SEED_194_COURTYARD: [WallRow; 4] = [
+    (629.9343218292735, 274.7307851248064, 0.25, 1.0),
+    (669.6181370484295, 274.7307851248064, 0.25, 16.0),
+    (669.6181370484295, 237.64860862845967, 0.25, 8.0),
+    (629.9343218292735, 237.64860862845967, 0.25, 16.0),
+];
+
+/// Seed 30468: a valley jack laid out 0.6 in from the end of a lower ridge
+/// running square to it across its plane.
+#[rustfmt::skip]
+const SEED_30468: [WallRow; 22] = [
+    (0.0, 360.1087151459126, 0.0, 17.0),
+    (101.06308147322082, 360.2789343369925, 0.0, 6.0),
+    (147.98808328909425, 360.1087151459126, 1.0833333333333333, 16.0),
+    (147.98808328909425, 80.52267750055327, 1.0833333333333333, 10.0),
+    (147.98808328909425, 0.0, 1.1666666666666667, 21.0),
+    (388.78097263140717, 0.0, 1.1666666666666667, 9.0),
+    (648.1887524422924, 0.0, 1.1666666666666667, 1.0),
+    (802.070130838942, 0.0, 1.0, 9.0),
+    (802.070130838942, 80.52267750055327, 0.4166666666666667, 20.0),
+    (930.953282423628, 80.52267750055327, 0.4166666666666667, 16.0),
+    (1097.9116892647135, 80.52267750055327, 0.8333333333333334, 14.0),
+    (1097.9116892647135, 227.25072115016624, 0.8333333333333334, 14.0),
+    (1097.9116892647135, 360.1087151459126, 0.5, 19.0),
+    (1097.7415108115915, 418.43588478347453, 1.0833333333333333, 8.0),
+    (1097.9116892647135, 492.78441692227545, 0.5833333333333334, 15.0),
+    (998.2471678846237, 492.78441692227545, 0.5833333333333334, 3.0),
+    (897.6883277250652, 492.78441692227545, 0.5833333333333334, 16.0),
+    (802.070130838942, 492.78441692227545, 1.3333333333333333, 22.0),
+    (802.070130838942, 720.4997710428537, 0.8333333333333334, 8.0),
+    (0.0, 720.4997710428537, 0.6901555296810714, 21.0),
+    (0.0, 564.8011305482071, 0.6901555296810714, 5.0),
+    (0.0, 493.43453268480937, 0.6901555296810714, 6.0),
+];
+
+#[rustfmt::skip]
+const SEED_30468_COURTYARD: [WallRow; 4] = [
+    (481.28755456348756, 350.98910069172564, 0.5, 20.0),
+    (561.2829676209195, 350.98910069172564, 1.4810197213273302, 16.0),
+    (561.2829676209195, 270.4109035042584, 0.6666666666666666, 10.0),
+    (481.28755456348756, 270.4109035042584, 1.0833333333333333, 6.0),
+];
+
+/// The jacks moved off the layout to clear a ridge's end: jack, ridge,
+/// how far.
+fn jacks_moved(frame: &Frame) -> Vec<(String, String, f64)> {
+    frame
+        .warnings
+        .iter()
+        .filter_map(|w| match w {
+            FramingWarning::JackMovedOffLayout { label, ridge, by_in } => {
+                Some((label.clone(), ridge.clone(), *by_in))
+            }
+            _ => None,
+        })
+        .collect()
+}
+
+/// Asserts that every joint fits, that one jack is moved off the layout,
+/// by `by_in`, that it is the valley jack whose plan line runs `to` (a
+/// plan coordinate read by `across`), that no valley jack is left at
+/// `layout_at` passing within 2 in of the ridge's end `node` (jacks of other
+/// planes on the same layout line stay), that its member carries the
+/// warning, and that it shares no wood with any other piece.
+fn assert_jack_moved_clear(
+    frame: &Frame,
+    across: impl Fn(DVec2) -> f64,
+    node: DVec2,
+    layout_at: f64,
+    to: f64,
+) {
+    for j in &frame.joints {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+    }
+    let moved = jacks_moved(frame);
+    assert_eq!(moved.len(), 1, "{moved:?}");
+    let (label, _, by) = &moved[0];
+    assert!((by - (to - layout_at).abs()).abs() < 1e-9, "moved by {by}, not {}", (to - layout_at).abs());
+    let on = |p: &pitchframe_geometry::framing::PlacedPiece, at: f64| {
+        p.kind == MemberKind::ValleyJack && p.plan_line.iter().all(|&q| (across(q) - at).abs() < 1e-6)
+    };
+    let Some(jack) = frame.pieces.iter().find(|p| on(p, to)) else {
+        panic!("no valley jack moved clear of the ridge's end");
+    };
+    assert_eq!(&jack.label, label);
+    let near_node = |p: &pitchframe_geometry::framing::PlacedPiece| {
+        let [a, b] = p.plan_line;
+        let t = ((node - a).dot(b - a) / (b - a).length_squared()).clamp(0.0, 1.0);
+        node.distance(a + (b - a) * t) < 2.0
+    };
+    assert!(
+        !frame.pieces.iter().any(|p| on(p, layout_at) && near_node(p)),
+        "a valley jack is left on the layout at the ridge's end"
+    );
+    let Some(member) = frame.members.iter().find(|m| &m.label == label) else {
+        panic!("no member {label}");
+    };
+    assert!(member.warnings.iter().any(|w| matches!(w, FramingWarning::JackMovedOffLayout { .. })));
+    // Where it stands now it shares no wood with any piece (parry's depth
+    // between the solids, under 1/64 in).
+    let Some(moved_piece) = frame.pieces.iter().position(|p| on(p, to)) else {
+        panic!("no piece of the moved jack");
+    };
+    let (depth, a, b, unhulled) =
+        parry_fit::interference_where_measurable(frame, |i, j| i != moved_piece && j != moved_piece);
+    assert!(unhulled.is_empty(), "parts parry cannot hull: {unhulled:?}");
+    assert!(depth < FIT_IN, "{a} and {b} share {depth} in");
+}
+
+#[test]
+fn a_valley_jack_at_the_end_of_a_ridge_ending_at_a_hip_is_moved_clear_of_the_board() {
+    let frame = framed(&SEED_194, &[&SEED_194_COURTYARD]);
+    let [_, node] =
+        solved_ridge(&SEED_194, &[&SEED_194_COURTYARD], dvec2(414.741, 88.964), dvec2(603.932, 88.964));
+    // The ridge between walls 12 and 18 (the file's order, from 1) ends at
+    // a hip end, where its board runs half a 1-1/2 in rafter (0.75 in) on
+    // past the node; the jack laid out at x = 604.399 in (24 in centres
+    // from the first corner: 340.399 + 11 x 24) goes to the node's x + 0.75
+    // + 0.75 (its own half thickness) + 1/16 in (the clearance). Default 2x
+    // thicknesses, common practice, no source; the rest derivation.
+    let layout_x = 340.398_857_800_223_25 + 11.0 * 24.0;
+    let to = node.x + 0.75 + 0.75 + 1.0 / 16.0;
+    assert_jack_moved_clear(&frame, |p| p.x, node, layout_x, to);
+}
+
+#[test]
+fn a_valley_jack_at_the_end_of_a_ridge_square_to_it_is_moved_clear_of_the_board() {
+    let frame = framed(&SEED_30468, &[&SEED_30468_COURTYARD]);
+    let [_, node] =
+        solved_ridge(&SEED_30468, &[&SEED_30468_COURTYARD], dvec2(314.638, 154.746), dvec2(314.638, 359.504));
+    // That ridge's board ends square at its node, 0.6 in short of the line
+    // of the jack laid out on the wall at y = 360.109 in (the first corner's
+    // y, where the layout starts, 0 x 24 in on): the jack goes to the
+    // node's y + 0.75 (its half thickness) + 1/16 in. Derivation.
+    let layout_y = SEED_30468[0].1;
+    let to = node.y + 0.75 + 1.0 / 16.0;
+    assert_jack_moved_clear(&frame, |p| p.y, node, layout_y, to);
+}

@@ -10,7 +10,10 @@ use super::checks::piece_checks;
 use super::copies::solids_of;
 use super::joints::{JOINT_FIT_IN, Joint, check_fit, part_bounds};
 use super::labels::label_pieces;
-use super::layout::{PlanLine, RafterLine, rafter_lines, rafters_onto_kept_ridges, ridges_beside};
+use super::layout::{
+    JackAtRidgeEnd, PlanLine, RafterLine, jacks_clear_of_ridge_ends, rafter_lines, rafters_onto_kept_ridges,
+    ridges_beside,
+};
 use super::measure::{Measured, measure};
 use super::plane_frame::{PLAN_TOL_IN, PlaneFrame, distance_to_segment};
 use super::{
@@ -120,8 +123,12 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
     // Two ridges side by side closer than a board's thickness: one board,
     // the longer, with everything on the other moved onto it.
     let beside = ridges_beside(&lines, settings);
-    let moved_from =
+    let mut moved_from =
         rafters_onto_kept_ridges(&mut rafters, &lines, &beside, &planes, settings.rafter.thickness_in);
+    // A valley jack on the spacing where a ridge's end would lie in its
+    // board: moved clear along its wall, or left out.
+    let (at_ridge_end, jacks_left_out) =
+        jacks_clear_of_ridge_ends(&mut rafters, &mut moved_from, &planes, &lines, &beside, settings);
     let kept_ridge: Vec<Option<usize>> = beside.iter().map(|b| b.map(|(kept, _)| kept)).collect();
 
     let left_out_line = left_out_lines(&lines, settings);
@@ -207,6 +214,31 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             joint_specs.push(JointSpec { cut: index, bearing: Bearing::Line(li), mating });
         }
         specs.push(spec);
+    }
+
+    // Each jack moved clear of a ridge's end, with that ridge's piece
+    // there: (jack piece, ridge piece, how far moved); and each ridge
+    // piece whose end stands where jacks were left out, with how many.
+    let mut jack_moves: Vec<(usize, usize, f64)> = Vec::new();
+    for (ri, d) in at_ridge_end.iter().enumerate() {
+        if let (Some(JackAtRidgeEnd::Moved { ridge, node, by_in }), Some(Some(piece))) =
+            (d, rafter_piece.get(ri))
+            && let Some(ridge_piece) = ridge_piece_at(*ridge, *node, &specs)
+        {
+            jack_moves.push((*piece, ridge_piece, *by_in));
+        }
+    }
+    let mut left_out_at_ridge_end: Vec<(usize, usize)> = Vec::new();
+    for d in &jacks_left_out {
+        let JackAtRidgeEnd::LeftOut { ridge, node } = d else { continue };
+        let Some(ridge_piece) = ridge_piece_at(*ridge, *node, &specs) else { continue };
+        match left_out_at_ridge_end.iter_mut().find(|(p, _)| *p == ridge_piece) {
+            Some((_, count)) => *count += 1,
+            None => left_out_at_ridge_end.push((ridge_piece, 1)),
+        }
+    }
+    for (piece, count) in left_out_at_ridge_end {
+        warnings_extra.push((piece, FramingWarning::JackLeftOutAtRidgeEnd { label: String::new(), count }));
     }
 
     // A ridge's end cut back to a king common passing it bears on the king.
@@ -381,39 +413,45 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
                 .all(|x| x.is_finite())
     };
     let kept: Vec<usize> = (0..specs.len()).filter(|&i| usable(i)).collect();
-    let (specs, solids, measured, joint_specs, warnings_extra, beside_flags) = if kept.len() == specs.len() {
-        (specs, solids, measured, joint_specs, warnings_extra, beside_flags)
-    } else {
-        let mut new_index = vec![None; specs.len()];
-        for (n, &i) in kept.iter().enumerate() {
-            new_index[i] = Some(n);
-        }
-        let joints = joint_specs
-            .into_iter()
-            .filter_map(|j| {
-                Some(ResolvedJoint {
-                    cut: new_index[j.cut]?,
-                    bearing: new_index[j.bearing]?,
-                    mating: j.mating,
+    let (specs, solids, measured, joint_specs, warnings_extra, beside_flags, jack_moves) =
+        if kept.len() == specs.len() {
+            (specs, solids, measured, joint_specs, warnings_extra, beside_flags, jack_moves)
+        } else {
+            let mut new_index = vec![None; specs.len()];
+            for (n, &i) in kept.iter().enumerate() {
+                new_index[i] = Some(n);
+            }
+            let joints = joint_specs
+                .into_iter()
+                .filter_map(|j| {
+                    Some(ResolvedJoint {
+                        cut: new_index[j.cut]?,
+                        bearing: new_index[j.bearing]?,
+                        mating: j.mating,
+                    })
                 })
-            })
-            .collect();
-        let extra = warnings_extra.into_iter().filter_map(|(i, w)| Some((new_index[i]?, w))).collect();
-        let flags = beside_flags
-            .into_iter()
-            .filter_map(|(i, ridge, length_in, apart_in)| {
-                Some((new_index[i]?, new_index[ridge]?, length_in, apart_in))
-            })
-            .collect();
-        (
-            kept_only(specs, &new_index),
-            kept_only(solids, &new_index),
-            kept_only(measured, &new_index),
-            joints,
-            extra,
-            flags,
-        )
-    };
+                .collect();
+            let extra = warnings_extra.into_iter().filter_map(|(i, w)| Some((new_index[i]?, w))).collect();
+            let flags = beside_flags
+                .into_iter()
+                .filter_map(|(i, ridge, length_in, apart_in)| {
+                    Some((new_index[i]?, new_index[ridge]?, length_in, apart_in))
+                })
+                .collect();
+            let moves = jack_moves
+                .into_iter()
+                .filter_map(|(i, ridge, by_in)| Some((new_index[i]?, new_index[ridge]?, by_in)))
+                .collect();
+            (
+                kept_only(specs, &new_index),
+                kept_only(solids, &new_index),
+                kept_only(measured, &new_index),
+                joints,
+                extra,
+                flags,
+                moves,
+            )
+        };
     let labels = label_pieces(&specs, &measured);
 
     // A rafter on a ridge splice bears on both pieces: check ridges whole.
@@ -479,6 +517,9 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             FramingWarning::TailsLeftOut { count, .. } => {
                 FramingWarning::TailsLeftOut { label: labels.labels[i].clone(), count }
             }
+            FramingWarning::JackLeftOutAtRidgeEnd { count, .. } => {
+                FramingWarning::JackLeftOutAtRidgeEnd { label: labels.labels[i].clone(), count }
+            }
             other => other,
         };
         piece_warnings[i].push(w);
@@ -489,6 +530,13 @@ pub fn frame_roof(outline: &Outline, roof: &Roof, settings: &FramingSettings) ->
             ridge: labels.labels[ridge].clone(),
             length_in,
             apart_in,
+        });
+    }
+    for (i, ridge, by_in) in jack_moves {
+        piece_warnings[i].push(FramingWarning::JackMovedOffLayout {
+            label: labels.labels[i].clone(),
+            ridge: labels.labels[ridge].clone(),
+            by_in,
         });
     }
     for (joint, _) in &joints {

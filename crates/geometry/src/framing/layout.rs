@@ -541,3 +541,262 @@ fn clip(
     }
     out
 }
+
+/// How far a valley jack moved off the layout is set clear of a ridge
+/// board's end, inches: 1/16 in, a saw kerf's width, so the two boards do
+/// not bind when set (common practice, no source).
+pub const RIDGE_END_CLEARANCE_IN: f64 = 1.0 / 16.0;
+
+/// What became of a valley jack laid out where a ridge's end would lie in
+/// its board ([`jacks_clear_of_ridge_ends`]).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum JackAtRidgeEnd {
+    /// Moved off the layout along its wall by `by_in` (plan inches, the
+    /// least that clears), still in its plane between the same lines.
+    Moved {
+        /// The ridge line whose end it clears.
+        ridge: usize,
+        /// The ridge's end in plan.
+        node: DVec2,
+        /// How far it moved, plan inches (never negative).
+        by_in: f64,
+    },
+    /// No place clear of the ridge's end (a neighbouring rafter or the
+    /// plane's edge in the way): left out.
+    LeftOut {
+        /// The ridge line whose end is in the way.
+        ridge: usize,
+        /// The ridge's end in plan.
+        node: DVec2,
+    },
+}
+
+/// One end of a framed ridge board, in plan, for [`ridge_end_in_jack`].
+#[derive(Debug, Clone, Copy)]
+pub struct RidgeEnd {
+    /// The ridge line.
+    pub line: usize,
+    /// The end of its centre line.
+    pub node: DVec2,
+    /// Unit plan direction out past the end.
+    pub out: DVec2,
+    /// How far the board runs on past the node (half a rafter at a hip
+    /// end, where it is flush with the kings' faces; never less than 0).
+    pub past_in: f64,
+    /// The board's plan length back from the node to its other end.
+    pub length_in: f64,
+    /// Height of the ridge's line at the node.
+    pub z: f64,
+}
+
+/// The ends of the ridges framed (those not left out beside another).
+pub fn ridge_ends(
+    lines: &[PlanLine],
+    beside: &[Option<(usize, f64)>],
+    settings: &FramingSettings,
+) -> Vec<RidgeEnd> {
+    let mut out = Vec::new();
+    for (li, l) in lines.iter().enumerate() {
+        if l.kind != RoofLineKind::Ridge || beside.get(li).is_some_and(Option::is_some) {
+            continue;
+        }
+        let Some(dir) = (l.to - l.from).try_normalize() else { continue };
+        let length_in = l.from.distance(l.to);
+        for (node, out_dir, z) in [(l.from, -dir, l.from_z), (l.to, dir, l.to_z)] {
+            let hip_end =
+                lines.iter().any(|h| h.kind == RoofLineKind::Hip && h.to.distance(node) < PLAN_TOL_IN * 1e3);
+            let past_in = if hip_end { settings.rafter.thickness_in / 2.0 } else { 0.0 };
+            out.push(RidgeEnd { line: li, node, out: out_dir, past_in, length_in, z });
+        }
+    }
+    out
+}
+
+/// Where ridge end `end`'s board would share wood with valley jack `r`
+/// (in plane `frame`) by more than a thousandth of an inch (boards that
+/// only touch are left), the least moves of the jack along its wall that
+/// clear it by [`RIDGE_END_CLEARANCE_IN`]: one toward each side, plan
+/// inches across the jack (positive along the jack's left, `up.perp()`),
+/// either `None` where that side cannot clear (the ridge runs on that
+/// way). `None` when the board clears the jack as laid out.
+///
+/// The cheap tests come first: the end's plan distance from the jack's
+/// line against both half thicknesses, the board's run past the end and
+/// the clearance; then the two boards' height ranges at the end. Only then
+/// is the ridge board's plan outline cut to the stretch of the jack between
+/// its bearing faces (the lower line's side, the upper line's side) and
+/// laid across the jack.
+pub fn ridge_end_in_jack(
+    r: &RafterLine,
+    frame: &PlaneFrame,
+    lines: &[PlanLine],
+    end: &RidgeEnd,
+    settings: &FramingSettings,
+) -> Option<(Option<f64>, Option<f64>)> {
+    let w_jack = settings.rafter.thickness_in / 2.0 + RIDGE_END_CLEARANCE_IN;
+    let w_ridge = settings.ridge.thickness_in / 2.0;
+    let reach = w_jack + w_ridge + end.past_in;
+    if distance_to_segment(end.node, r.lower, r.upper) >= reach {
+        return None;
+    }
+    // Heights at the end: the jack's board hangs its plumb depth below its
+    // plane, the ridge's below its line.
+    let jack_top = frame.height(end.node);
+    let jack_plumb = settings.rafter.depth_in * (1.0 + frame.slope * frame.slope).sqrt();
+    if end.z - settings.ridge.depth_in >= jack_top || end.z <= jack_top - jack_plumb {
+        return None;
+    }
+    let up = (r.upper - r.lower).try_normalize()?;
+    let left = up.perp();
+    let mid = (r.lower + r.upper) / 2.0;
+    // The ridge board's plan outline.
+    let n = end.out.perp() * w_ridge;
+    let tip = end.node + end.out * end.past_in;
+    let back = end.node - end.out * end.length_in;
+    let mut outline = vec![tip - n, tip + n, back + n, back - n];
+    // Cut to the jack's stretch between the sides of the lines it bears on.
+    for edge in [r.lower_edge, r.upper_edge] {
+        let EdgeKind::Line(li) = edge else { continue };
+        let Some(line) = lines.get(li) else { continue };
+        let t = match line.kind {
+            RoofLineKind::Ridge => settings.ridge.thickness_in,
+            RoofLineKind::Hip => settings.hip.thickness_in,
+            RoofLineKind::Valley => settings.valley.thickness_in,
+        };
+        let Some(dir) = (line.to - line.from).try_normalize() else { continue };
+        let mut normal = dir.perp();
+        if (mid - line.from).dot(normal) < 0.0 {
+            normal = -normal;
+        }
+        // Keep the points on the jack's side of that line's side face.
+        outline = clip_to_half_plane(&outline, |p| t / 2.0 - (p - line.from).dot(normal));
+        if outline.is_empty() {
+            return None;
+        }
+    }
+    let across: Vec<f64> = outline.iter().map(|p| (*p - r.lower).dot(left)).collect();
+    let lo = across.iter().copied().fold(f64::INFINITY, f64::min);
+    let hi = across.iter().copied().fold(f64::NEG_INFINITY, f64::max);
+    // Boards that only touch, or share less than a thousandth of an inch
+    // (the plan tolerance roof points are matched to), are left where they
+    // are: the check is for wood shared, the clearance only for the move.
+    let w_board = settings.rafter.thickness_in / 2.0 - PLAN_TOL_IN * 1e3;
+    if !(lo < w_board && hi > -w_board) {
+        return None;
+    }
+    // A side is open where the board ends short of the jack's whole
+    // stretch that way; the ridge running on along the jack's length shuts
+    // neither, a ridge running across it shuts the side it runs to.
+    let reach_limit = settings.spacing_in;
+    let to_left = hi + w_jack;
+    let to_right = lo - w_jack;
+    Some(((to_left < reach_limit).then_some(to_left), (-to_right < reach_limit).then_some(to_right)))
+}
+
+/// Moves every valley jack whose board would contain a framed ridge's end
+/// ([`ridge_end_in_jack`]) clear of it: along its wall, by the least
+/// distance, to the nearer side where the moved line still runs in its
+/// plane from the same valley to the same ridge, clear of every ridge end
+/// and no closer than a rafter's thickness to another rafter of the
+/// plane; the farther side if the nearer cannot be had; left out where
+/// neither can (the ridge's end then carries the sheathing there).
+/// Returns, for each rafter line kept (in order), what was done to it,
+/// and the jacks left out; `keep` (a list aligned with `rafters`) is
+/// trimmed alongside.
+pub fn jacks_clear_of_ridge_ends<T>(
+    rafters: &mut Vec<RafterLine>,
+    keep: &mut Vec<T>,
+    planes: &[PlaneFrame],
+    lines: &[PlanLine],
+    beside: &[Option<(usize, f64)>],
+    settings: &FramingSettings,
+) -> (Vec<Option<JackAtRidgeEnd>>, Vec<JackAtRidgeEnd>) {
+    let ends = ridge_ends(lines, beside, settings);
+    let mut done: Vec<Option<JackAtRidgeEnd>> = vec![None; rafters.len()];
+    let bears_on = |r: &RafterLine, li: usize| {
+        r.upper_edge == EdgeKind::Line(li) || r.upper_also == Some(EdgeKind::Line(li))
+    };
+    // The first ridge end in jack `r`'s board, with the moves that clear it.
+    let first_hit = |r: &RafterLine, frame: &PlaneFrame| {
+        ends.iter()
+            .filter(|e| !bears_on(r, e.line))
+            .find_map(|e| ridge_end_in_jack(r, frame, lines, e, settings).map(|moves| (e, moves)))
+    };
+    for i in 0..rafters.len() {
+        let r = rafters[i];
+        if r.kind(lines) != Some(MemberKind::ValleyJack) {
+            continue;
+        }
+        let Some(frame) = planes.get(r.plane) else { continue };
+        let Some((end, (to_left, to_right))) = first_hit(&r, frame) else { continue };
+        let Some(up) = (r.upper - r.lower).try_normalize() else { continue };
+        let left = up.perp();
+        let mut moves: Vec<f64> = [to_left, to_right].into_iter().flatten().collect();
+        moves.sort_by(|a, b| a.abs().total_cmp(&b.abs()));
+        let edges = edge_kinds(r.plane, frame, planes, lines);
+        let thickness = settings.rafter.thickness_in;
+        let placed = moves.iter().find_map(|&by| {
+            let moved = clip(r.lower + left * by, frame, &edges).into_iter().find_map(
+                |(lower, lower_edge, upper, upper_edge, upper_also)| {
+                    (lower_edge == r.lower_edge && upper_edge == r.upper_edge).then_some(RafterLine {
+                        lower,
+                        upper,
+                        upper_also,
+                        ..r
+                    })
+                },
+            )?;
+            let len = moved.lower.distance(moved.upper);
+            let crowds = rafters.iter().enumerate().any(|(k, q)| {
+                if k == i
+                    || q.plane != r.plane
+                    || done.get(k).is_some_and(|d| matches!(d, Some(JackAtRidgeEnd::LeftOut { .. })))
+                {
+                    return false;
+                }
+                let Some(q_up) = (q.upper - q.lower).try_normalize() else { return false };
+                let along = |p: DVec2| (p - moved.lower).dot(up);
+                let (a, b) = (along(q.lower), along(q.upper));
+                q_up.perp_dot(up).abs() < 1e-6
+                    && (q.lower - moved.lower).dot(left).abs() < thickness
+                    && a.max(b) > 0.0
+                    && a.min(b) < len
+            });
+            (!crowds && first_hit(&moved, frame).is_none()).then_some((moved, by))
+        });
+        match placed {
+            Some((moved, by)) => {
+                rafters[i] = moved;
+                done[i] = Some(JackAtRidgeEnd::Moved { ridge: end.line, node: end.node, by_in: by.abs() });
+            }
+            None => done[i] = Some(JackAtRidgeEnd::LeftOut { ridge: end.line, node: end.node }),
+        }
+    }
+    let left_out: Vec<JackAtRidgeEnd> =
+        done.iter().flatten().copied().filter(|d| matches!(d, JackAtRidgeEnd::LeftOut { .. })).collect();
+    if !left_out.is_empty() {
+        let gone = |d: &Option<JackAtRidgeEnd>| matches!(d, Some(JackAtRidgeEnd::LeftOut { .. }));
+        let mut flags = done.iter().map(|d| !gone(d));
+        rafters.retain(|_| flags.next().unwrap_or(true));
+        let mut flags = done.iter().map(|d| !gone(d));
+        keep.retain(|_| flags.next().unwrap_or(true));
+        done.retain(|d| !gone(d));
+    }
+    (done, left_out)
+}
+
+/// The part of convex polygon `polygon` where `outside(p) <= 0`.
+fn clip_to_half_plane(polygon: &[DVec2], outside: impl Fn(DVec2) -> f64) -> Vec<DVec2> {
+    let mut out = Vec::with_capacity(polygon.len() + 1);
+    for (k, &a) in polygon.iter().enumerate() {
+        let b = polygon[(k + 1) % polygon.len()];
+        let (fa, fb) = (outside(a), outside(b));
+        if fa <= 0.0 {
+            out.push(a);
+        }
+        if (fa < 0.0 && fb > 0.0) || (fa > 0.0 && fb < 0.0) {
+            out.push(a + (b - a) * (fa / (fa - fb)));
+        }
+    }
+    out
+}

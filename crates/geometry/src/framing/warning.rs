@@ -139,6 +139,29 @@ pub enum FramingWarning {
         /// How many jacks are left out.
         count: usize,
     },
+    /// A valley jack laid out on the spacing would have held a lower
+    /// ridge's end in its board (the two would share wood): it is moved
+    /// off the layout along its wall by `by_in`, the least that clears the
+    /// ridge board, to the nearer side it can go. Mark its place off the
+    /// layout.
+    JackMovedOffLayout {
+        /// The jack.
+        label: String,
+        /// The ridge whose end it clears.
+        ridge: String,
+        /// How far it is moved off the layout, plan inches.
+        by_in: f64,
+    },
+    /// Valley jacks laid out on the spacing would have held this ridge's
+    /// end in their boards, with no place clear of it beside (a
+    /// neighbouring rafter or the plane's edge in the way): they are left
+    /// out, and the ridge's end carries the sheathing there.
+    JackLeftOutAtRidgeEnd {
+        /// The ridge.
+        label: String,
+        /// How many jacks are left out.
+        count: usize,
+    },
     /// Hips meet at a point with no ridge (a peak, or where two hips merge
     /// into one on an irregular plan): the ends there are cut plumb, square
     /// to the hip, at the theoretical point, and need a fitted block or hub.
@@ -196,6 +219,14 @@ impl FramingWarning {
                 W::JointDoesNotFit { label: a, bears_on: ba, gap_in: ga, overlap_in: oa },
                 W::JointDoesNotFit { label: b, bears_on: bb, gap_in: gb, overlap_in: ob },
             ) => a == b && ba == bb && close(ga, gb) && close(oa, ob),
+            (
+                W::JackMovedOffLayout { label: a, ridge: ra, by_in: ba },
+                W::JackMovedOffLayout { label: b, ridge: rb, by_in: bb },
+            ) => a == b && ra == rb && close(ba, bb),
+            (
+                W::JackLeftOutAtRidgeEnd { label: a, count: ca },
+                W::JackLeftOutAtRidgeEnd { label: b, count: cb },
+            ) => a == b && ca == cb,
             (W::TailsLeftOut { label: a, count: ca }, W::TailsLeftOut { label: b, count: cb }) => {
                 a == b && ca == cb
             }
@@ -215,6 +246,8 @@ impl FramingWarning {
             | Self::ShortMemberLeftOut { label, .. }
             | Self::RidgeBesideLeftOut { label, .. }
             | Self::TailsLeftOut { label, .. }
+            | Self::JackMovedOffLayout { label, .. }
+            | Self::JackLeftOutAtRidgeEnd { label, .. }
             | Self::JointDoesNotFit { label, .. } => label,
             Self::HipTooShallow { jack, .. } => jack,
             Self::RidgeTooShallow { rafter, .. } => rafter,
@@ -241,5 +274,22 @@ mod tests {
         assert!(!notch(2.5).repeats(&other));
         let hub = FramingWarning::HipsMeetWithoutRidge { label: "C1".into() };
         assert!(!notch(2.5).repeats(&hub) && hub.repeats(&hub.clone()));
+    }
+
+    fn moved(by_in: f64) -> FramingWarning {
+        FramingWarning::JackMovedOffLayout { label: "VJ1".into(), ridge: "R3".into(), by_in }
+    }
+
+    #[test]
+    fn jacks_moved_by_amounts_a_float_rounding_apart_are_one_warning() {
+        // 1e-12 in is rounding in the last bits; 1/64 in is a real difference
+        // (common practice, no source).
+        assert!(moved(1.0958640810346196).repeats(&moved(1.0958640810346196 + 1e-12)));
+        assert!(!moved(1.0958640810346196).repeats(&moved(1.0958640810346196 + 1.0 / 64.0)));
+        let other_ridge =
+            FramingWarning::JackMovedOffLayout { label: "VJ1".into(), ridge: "R4".into(), by_in: 1.0 };
+        assert!(!moved(1.0).repeats(&other_ridge));
+        let tails = FramingWarning::TailsLeftOut { label: "V1".into(), count: 2 };
+        assert!(tails.repeats(&tails.clone()) && !tails.repeats(&moved(1.0)));
     }
 }
