@@ -1,5 +1,5 @@
-//! Framing speed: the demo house, and a 200 ft x 120 ft plan with many
-//! wings (about two thousand members).
+//! Framing speed, and solving and framing together: the demo house, and a
+//! 200 ft x 120 ft plan with many wings (about two thousand members).
 
 use criterion::{Criterion, criterion_group, criterion_main};
 use pitchframe_geometry::framing::{FramingSettings, frame_roof};
@@ -15,6 +15,15 @@ fn bench(c: &mut Criterion) {
     let demo = plan.outline().unwrap_or_else(|e| panic!("demo outline: {e}"));
     let demo_roof = Roof::solve(&demo).unwrap_or_else(|e| panic!("demo roof: {e}"));
     c.bench_function("frame demo house", |b| b.iter(|| frame_roof(&demo, &demo_roof, &settings)));
+    // Solving and framing together, as the app does on every change, at
+    // 16 in centres and with the demo's own framing settings.
+    c.bench_function("solve and frame demo house", |b| {
+        b.iter(|| Roof::solve(&demo).map(|roof| frame_roof(&demo, &roof, &settings)))
+    });
+    let own = plan.framing_settings().unwrap_or_else(|e| panic!("demo framing: {e}"));
+    c.bench_function("solve and frame demo house, its own framing", |b| {
+        b.iter(|| Roof::solve(&demo).map(|roof| frame_roof(&demo, &roof, &own)))
+    });
 
     // Rafters at 12 in centres on the large plan, for a frame of well over
     // a thousand pieces.
@@ -31,6 +40,9 @@ fn bench(c: &mut Criterion) {
     let mut group = c.benchmark_group("frame 200 ft x 120 ft many wings");
     group.sample_size(10);
     group.bench_function("frame", |b| b.iter(|| frame_roof(&big, &big_roof, &settings)));
+    group.bench_function("solve and frame", |b| {
+        b.iter(|| Roof::solve(&big).map(|roof| frame_roof(&big, &roof, &settings)))
+    });
     group.finish();
 }
 
