@@ -412,7 +412,7 @@ fn an_l_shaped_courtyard_with_a_thin_arm() {
     // 30 in wide up the left side. With 12 in overhangs the wide arm has
     // 30 - 24 = 6 in to spare and the thin one is 24 - 20 = 4 in short
     // (arithmetic): walls 5 (the arm's bottom) and 7 (its top) are named.
-    let court = walls(&[
+    let l_shape = walls(&[
         (100.0, 100.0),
         (250.0, 100.0),
         (250.0, 120.0),
@@ -420,6 +420,7 @@ fn an_l_shaped_courtyard_with_a_thin_arm() {
         (130.0, 250.0),
         (100.0, 250.0),
     ]);
+    let court = l_shape.clone();
     assert_eq!(
         message(rectangle(), vec![court]),
         "courtyard 1 is too small for the overhangs into it: wall 5 (corner 1 to corner 2) and wall 7 \
@@ -427,14 +428,7 @@ fn an_l_shaped_courtyard_with_a_thin_arm() {
          20 in, 4 in short; shorten those overhangs or widen the courtyard"
     );
     // With 9 in overhangs (18 in across the thin arm) it fits.
-    let mut court = walls(&[
-        (100.0, 100.0),
-        (250.0, 100.0),
-        (250.0, 120.0),
-        (130.0, 120.0),
-        (130.0, 250.0),
-        (100.0, 250.0),
-    ]);
+    let mut court = l_shape;
     for wall in &mut court {
         wall.overhang_in = 9.0;
     }

@@ -56,14 +56,17 @@ pub(crate) fn solids_of(specs: &[PieceSpec]) -> Vec<Solid> {
             continue;
         }
         let shape = Shape::of(spec, false);
-        let mirrored = (spec.seat.len() <= 1).then(|| Shape::of(spec, true));
-        let found = [Some((&shape, false)), mirrored.as_ref().map(|m| (m, true))]
-            .into_iter()
-            .flatten()
-            .find_map(|(wanted, mirror)| {
-                let (_, piece) = cut.get(&wanted.key())?.iter().find(|(shape, _)| shape.matches(wanted))?;
-                Some((*piece, mirror))
-            });
+        let cut_before = |wanted: &Shape| {
+            let (_, piece) = cut.get(&wanted.key())?.iter().find(|(shape, _)| shape.matches(wanted))?;
+            Some(*piece)
+        };
+        // The other hand's shape is worked out only when this one is new.
+        let found = cut_before(&shape).map(|piece| (piece, false)).or_else(|| {
+            (spec.seat.len() <= 1)
+                .then(|| Shape::of(spec, true))
+                .and_then(|m| cut_before(&m))
+                .map(|piece| (piece, true))
+        });
         match found {
             Some((piece, mirror)) => {
                 let carry = Carry::between(&specs[piece].frame, &spec.frame, mirror);
