@@ -2070,17 +2070,29 @@ fn a_ridges_hip_end_is_cut_back_to_a_hip_passing_just_beyond_it() {
 /// 0.01 in of `a` and `b` (either way round): the exact nodes, read from
 /// the outline's own geometry.
 fn solved_ridge(outer: &[WallRow], courtyards: &[&[WallRow]], a: DVec2, b: DVec2) -> [DVec2; 2] {
+    solved_line(outer, courtyards, RoofLineKind::Ridge, a, b)
+}
+
+/// The plan ends, as solved, of the roof line of `kind` whose ends are
+/// within 0.01 in of `a` and `b` (either way round).
+fn solved_line(
+    outer: &[WallRow],
+    courtyards: &[&[WallRow]],
+    kind: RoofLineKind,
+    a: DVec2,
+    b: DVec2,
+) -> [DVec2; 2] {
     let o = Outline::new(walls(outer), courtyards.iter().map(|c| walls(c)).collect())
         .unwrap_or_else(|e| panic!("outline: {e}"));
     let roof = Roof::solve(&o).unwrap_or_else(|e| panic!("solve: {e}"));
     roof.lines
         .iter()
-        .filter(|l| l.kind == RoofLineKind::Ridge)
+        .filter(|l| l.kind == kind)
         .map(|l| [l.from.truncate(), l.to.truncate()])
         .find(|[p, q]| {
             (p.distance(a) < 0.01 && q.distance(b) < 0.01) || (p.distance(b) < 0.01 && q.distance(a) < 0.01)
         })
-        .unwrap_or_else(|| panic!("no ridge from {a} to {b}"))
+        .unwrap_or_else(|| panic!("no {kind:?} from {a} to {b}"))
 }
 
 /// Two ridges of the solved roof run parallel less than a ridge board's
@@ -2687,6 +2699,29 @@ const SEED_30468_COURTYARD: [WallRow; 4] = [
     (481.28755456348756, 270.4109035042584, 1.0833333333333333, 6.0),
 ];
 
+/// Seed 35540: a valley jack laid out 0.53 in from the valley end of the
+/// ridge it is framed to, so that a quarter of its board ran on past the
+/// ridge board's end with nothing under its top cut.
+#[rustfmt::skip]
+const SEED_35540: [WallRow; 16] = [
+    (0.0, 209.28242250814938, 1.38838023744913, 11.0),
+    (204.4367135864182, 209.28242250814938, 1.38838023744913, 19.0),
+    (377.5661243974922, 209.28242250814938, 0.25, 2.0),
+    (377.5661243974922, 445.0534515564212, 0.16666666666666666, 22.0),
+    (601.5056881727126, 445.0534515564212, 0.8333333333333334, 22.0),
+    (601.5056881727126, 299.1224935579362, 0.8333333333333334, 5.0),
+    (601.5056881727126, 209.28242250814938, 0.16666666666666666, 5.0),
+    (812.5219551164068, 209.28242250814938, 0.4166666666666667, 22.0),
+    (812.5219551164068, 445.0534515564212, 0.5833333333333334, 19.0),
+    (1030.8999493966762, 445.0534515564212, 0.3333333333333333, 18.0),
+    (1030.8999493966762, 209.28242250814938, 0.8333333333333334, 19.0),
+    (1149.22542838162, 209.28242250814938, 0.4166666666666667, 9.0),
+    (1149.22542838162, 128.13975576342708, 0.4166666666666667, 8.0),
+    (1149.22542838162, 63.92427752222165, 0.4166666666666667, 22.0),
+    (1149.22542838162, 0.0, 0.2517317527930338, 18.0),
+    (0.0, 0.0, 0.5833333333333334, 12.0),
+];
+
 /// The jacks moved off the layout to clear a ridge's end: jack, ridge,
 /// how far.
 fn jacks_moved(frame: &Frame) -> Vec<(String, String, f64)> {
@@ -2776,9 +2811,43 @@ fn a_valley_jack_at_the_end_of_a_ridge_square_to_it_is_moved_clear_of_the_board(
         solved_ridge(&SEED_30468, &[&SEED_30468_COURTYARD], dvec2(314.638, 154.746), dvec2(314.638, 359.504));
     // That ridge's board ends square at its node, 0.6 in short of the line
     // of the jack laid out on the wall at y = 360.109 in (the first corner's
-    // y, where the layout starts, 0 x 24 in on): the jack goes to the
-    // node's y + 0.75 (its half thickness) + 1/16 in. Derivation.
+    // y, where the layout starts, 0 x 24 in on). Clear of it by its half
+    // thickness and 1/16 in, the jack would still hang 0.01 in past the end
+    // of the ridge it is framed to, which starts at y = 359.579 and runs on
+    // north: it goes to that end's y + 0.75 (its half thickness) + 1/16 in,
+    // wholly on its ridge. Derivation.
+    let [_, own] =
+        solved_ridge(&SEED_30468, &[&SEED_30468_COURTYARD], dvec2(293.994, 359.579), dvec2(293.994, 477.018));
     let layout_y = SEED_30468[0].1;
-    let to = node.y + 0.75 + 1.0 / 16.0;
+    let to = own.y + 0.75 + 1.0 / 16.0;
+    assert_jack_moved_clear(&frame, |p| p.y, node, layout_y, to);
+}
+
+#[test]
+fn a_valley_jack_hanging_past_the_end_of_its_own_ridge_is_moved_onto_the_board() {
+    let frame = framed(&SEED_35540, &[]);
+    let ends = solved_ridge(&SEED_35540, &[], dvec2(909.579, 160.754), dvec2(909.579, 375.727));
+    let node = if ends[0].y < ends[1].y { ends[0] } else { ends[1] };
+    // The ridge between walls 8 and 10 (the file's order, from 1) ends
+    // square at its node, where a valley comes up to it and, past a hip of
+    // 0.05 in, the hip between walls 8 and 15. The jack laid out on the
+    // wall at y = 161.282 in (the first corner's y less 2 x 24 in) runs
+    // into that ridge with its centre line 0.53 in from the end, so 0.22 in
+    // of its 1-1/2 in board was past the board's end, and the hip's board
+    // comes up beside it. It goes to where the hip board's side face (half
+    // a 1-1/2 in hip off its line) crosses the ridge board's side face (half
+    // a 1-1/2 in ridge off its line), + 0.75 (its half thickness) + 1/16 in:
+    // wholly on the ridge, clear of the hip. Default 2x thicknesses, common
+    // practice, no source; the rest derivation.
+    let [foot, top] =
+        solved_line(&SEED_35540, &[], RoofLineKind::Hip, dvec2(862.888, 83.366), dvec2(909.628, 160.730));
+    let (foot, top) = if foot.y < top.y { (foot, top) } else { (top, foot) };
+    let d = (top - foot).normalize();
+    let face = top + d.perp() * 0.75;
+    let ridge_face_x = node.x - 0.75;
+    let face_y = face.y + (ridge_face_x - face.x) * d.y / d.x;
+    let layout_y = SEED_35540[0].1 - 2.0 * 24.0;
+    let to = face_y + 0.75 + 1.0 / 16.0;
+    assert!(to - node.y > 0.75 + 1.0 / 16.0, "the hip's board is the farther in");
     assert_jack_moved_clear(&frame, |p| p.y, node, layout_y, to);
 }

@@ -648,31 +648,14 @@ pub fn ridge_end_in_jack(
     }
     let up = (r.upper - r.lower).try_normalize()?;
     let left = up.perp();
-    let mid = (r.lower + r.upper) / 2.0;
     // The ridge board's plan outline.
     let n = end.out.perp() * w_ridge;
     let tip = end.node + end.out * end.past_in;
     let back = end.node - end.out * end.length_in;
-    let mut outline = vec![tip - n, tip + n, back + n, back - n];
     // Cut to the jack's stretch between the sides of the lines it bears on.
-    for edge in [r.lower_edge, r.upper_edge] {
-        let EdgeKind::Line(li) = edge else { continue };
-        let Some(line) = lines.get(li) else { continue };
-        let t = match line.kind {
-            RoofLineKind::Ridge => settings.ridge.thickness_in,
-            RoofLineKind::Hip => settings.hip.thickness_in,
-            RoofLineKind::Valley => settings.valley.thickness_in,
-        };
-        let Some(dir) = (line.to - line.from).try_normalize() else { continue };
-        let mut normal = dir.perp();
-        if (mid - line.from).dot(normal) < 0.0 {
-            normal = -normal;
-        }
-        // Keep the points on the jack's side of that line's side face.
-        outline = clip_to_half_plane(&outline, |p| t / 2.0 - (p - line.from).dot(normal));
-        if outline.is_empty() {
-            return None;
-        }
+    let outline = clip_to_jack_stretch(vec![tip - n, tip + n, back + n, back - n], r, lines, settings);
+    if outline.is_empty() {
+        return None;
     }
     let across: Vec<f64> = outline.iter().map(|p| (*p - r.lower).dot(left)).collect();
     let lo = across.iter().copied().fold(f64::INFINITY, f64::min);
@@ -691,6 +674,119 @@ pub fn ridge_end_in_jack(
     let to_left = hi + w_jack;
     let to_right = lo - w_jack;
     Some(((to_left < reach_limit).then_some(to_left), (-to_right < reach_limit).then_some(to_right)))
+}
+
+/// Where valley jack `r`, framed to ridge end `end`'s own ridge, sits so
+/// close to that end that part of its board runs on past the ridge's
+/// board (its top cut would bear on nothing there) or into the board of a
+/// hip or valley ending there, the least move along its wall, plan inches
+/// across the jack (positive along its left, `up.perp()`), that brings the
+/// whole board onto the ridge clear of them with [`RIDGE_END_CLEARANCE_IN`]
+/// to spare. `None` when the board bears on the ridge over its whole
+/// thickness and clear of the boards at the end by more than a
+/// thousandth of an inch, or when the jack runs along the ridge rather
+/// than into it.
+///
+/// The ridge board's corner at the end, on the jack's side, is taken from
+/// the board's plan outline (its end square across the ridge, `past_in`
+/// beyond the node); a hip's or valley's from its board's plan outline
+/// back from the node, cut to the jack's stretch as in
+/// [`ridge_end_in_jack`].
+pub fn jack_past_own_ridge_end(
+    r: &RafterLine,
+    lines: &[PlanLine],
+    end: &RidgeEnd,
+    settings: &FramingSettings,
+) -> Option<f64> {
+    let up = (r.upper - r.lower).try_normalize()?;
+    let left = up.perp();
+    // How the ridge runs on from its end, across the jack: the ridge's wood
+    // lies on this side of the end's corner.
+    let inward = -end.out.dot(left);
+    if inward.abs() < 1e-6 {
+        return None;
+    }
+    let s = inward.signum();
+    let w_jack = settings.rafter.thickness_in / 2.0;
+    let w_ridge = settings.ridge.thickness_in / 2.0;
+    // Only an end at the jack's top: the node within reach of its upper end.
+    if end.node.distance(r.upper) >= w_jack + w_ridge + end.past_in + settings.ridge.thickness_in {
+        return None;
+    }
+    let mut side = end.out.perp();
+    if (r.lower - end.node).dot(side) < 0.0 {
+        side = -side;
+    }
+    let corner = end.node + end.out * end.past_in + side * w_ridge;
+    // Places across the jack, measured toward the ridge's wood: the board
+    // must lie wholly beyond the ridge's corner and every board at the end.
+    let mut need = (corner - r.lower).dot(left) * s;
+    // Hips and valleys ending at the node or within a ridge's thickness of
+    // it (past a hip too short to frame, say).
+    let near = settings.ridge.thickness_in;
+    for (li, l) in lines.iter().enumerate() {
+        if li == end.line || l.kind == RoofLineKind::Ridge {
+            continue;
+        }
+        let (top, far) = if l.from.distance(end.node) <= l.to.distance(end.node) {
+            (l.from, l.to)
+        } else {
+            (l.to, l.from)
+        };
+        if top.distance(end.node) >= near {
+            continue;
+        }
+        let t = if l.kind == RoofLineKind::Hip {
+            settings.hip.thickness_in
+        } else {
+            settings.valley.thickness_in
+        };
+        let Some(back) = (far - top).try_normalize() else { continue };
+        let n = back.perp() * (t / 2.0);
+        let board = clip_to_jack_stretch(vec![top - n, top + n, far + n, far - n], r, lines, settings);
+        for p in board {
+            need = need.max((p - r.lower).dot(left) * s);
+        }
+    }
+    // The board spans -w_jack..w_jack across; the part below `need` is in
+    // the way.
+    let hangs = need + w_jack;
+    if hangs <= PLAN_TOL_IN * 1e3 || need >= w_jack {
+        return None;
+    }
+    Some(s * (hangs + RIDGE_END_CLEARANCE_IN))
+}
+
+/// The part of plan outline `outline` within jack `r`'s stretch between
+/// its bearing faces: on its side of the side faces of the lines at its
+/// two ends. Empty when none is.
+fn clip_to_jack_stretch(
+    mut outline: Vec<DVec2>,
+    r: &RafterLine,
+    lines: &[PlanLine],
+    settings: &FramingSettings,
+) -> Vec<DVec2> {
+    let mid = (r.lower + r.upper) / 2.0;
+    for edge in [r.lower_edge, r.upper_edge] {
+        let EdgeKind::Line(li) = edge else { continue };
+        let Some(line) = lines.get(li) else { continue };
+        let t = match line.kind {
+            RoofLineKind::Ridge => settings.ridge.thickness_in,
+            RoofLineKind::Hip => settings.hip.thickness_in,
+            RoofLineKind::Valley => settings.valley.thickness_in,
+        };
+        let Some(dir) = (line.to - line.from).try_normalize() else { continue };
+        let mut normal = dir.perp();
+        if (mid - line.from).dot(normal) < 0.0 {
+            normal = -normal;
+        }
+        // Keep the points on the jack's side of that line's side face.
+        outline = clip_to_half_plane(&outline, |p| t / 2.0 - (p - line.from).dot(normal));
+        if outline.is_empty() {
+            break;
+        }
+    }
+    outline
 }
 
 /// Moves every valley jack whose board would contain a framed ridge's end
@@ -716,11 +812,18 @@ pub fn jacks_clear_of_ridge_ends<T>(
     let bears_on = |r: &RafterLine, li: usize| {
         r.upper_edge == EdgeKind::Line(li) || r.upper_also == Some(EdgeKind::Line(li))
     };
-    // The first ridge end in jack `r`'s board, with the moves that clear it.
+    // The first ridge end in jack `r`'s board, or past which its board
+    // runs on the ridge it is framed to, with the moves that clear it.
     let first_hit = |r: &RafterLine, frame: &PlaneFrame| {
-        ends.iter()
-            .filter(|e| !bears_on(r, e.line))
-            .find_map(|e| ridge_end_in_jack(r, frame, lines, e, settings).map(|moves| (e, moves)))
+        ends.iter().find_map(|e| {
+            if !bears_on(r, e.line) {
+                ridge_end_in_jack(r, frame, lines, e, settings).map(|moves| (e, moves))
+            } else if r.upper_also.is_none() {
+                jack_past_own_ridge_end(r, lines, e, settings).map(|by| (e, (Some(by), None)))
+            } else {
+                None
+            }
+        })
     };
     for i in 0..rafters.len() {
         let r = rafters[i];
@@ -735,8 +838,11 @@ pub fn jacks_clear_of_ridge_ends<T>(
         moves.sort_by(|a, b| a.abs().total_cmp(&b.abs()));
         let edges = edge_kinds(r.plane, frame, planes, lines);
         let thickness = settings.rafter.thickness_in;
-        let placed = moves.iter().find_map(|&by| {
-            let moved = clip(r.lower + left * by, frame, &edges).into_iter().find_map(
+        // A move that clears one end can bring the board onto another
+        // (the end of the ridge it bears on, say): the moves then add up,
+        // the same way, a few times at most.
+        let place = |by: f64| {
+            clip(r.lower + left * by, frame, &edges).into_iter().find_map(
                 |(lower, lower_edge, upper, upper_edge, upper_also)| {
                     (lower_edge == r.lower_edge && upper_edge == r.upper_edge).then_some(RafterLine {
                         lower,
@@ -745,24 +851,40 @@ pub fn jacks_clear_of_ridge_ends<T>(
                         ..r
                     })
                 },
-            )?;
-            let len = moved.lower.distance(moved.upper);
-            let crowds = rafters.iter().enumerate().any(|(k, q)| {
-                if k == i
-                    || q.plane != r.plane
-                    || done.get(k).is_some_and(|d| matches!(d, Some(JackAtRidgeEnd::LeftOut { .. })))
-                {
-                    return false;
+            )
+        };
+        let placed = moves.iter().find_map(|&first| {
+            let mut by = first;
+            for _ in 0..4 {
+                let moved = place(by)?;
+                let len = moved.lower.distance(moved.upper);
+                let crowds = rafters.iter().enumerate().any(|(k, q)| {
+                    if k == i
+                        || q.plane != r.plane
+                        || done.get(k).is_some_and(|d| matches!(d, Some(JackAtRidgeEnd::LeftOut { .. })))
+                    {
+                        return false;
+                    }
+                    let Some(q_up) = (q.upper - q.lower).try_normalize() else { return false };
+                    let along = |p: DVec2| (p - moved.lower).dot(up);
+                    let (a, b) = (along(q.lower), along(q.upper));
+                    q_up.perp_dot(up).abs() < 1e-6
+                        && (q.lower - moved.lower).dot(left).abs() < thickness
+                        && a.max(b) > 0.0
+                        && a.min(b) < len
+                });
+                if crowds {
+                    return None;
                 }
-                let Some(q_up) = (q.upper - q.lower).try_normalize() else { return false };
-                let along = |p: DVec2| (p - moved.lower).dot(up);
-                let (a, b) = (along(q.lower), along(q.upper));
-                q_up.perp_dot(up).abs() < 1e-6
-                    && (q.lower - moved.lower).dot(left).abs() < thickness
-                    && a.max(b) > 0.0
-                    && a.min(b) < len
-            });
-            (!crowds && first_hit(&moved, frame).is_none()).then_some((moved, by))
+                match first_hit(&moved, frame) {
+                    None => return Some((moved, by)),
+                    Some((_, (to_left, to_right))) => {
+                        let more = [to_left, to_right].into_iter().flatten().find(|m| m * first > 0.0)?;
+                        by += more;
+                    }
+                }
+            }
+            None
         });
         match placed {
             Some((moved, by)) => {
