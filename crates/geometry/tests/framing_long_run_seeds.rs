@@ -2851,3 +2851,89 @@ fn a_valley_jack_hanging_past_the_end_of_its_own_ridge_is_moved_onto_the_board()
     assert!(to - node.y > 0.75 + 1.0 / 16.0, "the hip's board is the farther in");
     assert_jack_moved_clear(&frame, |p| p.y, node, layout_y, to);
 }
+
+/// Seed 14502: a plan round a courtyard whose north ridge steps 0.46 in
+/// sideways and up where two ridges end 0.65 in apart, across a hip too
+/// short to cut.
+#[rustfmt::skip]
+const SEED_14502: [WallRow; 8] = [
+    (0.0, 532.3161905733148, 1.3333333333333333, 8.0),
+    (291.8937739921361, 532.3161905733148, 1.3333333333333333, 11.0),
+    (291.8937739921361, 424.25649671956614, 1.3333333333333333, 14.0),
+    (518.8358461068178, 424.25649671956614, 1.3333333333333333, 12.0),
+    (518.8358461068178, 175.8085883944868, 0.0, 12.0),
+    (573.4377811234009, 175.8085883944868, 1.3333333333333333, 13.0),
+    (573.4377811234009, 587.0189409139787, 1.3333333333333333, 18.0),
+    (0.0, 587.0189409139787, 1.3333333333333333, 16.0),
+];
+
+#[rustfmt::skip]
+const SEED_14502_COURTYARD: [WallRow; 4] = [
+    (316.15339757228054, 453.6310600739241, 0.9166666666666666, 3.0),
+    (409.02870589650723, 453.6310600739241, 0.9166666666666666, 14.0),
+    (409.02870589650723, 518.7629307255063, 0.9166666666666666, 12.0),
+    (316.15339757228054, 518.7629307255063, 0.9166666666666666, 21.0),
+];
+
+#[test]
+fn a_king_flush_with_one_ridges_end_reads_no_gap_to_the_ridge_stepping_on() {
+    let frame = framed(&SEED_14502, &[&SEED_14502_COURTYARD]);
+    // Read from the solve: the east ridge (y = 559.211) has its hip end at
+    // x = 319.702; the west ridge (y = 559.668, 0.457 in north and lower)
+    // ends 0.457 in west of it, cut back to the east ridge's end, half a
+    // rafter west of the node (x = 318.952). The courtyard plane's king at
+    // the east ridge's end runs north along x = 319.702, its west side
+    // flush with both ridges' ends. Its top is cut to the east ridge's
+    // south side; below that ridge's bottom it hangs (the ridge is too
+    // shallow for it), and there its face's west corner lies on the west
+    // ridge's end plane, whose side is 0.457 in on: the face meets that
+    // board only along the corner's edge, no gap (before, 0.457 in).
+    let node = dvec2(319.70177814299524, 559.2109367631195);
+    let foot = dvec2(node.x, SEED_14502_COURTYARD[2].1);
+    let king = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::KingCommon
+                && p.plan_line[0].distance(foot) < 0.01
+                && p.plan_line[1].distance(node) < 0.01
+        })
+        .unwrap_or_else(|| panic!("the courtyard plane's king"));
+    assert_joints_of_fit(&frame, king);
+    // 1/64 in, the fit held (common practice, no source): the hang below
+    // the ridge is still flagged.
+    let label = &frame.pieces[king].label;
+    let shallow = frame.warnings.iter().any(|w| {
+        matches!(w, FramingWarning::RidgeTooShallow { rafter, short_by_in, .. } if rafter == label && *short_by_in > FIT_IN)
+    });
+    assert!(shallow, "{label}: the ridge too shallow for the king's top is flagged");
+}
+
+/// Seed 21566: a U whose main ridge steps 0.89 in sideways and 0.99 in up
+/// halfway along, the two ridges meeting end to end with no hip between.
+#[rustfmt::skip]
+const SEED_21566: [WallRow; 8] = [
+    (0.0, 0.0, 1.116914724061157, 6.0),
+    (673.3558720712618, 0.0, 1.3333333333333333, 8.0),
+    (673.3558720712618, 355.78468236573013, 0.5833333333333334, 5.0),
+    (390.7324356958793, 355.78468236573013, 0.0, 24.0),
+    (390.7324356958793, 237.1897882438201, 1.1666666666666667, 8.0),
+    (271.5676575296013, 237.1897882438201, 1.25, 1.0),
+    (271.5676575296013, 355.78468236573013, 0.659058670909107, 10.0),
+    (0.0, 355.78468236573013, 0.891080743906476, 18.0),
+];
+
+#[test]
+fn a_rafter_flush_with_a_ridges_end_reads_no_gap_to_the_ridge_stepping_on_from_it() {
+    let frame = framed(&SEED_21566, &[]);
+    // Read from the solve: the west ridge (y = 121.179) and the east one
+    // (y = 122.065, higher) meet end to end at x = 390.732. The south
+    // plane's rafter flush inside the step between them (x = 389.982, half
+    // a rafter west) bears on the west ridge's south side; its top corner
+    // at x = 390.732, above that ridge's top, lies on the east ridge's end
+    // plane, whose side is 0.886 in on: the face meets that board only
+    // along the corner's edge, no gap (before, 0.886 in).
+    let top = dvec2(389.9824356958793, 121.17869796162309);
+    let rafter = piece_ending_at(&frame, MemberKind::Common, 1, top).unwrap_or_else(|| panic!("the rafter"));
+    assert_joints_of_fit(&frame, rafter);
+}
