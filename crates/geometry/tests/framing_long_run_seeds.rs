@@ -2937,3 +2937,105 @@ fn a_rafter_flush_with_a_ridges_end_reads_no_gap_to_the_ridge_stepping_on_from_i
     let rafter = piece_ending_at(&frame, MemberKind::Common, 1, top).unwrap_or_else(|| panic!("the rafter"));
     assert_joints_of_fit(&frame, rafter);
 }
+
+/// Of a line's two ends, the one within 0.01 in of `p`.
+fn end_at(ends: [DVec2; 2], p: DVec2) -> DVec2 {
+    ends.into_iter().find(|e| e.distance(p) < 0.01).unwrap_or_else(|| panic!("no end at {p}"))
+}
+/// Seed 22846: a wing off a block, the block's east gable walls a hair
+/// out of square (0.07 degrees), the wing's ridge ending under that rake.
+#[rustfmt::skip]
+const SEED_22846: [WallRow; 13] = [
+    (0.0, 0.0, 1.3333333333333333, 4.0),
+    (1119.4933620165016, 0.0, 0.0, 19.0),
+    (1119.4037835751042, 50.38148326628132, 0.0, 11.0),
+    (1119.4933620165016, 92.16983220003036, 1.3333333333333333, 22.0),
+    (720.1395520076017, 92.16983220003036, 0.0, 11.0),
+    (719.947013008755, 254.18580659063838, 0.0, 13.0),
+    (720.1395520076017, 325.53526824876747, 1.3333333333333333, 16.0),
+    (661.0508922258966, 325.53526824876747, 1.3333333333333333, 1.0),
+    (621.25760778807, 325.4456673560644, 1.3333333333333333, 23.0),
+    (596.535597168733, 325.53526824876747, 1.3333333333333333, 19.0),
+    (505.39880153112347, 325.53526824876747, 1.3333333333333333, 5.0),
+    (0.0, 325.53526824876747, 1.3333333333333333, 17.0),
+    (0.0, 92.16983220003036, 1.3333333333333333, 10.0),
+];
+
+#[test]
+fn a_rake_a_hair_out_of_square_gets_a_rafter_flush_inside_it() {
+    let frame = framed(&SEED_22846, &[]);
+    // Read from the solve: the south plane's rake over the block's east
+    // gable runs from the wing's ridge end (720.194, 46.085) to the main
+    // ridge's end (720.056, 162.768), 0.07 degrees off the slope. The
+    // rafter on the 24 in layout at x = 720 (30 spaces from the corner at
+    // x = 0) ran its board 0.56 in over the wing ridge's end; a rafter is
+    // set flush inside the rake's innermost end instead, half a 1-1/2 in
+    // rafter in (default 2x, common practice, no source), and clears both
+    // ridges' ends.
+    let (main, wing) = (dvec2(720.056, 162.768), dvec2(720.194, 46.085));
+    let main_end = end_at(solved_ridge(&SEED_22846, &[], main, dvec2(661.234, 162.768)), main);
+    let wing_end = end_at(solved_ridge(&SEED_22846, &[], wing, dvec2(1119.411, 46.085)), wing);
+    let x = main_end.x.min(wing_end.x) - 0.75;
+    let at = |x0: f64| {
+        frame.pieces.iter().position(|p| p.kind == MemberKind::Common && (p.plan_line[0].x - x0).abs() < 1e-6)
+    };
+    assert!(at(720.0).is_none(), "no rafter on the layout line under the rake");
+    let rafter = at(x).unwrap_or_else(|| panic!("a rafter flush inside the rake at x = {x}"));
+    assert!(frame.pieces[rafter].plan_line[1].distance(dvec2(x, main_end.y)) < 1e-6);
+    assert_joints_of_fit(&frame, rafter);
+}
+
+/// Seed 148: a block round a courtyard, its south gable walls a hair out
+/// of line, a short ridge ending under the rake over them.
+#[rustfmt::skip]
+const SEED_148: [WallRow; 11] = [
+    (0.0, 567.2999685302617, 1.0, 6.0),
+    (415.1028415518428, 567.2999685302617, 0.9166666666666666, 4.0),
+    (415.1028415518428, 0.0, 0.4166666666666667, 18.0),
+    (270.5053758557519, 0.1758672751897749, 1.5, 1.0),
+    (138.36761385061428, 0.0, 0.25, 22.0),
+    (138.36761385061428, 94.54999475504363, 0.0, 10.0),
+    (91.4218319150921, 94.52337273421632, 0.0, 24.0),
+    (69.18380692530714, 94.54999475504363, 0.6666666666666666, 4.0),
+    (69.33932413850403, 63.86490310471821, 0.9166666666666666, 12.0),
+    (69.18380692530714, 0.0, 1.2243907874664939, 16.0),
+    (0.0, 0.0, 0.9229199362574266, 14.0),
+];
+
+#[rustfmt::skip]
+const SEED_148_COURTYARD: [WallRow; 4] = [
+    (172.15273307927177, 92.7651149799706, 1.268387177030937, 24.0),
+    (262.47667519420975, 92.7651149799706, 0.3333333333333333, 23.0),
+    (262.47667519420975, 181.21172991133884, 0.8244253477841411, 17.0),
+    (172.15273307927177, 181.21172991133884, 0.8333333333333334, 7.0),
+];
+
+#[test]
+fn a_rake_broken_at_a_wall_corner_gets_one_rafter_flush_inside_it_all() {
+    let frame = framed(&SEED_148, &[&SEED_148_COURTYARD]);
+    // Read from the solve: the courtyard's west plane rises west to the
+    // ridge ending at (81.686, 94.535); its south edge is the rake over
+    // two gable walls a hair out of line, from that end through the
+    // corner at y = 94.523 to the short ridge's end at (164.356, 94.565).
+    // Each stretch's own flush rafter, half a 1-1/2 in rafter inside it
+    // (default 2x, common practice, no source), would lie at y = 95.285
+    // and 95.315, 0.03 in apart; the one at 95.285 ran 0.03 in into the
+    // short ridge's end. The one furthest in is set.
+    let courtyards: [&[WallRow]; 1] = [&SEED_148_COURTYARD];
+    let (west, short) = (dvec2(81.686, 94.535), dvec2(164.356, 94.565));
+    let west_end = end_at(solved_ridge(&SEED_148, &courtyards, dvec2(81.686, 272.656), west), west);
+    let short_end = end_at(solved_ridge(&SEED_148, &courtyards, dvec2(164.356, 87.643), short), short);
+    let y = west_end.y.max(short_end.y) + 0.75;
+    let rafters: Vec<usize> = (0..frame.pieces.len())
+        .filter(|&i| {
+            let p = &frame.pieces[i];
+            p.kind == MemberKind::Common && (p.plan_line[0].y - y).abs() < 1.5 && p.plan_line[0].x > 170.0
+        })
+        .collect();
+    assert_eq!(rafters.len(), 1, "one rafter under the rake");
+    assert!(
+        (frame.pieces[rafters[0]].plan_line[0].y - y).abs() < 1e-6,
+        "flush inside the rake's innermost end"
+    );
+    assert_joints_of_fit(&frame, rafters[0]);
+}
