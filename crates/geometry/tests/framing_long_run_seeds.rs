@@ -3039,3 +3039,145 @@ fn a_rake_broken_at_a_wall_corner_gets_one_rafter_flush_inside_it_all() {
     );
     assert_joints_of_fit(&frame, rafters[0]);
 }
+
+/// Plan distance from `p` to the line through `a` and `b`.
+fn off_line(p: DVec2, [a, b]: [DVec2; 2]) -> f64 {
+    (p - a).perp_dot((b - a).normalize()).abs()
+}
+/// The valley whose top is `top` bears on a ridge there and on the
+/// passing member of `kind` its ridge's end is cut back to, and every
+/// joint of it fits, by the frame's check and by parry.
+fn assert_valley_top_cut_to_passing(frame: &Frame, top: DVec2, kind: MemberKind) {
+    let valley = piece_ending_at(frame, MemberKind::Valley, 1, top)
+        .unwrap_or_else(|| panic!("the valley up to {top}"));
+    let bears_on = |k: MemberKind| {
+        frame.joints.iter().any(|j| j.pieces[0] == valley && frame.pieces[j.pieces[1]].kind == k)
+    };
+    assert!(bears_on(MemberKind::Ridge), "the valley bears on the ridge");
+    assert!(bears_on(kind), "the valley bears on the {kind:?} passing by");
+    assert_joints_of_fit(frame, valley);
+}
+/// Seed 38662: a cross of wings round a courtyard, a hip passing a
+/// hair off the node where two valleys meet a ridge's end.
+#[rustfmt::skip]
+const SEED_38662: [WallRow; 12] = [
+    (0.0, 209.19982289627413, 1.3796046002971336, 14.0),
+    (64.38538461202918, 209.19982289627413, 0.4166666666666667, 20.0),
+    (64.38538461202918, 0.0, 0.5961194229959408, 14.0),
+    (328.6914218260506, 0.0, 1.5, 7.0),
+    (328.6914218260506, 209.19982289627413, 1.25, 0.0),
+    (446.8578305230929, 209.19982289627413, 0.6666666666666666, 16.0),
+    (446.8578305230929, 319.38316092313346, 0.5, 14.0),
+    (328.6914218260506, 319.38316092313346, 0.8616900506968173, 17.0),
+    (328.6914218260506, 511.56329881950364, 1.1666666666666667, 16.0),
+    (64.38538461202918, 511.56329881950364, 0.4166666666666667, 3.0),
+    (64.38538461202918, 319.38316092313346, 0.6666666666666666, 10.0),
+    (0.0, 319.38316092313346, 0.4166666666666667, 13.0),
+];
+
+#[rustfmt::skip]
+const SEED_38662_COURTYARD: [WallRow; 4] = [
+    (96.81973404515605, 95.38541379955348, 0.25764885036980595, 10.0),
+    (172.6119270547805, 95.38541379955348, 0.75, 9.0),
+    (172.6119270547805, 185.53948820250952, 0.8333333333333334, 17.0),
+    (96.81973404515605, 185.53948820250952, 1.4166666666666667, 17.0),
+];
+
+#[test]
+fn a_valley_top_is_cut_back_to_a_hip_its_ridges_end_is_cut_back_to() {
+    let frame = framed(&SEED_38662, &[&SEED_38662_COURTYARD]);
+    // Read from the solve: the ridge from (118.858, 245.097) ends east at
+    // (183.243, 245.097), where two valleys come up to it; the hip from
+    // (89.448, 198.071) to (242.544, 274.619) passes 0.11 in off that
+    // node, and the ridge's end is cut back to the hip's north side. The
+    // valley from (64.385, 209.200), cut only to the ridge's south side,
+    // ran on past where the ridge's end is cut away (0.22 in of gap, and
+    // its corner into the hip): it is cut to the hip's side too.
+    let courtyards: [&[WallRow]; 1] = [&SEED_38662_COURTYARD];
+    let east = dvec2(183.243, 245.097);
+    let node = end_at(solved_ridge(&SEED_38662, &courtyards, dvec2(118.858, 245.097), east), east);
+    let hip = solved_line(
+        &SEED_38662,
+        &courtyards,
+        RoofLineKind::Hip,
+        dvec2(89.448, 198.071),
+        dvec2(242.544, 274.619),
+    );
+    let off = off_line(node, hip);
+    assert!(off > 0.01 && off < 0.75, "the hip passes {off} in off the node");
+    assert_valley_top_cut_to_passing(&frame, node, MemberKind::Hip);
+}
+
+/// Seed 3808: a comb of wings off a long block, a hip passing 0.05 in off
+/// the node where a valley meets a ridge's end.
+#[rustfmt::skip]
+const SEED_3808: [WallRow; 32] = [
+    (0.0, 287.30617730089085, 0.8333333333333334, 10.0),
+    (0.0, 449.28109924558095, 1.5, 7.0),
+    (25.785806465698823, 449.281099245581, 1.5, 0.0),
+    (51.772151187430445, 449.281099245581, 1.5, 1.0),
+    (84.83242646913827, 449.28109924558095, 1.3333333333333333, 14.0),
+    (84.83242646913827, 407.95160252179517, 1.3333333333333333, 22.0),
+    (84.83242646913828, 329.90340131844647, 1.3333333333333333, 17.0),
+    (84.83242646913827, 287.30617730089085, 1.5, 0.0),
+    (118.7915330429849, 287.30617730089085, 1.5, 18.0),
+    (146.52377039785253, 287.30617730089085, 1.5, 6.0),
+    (169.66485293827654, 287.30617730089085, 0.3333333333333333, 1.0),
+    (169.66485293827654, 449.28109924558095, 0.3333333333333333, 10.0),
+    (204.41118948551684, 449.28109924558095, 0.3333333333333333, 22.0),
+    (225.91847307079425, 449.281099245581, 0.3333333333333333, 16.0),
+    (254.4972794074148, 449.28109924558095, 1.443773137662416, 11.0),
+    (254.4972794074148, 409.25268718150306, 1.443773137662416, 13.0),
+    (254.4972794074148, 356.1565992498612, 1.443773137662416, 12.0),
+    (254.4972794074148, 287.30617730089085, 1.5, 8.0),
+    (339.3297058765531, 287.30617730089085, 1.0, 3.0),
+    (339.3297058765531, 449.28109924558095, 1.0, 8.0),
+    (339.3297058765531, 523.1787220837751, 1.3333333333333333, 22.0),
+    (424.16213234569136, 523.1787220837751, 1.4166666666666667, 1.0),
+    (424.16213234569136, 287.30617730089085, 1.3333333333333333, 17.0),
+    (508.99455881482965, 287.30617730089085, 0.8333333333333334, 23.0),
+    (508.99455881482965, 0.0, 1.0833333333333333, 23.0),
+    (424.16213234569136, 0.0, 1.0833333333333333, 7.0),
+    (254.4972794074148, 0.0, 1.0833333333333333, 21.0),
+    (169.66485293827654, 0.0, 1.0833333333333333, 18.0),
+    (140.68778448865825, 0.0, 1.0833333333333333, 12.0),
+    (118.85913570880369, 0.0, 1.0833333333333333, 20.0),
+    (84.83242646913827, 0.0, 1.0833333333333333, 21.0),
+    (0.0, 0.0, 0.8333333333333334, 5.0),
+];
+
+#[test]
+fn a_valley_top_cut_back_to_a_backed_hip_reads_the_hip_as_one_board() {
+    let frame = framed(&SEED_3808, &[]);
+    // Read from the solve: the ridge from (302.973, 172.850) ends south at
+    // (302.973, 158.543), where the valley from (424.162, 287.306) comes
+    // up to it; the hip from (508.995, 0) to (292.125, 166.823) passes
+    // 0.05 in off that node, and the ridge's end and the valley's top are
+    // cut back to its north-east side. The hip is backed, its two halves
+    // two parts meeting on its centre line: the valley's top corner
+    // standing above the near half's backing runs into that half through
+    // its top, not across a gap, and on into the far half there, which is
+    // no way into the hip's wood (it read 0.75 in, the half's thickness).
+    let south = dvec2(302.973, 158.543);
+    let node = end_at(solved_ridge(&SEED_3808, &[], dvec2(302.973, 172.850), south), south);
+    let hip = solved_line(&SEED_3808, &[], RoofLineKind::Hip, dvec2(508.995, 0.0), dvec2(292.125, 166.823));
+    let off = off_line(node, hip);
+    assert!(off > 0.01 && off < 0.75, "the hip passes {off} in off the node");
+    let valley = piece_ending_at(&frame, MemberKind::Valley, 1, node)
+        .unwrap_or_else(|| panic!("the valley up to {node}"));
+    let on_hip: Vec<_> = frame
+        .joints
+        .iter()
+        .filter(|j| j.pieces[0] == valley && frame.pieces[j.pieces[1]].kind == MemberKind::Hip)
+        .collect();
+    assert_eq!(on_hip.len(), 1, "the valley bears on the hip passing by");
+    for j in frame.joints.iter().filter(|j| j.pieces[0] == valley) {
+        assert!(j.max_gap < FIT_IN && j.max_overlap < FIT_IN, "{j:?}");
+        // Parry's contact depth: the two do not run into each other. (Its
+        // rays from just inside the cheek's corners are not read here: the
+        // one by the top corner starts above the hip's backing and meets
+        // the hip through its top, 0.026 in on.)
+        let (_, overlap, _) = parry_fit::fit(&frame, j.pieces[0], j.pieces[1]);
+        assert!(overlap < FIT_IN, "{:?}: parry overlap {overlap}", j.members);
+    }
+}

@@ -1536,11 +1536,13 @@ impl Ctx<'_> {
         // is left: what starts there, a hip's foot, bears on it.)
         let across = if ridges.is_empty() { Vec::new() } else { self.ridges_across_short_lines(line.to) };
         let own: Vec<HalfSpace> = ridges.iter().map(|&(_, h)| h).collect();
+        let own_ridges: Vec<usize> = ridges.iter().map(|&(ri, _)| ri).collect();
         // Ridge bearings are resolved to pieces by the caller; a foot up on
         // the roof bears on what it was cut to there.
         let mut bearings: Vec<(Bearing, HalfSpace)> =
             ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
         let down = (line.from - line.to).normalize_or_zero();
+        self.clear_lines_cutting_ridge_ends(line.to, &own_ridges, &mut spec, &mut bearings, mid);
         if !across.is_empty() {
             self.clear_ridges_across_valley_top(&across, &own, &mut spec, &mut bearings, down, mid);
         }
@@ -1606,6 +1608,61 @@ impl Ctx<'_> {
             reach = reach.max((th / 2.0 + (tv / 2.0) * cos_a) / sin_a);
         }
         reach
+    }
+
+    /// Cuts a valley's top (`spec`, seated on the ridges `own` at its top
+    /// node `node`) back to the side of each hip or valley passing by that
+    /// the end of one of those ridges at the node is cut back to
+    /// ([`Ctx::ridge_end_clearances`]), where the top runs on past that
+    /// side, bearing on that member there. Past the side the ridge's end
+    /// is cut away: the top's cheek would face the ridge's cut end across a
+    /// gap, and its corner run into the member (seed 38662: a hip passing
+    /// 0.11 in from the node where two valleys meet a ridge's end left a
+    /// 0.22 in gap). `toward` is a point of the valley; only a face
+    /// keeping it, as it keeps the ridge, and one leaving the top a seat on
+    /// every ridge it is seated on, is cut to; nothing where a hip starts
+    /// at the node, its foot cut to the top's sides.
+    fn clear_lines_cutting_ridge_ends(
+        &self,
+        node: DVec2,
+        own: &[usize],
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        toward: DVec2,
+    ) {
+        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
+        // A hip starting at the node has its foot cut to the top's sides:
+        // the top keeps its length for it to bear on.
+        let feet_here =
+            self.lines.iter().zip(self.left_out).any(|(l, &left_out)| {
+                l.kind == RoofLineKind::Hip && !left_out && near(l.from) && !near(l.to)
+            });
+        if feet_here {
+            return;
+        }
+        let seats: Vec<HalfSpace> = spec.upper_cuts.clone();
+        for &ri in own {
+            let Some(ridge) = self.lines.get(ri) else { continue };
+            for (k, h, at_start) in self.ridge_end_clearances(ri, ridge) {
+                let end_node = if at_start { ridge.from } else { ridge.to };
+                let passing = self.lines.get(k).is_some_and(|l| l.kind != RoofLineKind::Ridge);
+                if !near(end_node) || !passing || h.distance(toward.extend(0.0)) > 0.0 {
+                    continue;
+                }
+                if !spec.solid().vertices().any(|v| h.distance(v) > OVERLAP_TOL_IN) {
+                    continue;
+                }
+                let cut = HalfSpace { tag: cut_tag(&h, &spec.frame), end: Some(CutEnd::Top), ..h };
+                let mut trial = spec.clone();
+                trial.upper_cuts.push(cut);
+                let trial_solid = trial.solid();
+                if !seats.iter().all(|o| face_area_on(&trial_solid, o) > SEAT_AREA_MIN_SQ_IN) {
+                    continue;
+                }
+                spec.upper_cuts.push(cut);
+                bearings.push((Bearing::Line(k), cut));
+            }
+        }
     }
 
     /// Cuts a valley's top (`spec`) to the ridges across a hip or valley

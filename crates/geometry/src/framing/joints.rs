@@ -131,7 +131,17 @@ pub fn check_fit(
                     // with one ridge's end, the corner of its face on that
                     // end, the other ridge's side beyond it).
                     let face_meets = chord(&part.planes, just_in, mating.normal, tol).is_some();
-                    (facing && face_meets && exit - enter > TOUCH_IN).then_some(enter)
+                    // Nor is a line entering one part of the bearing from
+                    // inside another (across the face two halves of a
+                    // seated hip share) entering its wood there: it went
+                    // into the wood before, through whatever face it met
+                    // first (a hip's backing, past which the corner stands
+                    // above the hip's top).
+                    let before = p + mating.normal * (enter - INSIDE_FACE_IN);
+                    let from_wood = near
+                        .iter()
+                        .any(|other| !std::ptr::eq(*other, *part) && other.depth_of(before) > TOUCH_IN);
+                    (facing && face_meets && !from_wood && exit - enter > TOUCH_IN).then_some(enter)
                 } else if exit >= -tol {
                     // The corner is inside the part: it overlaps by its
                     // depth there. The line's entry may lie far behind,
@@ -462,6 +472,59 @@ mod tests {
         assert!((fit.max_hang - 1.5).abs() < 1e-5, "hang {}", fit.max_hang);
         let fit = cut_from(-0.01);
         assert!((fit.max_gap - 0.5).abs() < 1e-5, "gap {}", fit.max_gap);
+    }
+
+    #[test]
+    fn a_line_crossing_from_one_part_of_the_bearing_into_the_next_is_no_gap() {
+        // A backed bearing board in two halves, x from -1.5 to 0, split on
+        // its centre line x = -0.75 and each half's top falling from 1.05
+        // there to 0.9 at its side (z = 0.9 - 0.2 x on the near half,
+        // z = 1.2 + 0.2 x on the far one), its bottom z = -1. A piece
+        // beside it (x 0 to 1.5, y 0 to 1, z -1 to 1) is cut to its side
+        // x = 0: its top corners stand 0.1 in above the near half's side.
+        // The line along -x from one runs into the near half through its
+        // top 0.5 in on (a face turned 79 degrees from it: no gap there)
+        // and on, inside that half, into the far one at the centre line
+        // 0.75 in on. That is no way into the board's wood: no gap, the
+        // lower corners on the side. With the near half gone the far
+        // half's face 0.75 in off is a gap. Derivation (seed 3808 of the
+        // long run: a valley's top cut to a backed hip's side read the
+        // half's 0.75 in thickness).
+        let half = |near: bool| {
+            let (lo, hi) = if near { (-0.75, 0.0) } else { (-1.5, -0.75) };
+            let top = if near {
+                (DVec3::new(0.0, 0.0, 0.9), DVec3::new(0.2, 0.0, 1.0))
+            } else {
+                (DVec3::new(-1.5, 0.0, 0.9), DVec3::new(-0.2, 0.0, 1.0))
+            };
+            ConvexPart::from_half_spaces(&planes_of(&[
+                (DVec3::new(hi, 0.0, 0.0), DVec3::X),
+                (DVec3::new(lo, 0.0, 0.0), -DVec3::X),
+                (DVec3::new(0.0, 2.0, 0.0), DVec3::Y),
+                (DVec3::new(0.0, -1.0, 0.0), -DVec3::Y),
+                top,
+                (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+            ]))
+        };
+        let mating = HalfSpace::through(DVec3::ZERO, -DVec3::X, FaceTag::Cheek, None);
+        let Some(mating) = mating else { panic!("the mating plane") };
+        let mut planes = planes_of(&[
+            (DVec3::new(1.5, 0.0, 0.0), DVec3::X),
+            (DVec3::new(0.0, 1.0, 0.0), DVec3::Y),
+            (DVec3::ZERO, -DVec3::Y),
+            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+        ]);
+        planes.push(mating);
+        let cut = solid(&planes);
+        let both = Solid { parts: [half(true), half(false)].into_iter().flatten().collect() };
+        assert_eq!(both.parts.len(), 2);
+        let fit = check_fit(&cut, &mating, &both, &part_bounds(&both), None);
+        assert!(fit.max_gap < 1e-5, "gap {}", fit.max_gap);
+        assert!(fit.max_overlap < 1e-5, "overlap {}", fit.max_overlap);
+        let far = Solid { parts: half(false).into_iter().collect() };
+        let fit = check_fit(&cut, &mating, &far, &part_bounds(&far), None);
+        assert!((fit.max_gap - 0.75).abs() < 1e-5, "gap {}", fit.max_gap);
     }
 
     #[test]
