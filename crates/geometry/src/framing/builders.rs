@@ -400,23 +400,32 @@ impl Ctx<'_> {
     }
 
     /// The other ends of the hips and valleys too short to cut (left out)
-    /// that start or end at `node`.
+    /// that start or end at `node`, and on through any further short lines
+    /// meeting those ends: the nodes that would be one with `node` were
+    /// the short lines not there (seed 3072 of the long run: two ridges
+    /// meeting at an L whose ends are joined through a node by two short
+    /// hips, 0.17 and 0.73 in).
     fn across_short_lines(&self, node: DVec2) -> Vec<DVec2> {
-        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
-        self.lines
-            .iter()
-            .zip(self.left_out)
-            .filter(|(_, left_out)| **left_out)
-            .filter_map(|(l, _)| {
-                if near(l.from) {
-                    Some(l.to)
-                } else if near(l.to) {
-                    Some(l.from)
+        let same = |a: DVec2, b: DVec2| a.distance(b) < PLAN_TOL_IN * 1e3;
+        let mut reached: Vec<DVec2> = vec![node];
+        let mut next = 0;
+        while let Some(&at) = reached.get(next) {
+            next += 1;
+            for (l, _) in self.lines.iter().zip(self.left_out).filter(|(_, left_out)| **left_out) {
+                let far = if same(l.from, at) {
+                    l.to
+                } else if same(l.to, at) {
+                    l.from
                 } else {
-                    None
+                    continue;
+                };
+                if !reached.iter().any(|&r| same(r, far)) {
+                    reached.push(far);
                 }
-            })
-            .collect()
+            }
+        }
+        reached.remove(0);
+        reached
     }
 
     /// Where ridge `li` ends at `node`, one end of a hip or valley too
@@ -1694,7 +1703,14 @@ impl Ctx<'_> {
         for &(k, node) in across {
             let Some(other) = self.lines.get(k) else { continue };
             let solid = spec.solid();
-            let runs_in = self.ridge_specs(k, other).iter().any(|r| runs_into(&solid, &r.solid()));
+            // The top can cross the other ridge's end with no corner of
+            // either inside the other (a valley's corner on that end's
+            // plane, the end cut back to its own ridge's side): read the
+            // wood the two share.
+            let runs_in = self.ridge_specs(k, other).iter().any(|r| {
+                let ridge = r.solid();
+                runs_into(&solid, &ridge) || share_wood(&solid, &ridge)
+            });
             if !runs_in {
                 continue;
             }
