@@ -3229,3 +3229,67 @@ fn ridges_meeting_across_two_left_out_hips_are_cut_to_each_other() {
     }
     assert_joints_of_fit(&frame, valley);
 }
+
+/// Seed 24280: a block with a wing north, whose ridges meet at a T, their
+/// ends joined by a hip too short to cut (0.30 in).
+#[rustfmt::skip]
+const SEED_24280: [WallRow; 18] = [
+    (0.0, 0.0, 0.16666666666666666, 15.0),
+    (763.3647210070538, 0.0, 1.034423206155582, 3.0),
+    (763.3647210070538, 101.01267827841686, 1.0, 10.0),
+    (572.5235407552904, 101.01267827841686, 1.0, 18.0),
+    (381.6823605035269, 101.01267827841686, 0.6666666666666666, 12.0),
+    (381.6823605035269, 305.65641946206966, 0.6666666666666666, 1.0),
+    (381.6823605035269, 542.270970499899, 1.25, 19.0),
+    (556.4818721557374, 542.270970499899, 1.25, 10.0),
+    (763.3647210070538, 542.270970499899, 0.16666666666666666, 4.0),
+    (763.3647210070538, 668.9813898349481, 0.28517554938314377, 6.0),
+    (763.3536058665865, 668.9925049754155, 1.0926441188653295, 16.0),
+    (572.5235407552904, 668.9925049754155, 1.0926441188653295, 5.0),
+    (190.84118025176346, 668.9925049754155, 0.9166666666666666, 12.0),
+    (190.84118025176346, 542.270970499899, 0.5833333333333334, 17.0),
+    (127.25312232206295, 542.270970499899, 0.5833333333333334, 21.0),
+    (127.23893910745088, 542.270970499899, 0.5833333333333334, 8.0),
+    (60.120151699181754, 542.270970499899, 0.5833333333333334, 14.0),
+    (0.0, 542.270970499899, 1.5, 7.0),
+];
+
+#[test]
+fn a_ridge_end_is_cut_back_to_a_king_past_a_jack_of_no_length() {
+    let frame = framed(&SEED_24280, &[]);
+    // Read from the solve: the ridge along x = 271.195 ends north at
+    // (271.195, 601.197), 0.18 in short of the line of the ridge along
+    // y = 601.376, whose hip end is at (271.439, 601.376), a hip too short
+    // to cut between the two ends. The end king of that hip end runs east
+    // along y = 601.376 to the other ridge's end, half a rafter past the
+    // node; the first ridge's end ran 0.24 in into it (and 0.57 in into
+    // the other ridge's side). It was left so for a valley jack on the
+    // layout at y = 600, 2.2 in long between centre lines but -0.1 in
+    // between the valley's side and the ridge's, a wedge of wood. The end
+    // is cut back to the king's side and the other ridge's, 0.75 in off
+    // their line (half a 1-1/2 in board, default 2x, common practice, no
+    // source), and bears on both.
+    let east = dvec2(271.439, 601.376);
+    let king_end = end_at(solved_ridge(&SEED_24280, &[], dvec2(320.079, 601.376), east), east);
+    let north = dvec2(271.195, 601.197);
+    let end = end_at(solved_ridge(&SEED_24280, &[], dvec2(271.195, 441.948), north), north);
+    let ridge = frame
+        .pieces
+        .iter()
+        .position(|p| p.kind == MemberKind::Ridge && p.plan_line.iter().any(|q| q.distance(end) < 0.01))
+        .unwrap_or_else(|| panic!("the ridge ending at {end}"));
+    let king = frame
+        .pieces
+        .iter()
+        .position(|p| {
+            p.kind == MemberKind::KingCommon
+                && p.plan_line[1].distance(king_end) < 0.01
+                && (p.plan_line[0].y - king_end.y).abs() < 1e-6
+        })
+        .unwrap_or_else(|| panic!("the end king"));
+    assert!(frame.joints.iter().any(|j| j.pieces == [ridge, king]), "the ridge's end bears on the king");
+    let top_y = frame.pieces[ridge].solid.vertices().map(|v| v.y).fold(f64::NEG_INFINITY, f64::max);
+    assert!((top_y - (king_end.y - 0.75)).abs() < 1e-6, "the end cut back to y = {}", king_end.y - 0.75);
+    assert_joints_of_fit(&frame, ridge);
+    assert_joints_of_fit(&frame, king);
+}

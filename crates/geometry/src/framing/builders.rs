@@ -689,15 +689,38 @@ impl Ctx<'_> {
             return false;
         }
         let half = self.settings.rafter.thickness_in / 2.0;
-        // A rafter line shorter in plan than a rafter is thick (a jack's
-        // stub between a valley and the ridge at a crowded node) is no
-        // board to keep a bearing for: its cheek finds no valley to land
-        // on and it is left out.
+        // A rafter whose centre line is shorter in plan than a rafter is
+        // thick between the sides of the lines it bears on (a jack's stub
+        // between a valley and the ridge at a crowded node) is no board to
+        // keep a bearing for: its cheek finds no valley to land on and it
+        // is left out, or it is a wedge of wood a tenth of an inch long
+        // (seed 24280 of the long run: a jack 2.2 in long between centre
+        // lines, -0.1 in between the faces, kept a ridge's end running
+        // 0.24 in into a king).
         self.rafters.iter().any(|r| {
             r.upper_edge == EdgeKind::Line(li)
-                && r.lower.distance(r.upper) >= 2.0 * half
+                && self.clear_run(r) >= 2.0 * half
                 && (r.upper - node).dot(-out_dir) - half < cut_back + OVERLAP_TOL_IN
         })
+    }
+
+    /// The plan length of rafter line `r`'s centre line between the side
+    /// faces of the roof lines at its ends (from the wall line at an eave),
+    /// each half that line's thickness off it, measured along the rafter.
+    fn clear_run(&self, r: &RafterLine) -> f64 {
+        let Some(up) = (r.upper - r.lower).try_normalize() else { return 0.0 };
+        let back = |edge: EdgeKind| {
+            let EdgeKind::Line(li) = edge else { return 0.0 };
+            let Some(line) = self.lines.get(li) else { return 0.0 };
+            let Some(dir) = (line.to - line.from).try_normalize() else { return 0.0 };
+            let t = match line.kind {
+                RoofLineKind::Ridge => self.settings.ridge.thickness_in,
+                RoofLineKind::Hip => self.settings.hip.thickness_in,
+                RoofLineKind::Valley => self.settings.valley.thickness_in,
+            };
+            t / 2.0 / up.perp_dot(dir).abs().max(1e-9)
+        };
+        r.lower.distance(r.upper) - back(r.lower_edge) - back(r.upper_edge)
     }
 
     /// The ridge's pieces, split so none is longer than the longest stock,
