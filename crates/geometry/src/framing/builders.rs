@@ -400,23 +400,32 @@ impl Ctx<'_> {
     }
 
     /// The other ends of the hips and valleys too short to cut (left out)
-    /// that start or end at `node`.
+    /// that start or end at `node`, and on through any further short lines
+    /// meeting those ends: the nodes that would be one with `node` were
+    /// the short lines not there (seed 3072 of the long run: two ridges
+    /// meeting at an L whose ends are joined through a node by two short
+    /// hips, 0.17 and 0.73 in).
     fn across_short_lines(&self, node: DVec2) -> Vec<DVec2> {
-        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
-        self.lines
-            .iter()
-            .zip(self.left_out)
-            .filter(|(_, left_out)| **left_out)
-            .filter_map(|(l, _)| {
-                if near(l.from) {
-                    Some(l.to)
-                } else if near(l.to) {
-                    Some(l.from)
+        let same = |a: DVec2, b: DVec2| a.distance(b) < PLAN_TOL_IN * 1e3;
+        let mut reached: Vec<DVec2> = vec![node];
+        let mut next = 0;
+        while let Some(&at) = reached.get(next) {
+            next += 1;
+            for (l, _) in self.lines.iter().zip(self.left_out).filter(|(_, left_out)| **left_out) {
+                let far = if same(l.from, at) {
+                    l.to
+                } else if same(l.to, at) {
+                    l.from
                 } else {
-                    None
+                    continue;
+                };
+                if !reached.iter().any(|&r| same(r, far)) {
+                    reached.push(far);
                 }
-            })
-            .collect()
+            }
+        }
+        reached.remove(0);
+        reached
     }
 
     /// Where ridge `li` ends at `node`, one end of a hip or valley too
@@ -680,15 +689,38 @@ impl Ctx<'_> {
             return false;
         }
         let half = self.settings.rafter.thickness_in / 2.0;
-        // A rafter line shorter in plan than a rafter is thick (a jack's
-        // stub between a valley and the ridge at a crowded node) is no
-        // board to keep a bearing for: its cheek finds no valley to land
-        // on and it is left out.
+        // A rafter whose centre line is shorter in plan than a rafter is
+        // thick between the sides of the lines it bears on (a jack's stub
+        // between a valley and the ridge at a crowded node) is no board to
+        // keep a bearing for: its cheek finds no valley to land on and it
+        // is left out, or it is a wedge of wood a tenth of an inch long
+        // (seed 24280 of the long run: a jack 2.2 in long between centre
+        // lines, -0.1 in between the faces, kept a ridge's end running
+        // 0.24 in into a king).
         self.rafters.iter().any(|r| {
             r.upper_edge == EdgeKind::Line(li)
-                && r.lower.distance(r.upper) >= 2.0 * half
+                && self.clear_run(r) >= 2.0 * half
                 && (r.upper - node).dot(-out_dir) - half < cut_back + OVERLAP_TOL_IN
         })
+    }
+
+    /// The plan length of rafter line `r`'s centre line between the side
+    /// faces of the roof lines at its ends (from the wall line at an eave),
+    /// each half that line's thickness off it, measured along the rafter.
+    fn clear_run(&self, r: &RafterLine) -> f64 {
+        let Some(up) = (r.upper - r.lower).try_normalize() else { return 0.0 };
+        let back = |edge: EdgeKind| {
+            let EdgeKind::Line(li) = edge else { return 0.0 };
+            let Some(line) = self.lines.get(li) else { return 0.0 };
+            let Some(dir) = (line.to - line.from).try_normalize() else { return 0.0 };
+            let t = match line.kind {
+                RoofLineKind::Ridge => self.settings.ridge.thickness_in,
+                RoofLineKind::Hip => self.settings.hip.thickness_in,
+                RoofLineKind::Valley => self.settings.valley.thickness_in,
+            };
+            t / 2.0 / up.perp_dot(dir).abs().max(1e-9)
+        };
+        r.lower.distance(r.upper) - back(r.lower_edge) - back(r.upper_edge)
     }
 
     /// The ridge's pieces, split so none is longer than the longest stock,
@@ -1536,11 +1568,13 @@ impl Ctx<'_> {
         // is left: what starts there, a hip's foot, bears on it.)
         let across = if ridges.is_empty() { Vec::new() } else { self.ridges_across_short_lines(line.to) };
         let own: Vec<HalfSpace> = ridges.iter().map(|&(_, h)| h).collect();
+        let own_ridges: Vec<usize> = ridges.iter().map(|&(ri, _)| ri).collect();
         // Ridge bearings are resolved to pieces by the caller; a foot up on
         // the roof bears on what it was cut to there.
         let mut bearings: Vec<(Bearing, HalfSpace)> =
             ridges.into_iter().map(|(ri, h)| (Bearing::Line(ri), h)).chain(foot_bearings).collect();
         let down = (line.from - line.to).normalize_or_zero();
+        self.clear_lines_cutting_ridge_ends(line.to, &own_ridges, &mut spec, &mut bearings, mid);
         if !across.is_empty() {
             self.clear_ridges_across_valley_top(&across, &own, &mut spec, &mut bearings, down, mid);
         }
@@ -1608,6 +1642,61 @@ impl Ctx<'_> {
         reach
     }
 
+    /// Cuts a valley's top (`spec`, seated on the ridges `own` at its top
+    /// node `node`) back to the side of each hip or valley passing by that
+    /// the end of one of those ridges at the node is cut back to
+    /// ([`Ctx::ridge_end_clearances`]), where the top runs on past that
+    /// side, bearing on that member there. Past the side the ridge's end
+    /// is cut away: the top's cheek would face the ridge's cut end across a
+    /// gap, and its corner run into the member (seed 38662: a hip passing
+    /// 0.11 in from the node where two valleys meet a ridge's end left a
+    /// 0.22 in gap). `toward` is a point of the valley; only a face
+    /// keeping it, as it keeps the ridge, and one leaving the top a seat on
+    /// every ridge it is seated on, is cut to; nothing where a hip starts
+    /// at the node, its foot cut to the top's sides.
+    fn clear_lines_cutting_ridge_ends(
+        &self,
+        node: DVec2,
+        own: &[usize],
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        toward: DVec2,
+    ) {
+        let near = |p: DVec2| p.distance(node) < PLAN_TOL_IN * 1e3;
+        // A hip starting at the node has its foot cut to the top's sides:
+        // the top keeps its length for it to bear on.
+        let feet_here =
+            self.lines.iter().zip(self.left_out).any(|(l, &left_out)| {
+                l.kind == RoofLineKind::Hip && !left_out && near(l.from) && !near(l.to)
+            });
+        if feet_here {
+            return;
+        }
+        let seats: Vec<HalfSpace> = spec.upper_cuts.clone();
+        for &ri in own {
+            let Some(ridge) = self.lines.get(ri) else { continue };
+            for (k, h, at_start) in self.ridge_end_clearances(ri, ridge) {
+                let end_node = if at_start { ridge.from } else { ridge.to };
+                let passing = self.lines.get(k).is_some_and(|l| l.kind != RoofLineKind::Ridge);
+                if !near(end_node) || !passing || h.distance(toward.extend(0.0)) > 0.0 {
+                    continue;
+                }
+                if !spec.solid().vertices().any(|v| h.distance(v) > OVERLAP_TOL_IN) {
+                    continue;
+                }
+                let cut = HalfSpace { tag: cut_tag(&h, &spec.frame), end: Some(CutEnd::Top), ..h };
+                let mut trial = spec.clone();
+                trial.upper_cuts.push(cut);
+                let trial_solid = trial.solid();
+                if !seats.iter().all(|o| face_area_on(&trial_solid, o) > SEAT_AREA_MIN_SQ_IN) {
+                    continue;
+                }
+                spec.upper_cuts.push(cut);
+                bearings.push((Bearing::Line(k), cut));
+            }
+        }
+    }
+
     /// Cuts a valley's top (`spec`) to the ridges across a hip or valley
     /// too short to cut at its node (`across`, each with the node where it
     /// is met) that its body would otherwise run into, as
@@ -1637,7 +1726,14 @@ impl Ctx<'_> {
         for &(k, node) in across {
             let Some(other) = self.lines.get(k) else { continue };
             let solid = spec.solid();
-            let runs_in = self.ridge_specs(k, other).iter().any(|r| runs_into(&solid, &r.solid()));
+            // The top can cross the other ridge's end with no corner of
+            // either inside the other (a valley's corner on that end's
+            // plane, the end cut back to its own ridge's side): read the
+            // wood the two share.
+            let runs_in = self.ridge_specs(k, other).iter().any(|r| {
+                let ridge = r.solid();
+                runs_into(&solid, &ridge) || share_wood(&solid, &ridge)
+            });
             if !runs_in {
                 continue;
             }

@@ -40,8 +40,11 @@ pub struct JointFit {
 /// (gap outside, overlap inside) where its foot lands on the bearing solid;
 /// a foot off the bearing solid is a hang, and so is one the line square to
 /// the mating face reaches only through a face of the bearing turned more
-/// than 60 degrees from it (past the bearing face's edge, beside another). Overlap also takes every corner
-/// of either solid found inside the other.
+/// than 60 degrees from it (past the bearing face's edge, beside another),
+/// and so is one whose line runs along a face of the bearing with the cut
+/// face beside the corner off the bearing (the two meet only along an
+/// edge). Overlap also takes every corner of either solid found inside the
+/// other.
 ///
 /// A corner above `bearing_top` (the bearing member's top through its
 /// centre line) that misses it is not a hang: the top planes of a valley's
@@ -70,11 +73,20 @@ pub fn check_fit(
     let near_depth =
         |p: glam::DVec3| near.iter().map(|part| part.depth_of(p)).fold(f64::NEG_INFINITY, f64::max);
     let mut fit = JointFit { max_gap: 0.0, max_overlap: 0.0, max_hang: 0.0 };
+    // Each corner of the cut face with a point of the face just in from
+    // it, toward the face's centre.
     let mating_corners = cut
         .faces()
         .filter(|f| f.normal.dot(mating.normal) > 1.0 - 1e-9 && mating.distance(f.vertices[0]).abs() < 1e-5)
-        .flat_map(|f| f.vertices.iter().copied());
-    for p in mating_corners {
+        .flat_map(|f| {
+            let centre = f.vertices.iter().copied().sum::<glam::DVec3>() / f.vertices.len().max(1) as f64;
+            f.vertices.iter().map(move |&p| {
+                let to_centre = centre - p;
+                let step = (to_centre.length() / 2.0).min(INSIDE_FACE_IN);
+                (p, p + to_centre.normalize_or_zero() * step)
+            })
+        });
+    for (p, just_in) in mating_corners {
         // Outward from the cut piece is toward the bearing piece: the
         // bearing face should be met right at the corner.
         // How far back the line runs inside the cut piece.
@@ -112,7 +124,24 @@ pub fn check_fit(
                     // the bottom has dropped to it, an inch on).
                     let facing = entering_plane(&part.planes, p, mating.normal, tol)
                         .is_some_and(|h| h.normal.dot(mating.normal) < -FACING_COS);
-                    (facing && exit - enter > TOUCH_IN).then_some(enter)
+                    // Nor does one running along a face of the part, the
+                    // corner on that face's plane, where the cut face
+                    // beside the corner lies off the part: the cut piece
+                    // meets the board only along that edge (a rafter flush
+                    // with one ridge's end, the corner of its face on that
+                    // end, the other ridge's side beyond it).
+                    let face_meets = chord(&part.planes, just_in, mating.normal, tol).is_some();
+                    // Nor is a line entering one part of the bearing from
+                    // inside another (across the face two halves of a
+                    // seated hip share) entering its wood there: it went
+                    // into the wood before, through whatever face it met
+                    // first (a hip's backing, past which the corner stands
+                    // above the hip's top).
+                    let before = p + mating.normal * (enter - INSIDE_FACE_IN);
+                    let from_wood = near
+                        .iter()
+                        .any(|other| !std::ptr::eq(*other, *part) && other.depth_of(before) > TOUCH_IN);
+                    (facing && face_meets && !from_wood && exit - enter > TOUCH_IN).then_some(enter)
                 } else if exit >= -tol {
                     // The corner is inside the part: it overlaps by its
                     // depth there. The line's entry may lie far behind,
@@ -201,6 +230,13 @@ fn depth_above(part: &ConvexPart, p: glam::DVec3, floor: f64, first: &mut usize)
 /// times the rounding of corners worked out from planes (common practice,
 /// no source).
 const TOUCH_IN: f64 = 1e-5;
+
+/// How far in from a corner of a cut face, toward the face's centre, the
+/// face is probed for whether it faces a bearing part at all, inches: ten
+/// times [`TOUCH_IN`], a hundred times the tolerance lines are traced with
+/// (so a face the line runs along within that tolerance is left), and far
+/// finer than any face a joint is cut to (common practice, no source).
+const INSIDE_FACE_IN: f64 = 1e-4;
 
 /// How far past the cut piece's box a bearing part may lie and still be
 /// checked, inches.
@@ -393,6 +429,102 @@ mod tests {
         assert!(fit.max_gap < 1e-5, "gap {}", fit.max_gap);
         assert!(fit.max_overlap < 1e-5, "overlap {}", fit.max_overlap);
         assert!((fit.max_hang - 1.5 / 2f64.sqrt()).abs() < 1e-5, "hang {}", fit.max_hang);
+    }
+
+    #[test]
+    fn a_face_meeting_a_board_only_along_its_end_reads_no_gap() {
+        // A bearing board ends at x = 0 (it lies at x <= 0, from its side
+        // y = 0.5 to y = 2, z -1 to 1). A piece from x = 0 to 1.5 is cut
+        // to y = 0, facing +y: its face lies beside the board's end, half
+        // an inch short of the board's side. The line along +y from its
+        // corner at x = 0 runs along the board's end face and enters the
+        // board at its side 0.5 in on, but the face meets the board only
+        // along that corner's edge: no gap, and the face's corners hang
+        // (the far ones 1.5 in off the board's end). Reaching
+        // 0.01 in past the end, the face does face the board's side, 0.5
+        // in off. Derivation (seed 21566 of the long run: a gable-end
+        // rafter flush with one ridge's end read 0.89 in of gap to the
+        // side of the ridge stepping on from that end).
+        let bearing = solid(&planes_of(&[
+            (DVec3::ZERO, DVec3::X),
+            (DVec3::new(-10.0, 0.0, 0.0), -DVec3::X),
+            (DVec3::new(0.0, 0.5, 0.0), -DVec3::Y),
+            (DVec3::new(0.0, 2.0, 0.0), DVec3::Y),
+            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+        ]));
+        let cut_from = |x0: f64| {
+            let mating = HalfSpace::through(DVec3::ZERO, DVec3::Y, FaceTag::Plumb, None);
+            let Some(mating) = mating else { panic!("the mating plane") };
+            let mut planes = planes_of(&[
+                (DVec3::new(x0, 0.0, 0.0), -DVec3::X),
+                (DVec3::new(1.5, 0.0, 0.0), DVec3::X),
+                (DVec3::new(0.0, -3.0, 0.0), -DVec3::Y),
+                (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+                (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+            ]);
+            planes.push(mating);
+            check_fit(&solid(&planes), &mating, &bearing, &part_bounds(&bearing), None)
+        };
+        let fit = cut_from(0.0);
+        assert!(fit.max_gap < 1e-5, "gap {}", fit.max_gap);
+        assert!(fit.max_overlap < 1e-5, "overlap {}", fit.max_overlap);
+        assert!((fit.max_hang - 1.5).abs() < 1e-5, "hang {}", fit.max_hang);
+        let fit = cut_from(-0.01);
+        assert!((fit.max_gap - 0.5).abs() < 1e-5, "gap {}", fit.max_gap);
+    }
+
+    #[test]
+    fn a_line_crossing_from_one_part_of_the_bearing_into_the_next_is_no_gap() {
+        // A backed bearing board in two halves, x from -1.5 to 0, split on
+        // its centre line x = -0.75 and each half's top falling from 1.05
+        // there to 0.9 at its side (z = 0.9 - 0.2 x on the near half,
+        // z = 1.2 + 0.2 x on the far one), its bottom z = -1. A piece
+        // beside it (x 0 to 1.5, y 0 to 1, z -1 to 1) is cut to its side
+        // x = 0: its top corners stand 0.1 in above the near half's side.
+        // The line along -x from one runs into the near half through its
+        // top 0.5 in on (a face turned 79 degrees from it: no gap there)
+        // and on, inside that half, into the far one at the centre line
+        // 0.75 in on. That is no way into the board's wood: no gap, the
+        // lower corners on the side. With the near half gone the far
+        // half's face 0.75 in off is a gap. Derivation (seed 3808 of the
+        // long run: a valley's top cut to a backed hip's side read the
+        // half's 0.75 in thickness).
+        let half = |near: bool| {
+            let (lo, hi) = if near { (-0.75, 0.0) } else { (-1.5, -0.75) };
+            let top = if near {
+                (DVec3::new(0.0, 0.0, 0.9), DVec3::new(0.2, 0.0, 1.0))
+            } else {
+                (DVec3::new(-1.5, 0.0, 0.9), DVec3::new(-0.2, 0.0, 1.0))
+            };
+            ConvexPart::from_half_spaces(&planes_of(&[
+                (DVec3::new(hi, 0.0, 0.0), DVec3::X),
+                (DVec3::new(lo, 0.0, 0.0), -DVec3::X),
+                (DVec3::new(0.0, 2.0, 0.0), DVec3::Y),
+                (DVec3::new(0.0, -1.0, 0.0), -DVec3::Y),
+                top,
+                (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+            ]))
+        };
+        let mating = HalfSpace::through(DVec3::ZERO, -DVec3::X, FaceTag::Cheek, None);
+        let Some(mating) = mating else { panic!("the mating plane") };
+        let mut planes = planes_of(&[
+            (DVec3::new(1.5, 0.0, 0.0), DVec3::X),
+            (DVec3::new(0.0, 1.0, 0.0), DVec3::Y),
+            (DVec3::ZERO, -DVec3::Y),
+            (DVec3::new(0.0, 0.0, 1.0), DVec3::Z),
+            (DVec3::new(0.0, 0.0, -1.0), -DVec3::Z),
+        ]);
+        planes.push(mating);
+        let cut = solid(&planes);
+        let both = Solid { parts: [half(true), half(false)].into_iter().flatten().collect() };
+        assert_eq!(both.parts.len(), 2);
+        let fit = check_fit(&cut, &mating, &both, &part_bounds(&both), None);
+        assert!(fit.max_gap < 1e-5, "gap {}", fit.max_gap);
+        assert!(fit.max_overlap < 1e-5, "overlap {}", fit.max_overlap);
+        let far = Solid { parts: half(false).into_iter().collect() };
+        let fit = check_fit(&cut, &mating, &far, &part_bounds(&far), None);
+        assert!((fit.max_gap - 0.75).abs() < 1e-5, "gap {}", fit.max_gap);
     }
 
     #[test]
