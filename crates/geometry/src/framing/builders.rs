@@ -1192,7 +1192,7 @@ impl Ctx<'_> {
             drop_in,
             plumb_square: hip_square(slope, pl, pr),
         };
-        if !seated && !foot_without_ridge {
+        if !seated {
             // A foot at one end of a hip or valley too short to cut is also
             // cut to the ridges at its other end, as if they met at one node.
             let across = self.ridges_across_short_lines(line.from);
@@ -1229,6 +1229,13 @@ impl Ctx<'_> {
             // With a king's cut taken off, the top may now run into the
             // ridge it stopped short of: cut to it where it does.
             self.clear_ridges_at_top(line, &mut spec, &mut bearings, -up_dir, mid);
+        }
+        // A top at one end of a hip too short to cut (left out) is also cut
+        // to the ridges at its other end wherever it would run into them,
+        // as a foot there is, as if they met at one node.
+        let across = self.ridges_across_short_lines(line.to);
+        if !across.is_empty() {
+            self.clear_ridges_at(&across, &mut spec, &mut bearings, -up_dir, mid, CutEnd::Top);
         }
         if self.at_left_out_ridge(line.to) {
             // At a node of a ridge left out beside another, the kings moved
