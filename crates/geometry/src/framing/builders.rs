@@ -1261,7 +1261,7 @@ impl Ctx<'_> {
     /// Cut to the first ridge's side alone, that part of the cheek stood
     /// off the next ridge's side by the step (seed 4164 of the long run:
     /// 0.58 in) or ran into it. Left unstepped where the stepped top would
-    /// run into either ridge.
+    /// run into either ridge or would not reach the next one's side.
     fn step_at_ridge_end(
         &self,
         line: &PlanLine,
@@ -1339,6 +1339,14 @@ impl Ctx<'_> {
                 let mut stepped = spec.clone();
                 stepped.upper_step = Some(step);
                 let cut = stepped.solid();
+                // A hip meeting the ridge at a slant may leave past the end
+                // only a wedge its side cuts off short of the next ridge:
+                // nothing there to bear on, so no step.
+                let bears_both =
+                    [&near, &step.far].iter().all(|h| face_area_on(&cut, h) > SEAT_AREA_MIN_SQ_IN);
+                if !bears_both {
+                    continue;
+                }
                 let into = [k, j].iter().any(|&r| {
                     self.lines.get(r).is_some_and(|l| {
                         self.ridge_specs(r, l).iter().any(|p| cut.runs_into(&p.solid(), OVERLAP_TOL_IN))
