@@ -648,6 +648,75 @@ fn card_cuts(
                     notes: cheek_notes(*deduction_in, top_mark, style),
                 });
             }
+            Cut::SteppedCheek {
+                end,
+                square,
+                face,
+                step,
+                long_point,
+                step_in,
+                step_from,
+                step_from_side_in,
+                deduction_in,
+                ..
+            } => {
+                let square = square_setting(
+                    *square,
+                    MarkAlong::Against,
+                    SquareUse::Plain,
+                    style,
+                    |against, figure, mark| {
+                        format!(
+                            "on the top edge hold {against} and {figure} on the same edge; mark along the {mark} \
+                             arm for the cheek line"
+                        )
+                    },
+                );
+                let mut square = square;
+                let top_mark = top.and_then(|top| {
+                    cheek_top_mark(
+                        top,
+                        *end != CutEnd::Tail && *end != CutEnd::Bottom,
+                        face.top_edge_angle_deg,
+                        &mut square,
+                        None,
+                        &mut used,
+                        style,
+                    )
+                });
+                let mut notes = cheek_notes(*deduction_in, top_mark.clone(), style);
+                let way = if *step_in >= 0.0 { "deeper" } else { "back" };
+                notes.push(format!(
+                    "stepped {} from the {} side along the cheek line: past the step the cheek is cut {} {way}, \
+                     square to it",
+                    length(*step_from_side_in),
+                    if *step_from == Hand::Left { "left" } else { "right" },
+                    length(step_in.abs())
+                ));
+                cuts.push(CardCut {
+                    face: CutFace::Cheek,
+                    place: format!(
+                        "{place}, stepped cheek, long point on the {}",
+                        if *long_point == Hand::Left { "left" } else { "right" }
+                    ),
+                    square: Some(square),
+                    settings: angle_settings(face),
+                    angles: Some(cut_angles(face)),
+                    mark: None,
+                    top_mark: top_mark.as_ref().map(|(mark, _)| *mark),
+                    notes,
+                });
+                cuts.push(CardCut {
+                    face: CutFace::Cheek,
+                    place: format!("{place}, the step of the stepped cheek"),
+                    square: None,
+                    settings: angle_settings(step),
+                    angles: Some(cut_angles(step)),
+                    mark: None,
+                    top_mark: None,
+                    notes: vec![format!("{} deep, square to the cheek", length(step_in.abs()))],
+                });
+            }
             Cut::DoubleCheek { end, left, right, deduction_in, .. } => {
                 for (hand, face) in [("left", left), ("right", right)] {
                     let square = face.top_edge_square.map(|square| {
@@ -828,7 +897,10 @@ fn card_cuts(
 /// One member's card, its views read off its first placed piece.
 pub fn member_card(member: &Member, pieces: &[PlacedPiece], style: LengthStyle) -> MemberCard {
     let mine: Vec<&PlacedPiece> = pieces.iter().filter(|piece| piece.label == member.label).collect();
-    let has_cheek = member.cuts.iter().any(|cut| matches!(cut, Cut::Cheek { .. } | Cut::DoubleCheek { .. }));
+    let has_cheek = member
+        .cuts
+        .iter()
+        .any(|cut| matches!(cut, Cut::Cheek { .. } | Cut::SteppedCheek { .. } | Cut::DoubleCheek { .. }));
     // A piece whose placement is not finite cannot be drawn; the views come
     // from the first one that can.
     let (side_view, top_view) = mine

@@ -2,7 +2,7 @@
 //! the picked member's lengths and cuts, and the colour legend.
 
 use egui::{Color32, RichText};
-use pitchframe_geometry::framing::{Cut, CutEnd, FramingWarning, MemberKind, SawKind};
+use pitchframe_geometry::framing::{Cut, CutEnd, FramingWarning, Hand, MemberKind, SawKind};
 use pitchframe_geometry::{Length, Member, Pitch, Plan, RafterTable};
 
 use super::derived::{Derived, WALL_HEIGHT_IN, WALL_THICKNESS_IN};
@@ -147,6 +147,16 @@ fn cut_text(units: DisplayUnits, cut: &Cut) -> String {
             "Cheek cut at the {at}: {} and {} across the top edge; saw on the face, bevel {face_bevel_deg:.1}°",
             figure(square[0]),
             figure(square[1])
+        ),
+        Cut::SteppedCheek { square, face, step_in, step_from, step_from_side_in, .. } => format!(
+            "Stepped cheek at the {at}: {} and {} across the top edge; saw on the face, bevel {:.1}°; \
+             stepped {} from the {} side, {} square to the cheek",
+            figure(square[0]),
+            figure(square[1]),
+            face.face_bevel_deg,
+            inches_text(units, *step_from_side_in),
+            if *step_from == Hand::Left { "left" } else { "right" },
+            inches_text(units, step_in.abs())
         ),
         Cut::DoubleCheek { left, right, .. } => format!(
             "Double cheek at the {at}: saw on the face, bevel {:.1}° left, {:.1}° right",

@@ -107,6 +107,10 @@ pub struct PieceSpec {
     pub top_planes: Vec<HalfSpace>,
     /// Cuts at the upper end (or a level member's far end).
     pub upper_cuts: Vec<HalfSpace>,
+    /// Where the top cut steps with the faces it bears on (a hip's top on
+    /// a ridge's side running on past its end, beside the next ridge's
+    /// side): none for most pieces.
+    pub upper_step: Option<TopStep>,
     /// Cuts at the lower end: tail and soffit, or a bottom cheek.
     pub lower_cuts: Vec<HalfSpace>,
     /// The wall(s) the member seats on: none, one, or one per half (left,
@@ -123,6 +127,29 @@ pub struct PieceSpec {
     pub plumb_square: [f64; 2],
 }
 
+/// A top cut in two steps: the face it bears on steps aside at a board's
+/// end (a ridge butted end to end by the next ridge, in line with it but
+/// less than its thickness aside), and the cut steps with it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct TopStep {
+    /// The cut on the near side of the step, one of the upper cuts.
+    pub near: HalfSpace,
+    /// The step's plane (the end the near face stops at), keeping the near
+    /// side: it cuts the step's own face where the cut runs on deeper.
+    pub at: HalfSpace,
+    /// The cut past the step, parallel to `near`.
+    pub far: HalfSpace,
+}
+
+impl TopStep {
+    /// The step's depth, inches: how far past the step the cut runs on
+    /// beyond `near`'s plane (negative where it stops short of it).
+    pub fn depth_in(&self) -> f64 {
+        // Parallel planes: far's offset less near's, along near's normal.
+        self.far.offset * self.far.normal.dot(self.near.normal) - self.near.offset
+    }
+}
+
 impl PieceSpec {
     /// Cuts the solid: the board less everything its cuts remove, split
     /// into convex parts at the seat.
@@ -132,6 +159,51 @@ impl PieceSpec {
 
     /// As [`PieceSpec::solid`], reusing `scratch` from piece to piece.
     pub fn solid_with(&self, scratch: &mut SolidScratch) -> Solid {
+        match &self.upper_step {
+            Some(step) => self.stepped_solid(step, scratch),
+            None => self.plain_solid(scratch),
+        }
+    }
+
+    /// The solid of a top cut in two steps: the board cut with the looser
+    /// of the two cuts (the one keeping more wood), each part then split at
+    /// the step's plane into the part cut to the tighter cut on its side,
+    /// the part beside it past the step as deep, and the strip between the
+    /// two cuts past the step, whose face on the step's plane is the step's
+    /// own face. The faces where parts meet are interior.
+    fn stepped_solid(&self, step: &TopStep, scratch: &mut SolidScratch) -> Solid {
+        let flip = |h: HalfSpace| HalfSpace { normal: -h.normal, offset: -h.offset, ..h };
+        let interior = |h: HalfSpace| HalfSpace { tag: FaceTag::Interior, end: None, ..h };
+        let near_side = step.at;
+        let far_side = flip(step.at);
+        let (tight, loose, tight_side, loose_side) = if step.depth_in() > 0.0 {
+            (step.near, step.far, near_side, far_side)
+        } else {
+            (step.far, step.near, far_side, near_side)
+        };
+        let mut plain = self.clone();
+        plain.upper_step = None;
+        for cut in &mut plain.upper_cuts {
+            if *cut == step.near {
+                *cut = loose;
+            }
+        }
+        let base = plain.plain_solid(scratch);
+        let mut parts = Vec::with_capacity(3 * base.parts.len());
+        for part in &base.parts {
+            let with = |extra: [HalfSpace; 2]| {
+                let planes: Vec<HalfSpace> = part.planes.iter().copied().chain(extra).collect();
+                ConvexPart::from_half_spaces(&planes)
+            };
+            parts.extend(with([interior(tight_side), tight]));
+            parts.extend(with([interior(loose_side), interior(tight)]));
+            parts.extend(with([loose_side, interior(flip(tight))]));
+        }
+        Solid { parts }
+    }
+
+    /// The solid of a piece with no step in its top cut.
+    fn plain_solid(&self, scratch: &mut SolidScratch) -> Solid {
         let SolidScratch { base, half, planes, corners: corner_lists, parts_scratch, faces } = scratch;
         base.clear();
         // Cuts first, so a cut flush with a board face keeps its tag.

@@ -813,6 +813,7 @@ impl Ctx<'_> {
                     slope: 0.0,
                     top_planes: Vec::new(),
                     upper_cuts,
+                    upper_step: None,
                     lower_cuts,
                     seat: Vec::new(),
                     has_tail: false,
@@ -922,6 +923,7 @@ impl Ctx<'_> {
             slope: p.slope,
             top_planes: Vec::new(),
             upper_cuts: std::iter::once(upper_cut).chain(also.map(|(_, h)| h)).collect(),
+            upper_step: None,
             lower_cuts,
             seat,
             has_tail,
@@ -1218,13 +1220,14 @@ impl Ctx<'_> {
             slope,
             top_planes,
             upper_cuts,
+            upper_step: None,
             lower_cuts,
             seat,
             has_tail,
             drop_in,
             plumb_square: hip_square(slope, pl, pr),
         };
-        if !seated && !foot_without_ridge {
+        if !seated {
             // A foot at one end of a hip or valley too short to cut is also
             // cut to the ridges at its other end, as if they met at one node.
             let across = self.ridges_across_short_lines(line.from);
@@ -1262,13 +1265,133 @@ impl Ctx<'_> {
             // ridge it stopped short of: cut to it where it does.
             self.clear_ridges_at_top(line, &mut spec, &mut bearings, -up_dir, mid);
         }
+        // A top at one end of a hip too short to cut (left out) is also cut
+        // to the ridges at its other end wherever it would run into them,
+        // as a foot there is, as if they met at one node.
+        let across = self.ridges_across_short_lines(line.to);
+        if !across.is_empty() {
+            self.clear_ridges_at(&across, &mut spec, &mut bearings, -up_dir, mid, CutEnd::Top);
+        }
         if self.at_left_out_ridge(line.to) {
             // At a node of a ridge left out beside another, the kings moved
             // onto the kept ridge, and the kept ridge's own kings, run on
             // past the node: the top is cut back to any it would run into.
             self.clear_kings_at(line.to, &mut spec, &mut bearings, mid, CutEnd::Top, rafter_piece);
         }
+        self.step_at_ridge_end(line, &mut spec, &mut bearings, mid);
         Some((spec, bearings, peak_without_ridge || foot_without_ridge))
+    }
+
+    /// Steps a hip's top (`spec`) where it is cut to the side of a ridge
+    /// ending at its top node and its cheek there runs on past the ridge's
+    /// end, beside the next ridge: one in line with the first, butted
+    /// against its end across a hip too short to cut (left out), its side
+    /// less than a ridge's thickness aside of the first one's. Past the
+    /// end the cheek is cut to the next ridge's side and bears on it, the
+    /// step's face on the end's plane. `toward` is a point of the hip.
+    ///
+    /// Cut to the first ridge's side alone, that part of the cheek stood
+    /// off the next ridge's side by the step (seed 4164 of the long run:
+    /// 0.58 in) or ran into it. Left unstepped where the stepped top would
+    /// run into either ridge or would not reach the next one's side.
+    fn step_at_ridge_end(
+        &self,
+        line: &PlanLine,
+        spec: &mut PieceSpec,
+        bearings: &mut Vec<(Bearing, HalfSpace)>,
+        toward: DVec2,
+    ) {
+        let across = self.ridges_across_short_lines(line.to);
+        if across.is_empty() || spec.upper_cuts.len() != 1 {
+            return;
+        }
+        let t = self.settings.ridge.thickness_in;
+        let near_node = |p: DVec2| p.distance(line.to) < PLAN_TOL_IN * 1e3;
+        let same = |a: &HalfSpace, b: &HalfSpace| {
+            a.normal.dot(b.normal) > 1.0 - 1e-12 && (a.offset - b.offset).abs() < 1e-9
+        };
+        for k in self.ridges_at(line.to) {
+            let Some(ridge) = self.lines.get(k) else { continue };
+            let Some(dir) = (ridge.to - ridge.from).try_normalize() else { continue };
+            let out = if near_node(ridge.from) {
+                -dir
+            } else if near_node(ridge.to) {
+                dir
+            } else {
+                continue;
+            };
+            let Some(side) = side_face(ridge.from, ridge.to, t, toward, FaceTag::Cheek, CutEnd::Top) else {
+                continue;
+            };
+            let Some(&near) = spec.upper_cuts.iter().find(|c| same(c, &side)) else { continue };
+            let end = line.to + out * self.ridge_end_offset(k, dir, line.to);
+            let Some(at) =
+                HalfSpace::through(end.extend(0.0), out.extend(0.0), FaceTag::Cheek, Some(CutEnd::Top))
+            else {
+                continue;
+            };
+            let solid = spec.solid();
+            let runs_past = solid
+                .faces()
+                .filter(|f| {
+                    f.normal.dot(near.normal) > 1.0 - 1e-9
+                        && f.vertices.first().is_some_and(|&v| near.distance(v).abs() < 1e-5)
+                })
+                .flat_map(|f| f.vertices.iter())
+                .any(|&v| at.distance(v) > OVERLAP_TOL_IN);
+            if !runs_past {
+                continue;
+            }
+            for &(j, far_node) in &across {
+                let Some(next) = self.lines.get(j) else { continue };
+                let Some(next_dir) = (next.to - next.from).try_normalize() else { continue };
+                // In line, and running on beyond the end.
+                let beyond = if next.from.distance(far_node) < next.to.distance(far_node) {
+                    next.to
+                } else {
+                    next.from
+                };
+                if next_dir.perp_dot(dir).abs() > 1e-6 || (beyond - line.to).dot(out) <= 0.0 {
+                    continue;
+                }
+                let Some(far) = side_face(next.from, next.to, t, toward, FaceTag::Cheek, CutEnd::Top) else {
+                    continue;
+                };
+                if far.normal.dot(near.normal) < 1.0 - 1e-9 {
+                    continue;
+                }
+                let step = super::board::TopStep {
+                    near,
+                    at: HalfSpace { tag: cut_tag(&at, &spec.frame), ..at },
+                    far: HalfSpace { tag: near.tag, ..far },
+                };
+                if !(step.depth_in().abs() > OVERLAP_TOL_IN && step.depth_in().abs() < t) {
+                    continue;
+                }
+                let mut stepped = spec.clone();
+                stepped.upper_step = Some(step);
+                let cut = stepped.solid();
+                // A hip meeting the ridge at a slant may leave past the end
+                // only a wedge its side cuts off short of the next ridge:
+                // nothing there to bear on, so no step.
+                let bears_both =
+                    [&near, &step.far].iter().all(|h| face_area_on(&cut, h) > SEAT_AREA_MIN_SQ_IN);
+                if !bears_both {
+                    continue;
+                }
+                let into = [k, j].iter().any(|&r| {
+                    self.lines.get(r).is_some_and(|l| {
+                        self.ridge_specs(r, l).iter().any(|p| cut.runs_into(&p.solid(), OVERLAP_TOL_IN))
+                    })
+                });
+                if into {
+                    continue;
+                }
+                *spec = stepped;
+                bearings.push((Bearing::Line(j), step.far));
+                return;
+            }
+        }
     }
 
     /// Takes off a hip's top each cut to a king's side (`king_cuts`, by
@@ -1556,6 +1679,7 @@ impl Ctx<'_> {
             slope,
             top_planes: Vec::new(),
             upper_cuts,
+            upper_step: None,
             lower_cuts,
             seat,
             has_tail,

@@ -23,6 +23,7 @@ pub fn piece_checks(label: &str, spec: &PieceSpec, m: &Measured, s: &FramingSett
         let faces: Vec<&super::CutFace> = match c {
             super::Cut::Plumb { face, .. } | super::Cut::Cheek { face, .. } => vec![face],
             super::Cut::DoubleCheek { left, right, .. } => vec![left, right],
+            super::Cut::SteppedCheek { face, step, .. } => vec![face, step],
             super::Cut::Tail { faces, .. } => faces.iter().collect(),
             _ => Vec::new(),
         };

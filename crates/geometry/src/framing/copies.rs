@@ -105,7 +105,7 @@ impl Shape {
     fn of(spec: &PieceSpec, mirror: bool) -> Self {
         let frame = &spec.frame;
         let capacity =
-            spec.upper_cuts.len() + spec.lower_cuts.len() + spec.top_planes.len() + 3 * spec.seat.len() + 1;
+            spec.upper_cuts.len() + spec.lower_cuts.len() + spec.top_planes.len() + 3 * spec.seat.len() + 4;
         let mut shape = Self {
             layout: Vec::with_capacity(capacity + 8),
             normals: Vec::with_capacity(capacity),
@@ -118,6 +118,12 @@ impl Shape {
             }
         };
         add_all(&mut shape, &spec.upper_cuts);
+        shape.layout.push(u32::from(spec.upper_step.is_some()));
+        if let Some(step) = &spec.upper_step {
+            for plane in [&step.near, &step.at, &step.far] {
+                shape.add(frame, plane, mirror);
+            }
+        }
         add_all(&mut shape, &spec.lower_cuts);
         add_all(&mut shape, &spec.top_planes);
         shape.layout.push(u32::from(spec.has_tail));

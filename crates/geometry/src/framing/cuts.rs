@@ -120,6 +120,38 @@ pub enum Cut {
         /// The same, in plan.
         plan_deduction_in: f64,
     },
+    /// A cheek cut in two steps, where the face it bears on steps aside at
+    /// a board's end (a hip's top on a ridge's side running on past the
+    /// ridge's end, beside the next ridge butted against it a little
+    /// aside): the cheek as a single cheek up to the step, and past it the
+    /// same cheek moved `step_in` square to itself, the step's own face
+    /// between the two.
+    SteppedCheek {
+        /// Which end.
+        end: CutEnd,
+        /// Square figure of the cheek's line across the top edge.
+        square: [f64; 2],
+        /// Which side the long point is on, looking up the member.
+        long_point: super::Hand,
+        /// The cheek's angles and saw setups (both steps).
+        face: CutFace,
+        /// The step's own face: its angles and saw setups.
+        step: CutFace,
+        /// How far past the step the cheek stands from its line before it,
+        /// square to the cheek, inches: deeper (toward what it bears on)
+        /// where positive, back where negative.
+        step_in: f64,
+        /// The side of the board the cheek's line before the step starts
+        /// at, looking up the member.
+        step_from: super::Hand,
+        /// From that side to the step, along the cheek's line across the
+        /// top edge (in plan), inches.
+        step_from_side_in: f64,
+        /// Shortening from the theoretical end along the top edge's centre.
+        deduction_in: f64,
+        /// The same, in plan.
+        plan_deduction_in: f64,
+    },
     /// Two cheek cuts meeting at a point (hip or valley tops, hip tails).
     DoubleCheek {
         /// Which end.
@@ -207,6 +239,7 @@ impl Cut {
         match self {
             Self::Plumb { end, .. }
             | Self::Cheek { end, .. }
+            | Self::SteppedCheek { end, .. }
             | Self::DoubleCheek { end, .. }
             | Self::Seat { end, .. }
             | Self::Tail { end, .. }

@@ -145,6 +145,11 @@ fn cut_numbers(cuts: &[super::Cut], out: &mut Vec<i64>) {
                 out.extend(face(f));
                 out.push(q(*deduction_in));
             }
+            Cut::SteppedCheek { face: f, step: g, step_in, step_from_side_in, deduction_in, .. } => {
+                out.extend(face(f));
+                out.extend(face(g));
+                out.extend([q(*step_in), q(*step_from_side_in), q(*deduction_in)]);
+            }
             Cut::DoubleCheek { left, right, deduction_in, .. } => {
                 out.extend(face(left));
                 out.extend(face(right));

@@ -84,12 +84,24 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
             .map(along)
             .fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), s| (lo.min(s), hi.max(s)))
     };
-    let (upper_lo, upper_hi) = extent(&spec.upper_cuts);
+    // A top cut in two steps ends at the step's faces too.
+    let upper_planes: Vec<HalfSpace> =
+        spec.upper_cuts.iter().copied().chain(spec.upper_step.iter().flat_map(|s| [s.at, s.far])).collect();
+    let (upper_lo, upper_hi) = extent(&upper_planes);
     let s_top = spec
         .upper_cuts
         .iter()
         .filter(|h| h.normal.dot(fr.along) > 1e-12)
-        .filter_map(|h| centre_line_hit(spec, h))
+        .filter_map(|h| {
+            let s = centre_line_hit(spec, h)?;
+            // Past a step, the centre line meets the cut beyond it.
+            match &spec.upper_step {
+                Some(step) if *h == step.near && step.at.distance(fr.origin + fr.along * s) > 0.0 => {
+                    centre_line_hit(spec, &step.far)
+                }
+                _ => Some(s),
+            }
+        })
         .fold(f64::INFINITY, f64::min);
     // A valley over an inside corner carries its tail cuts on each seat
     // half rather than as lower cuts; both end the member below.
@@ -134,15 +146,21 @@ pub fn measure(spec: &PieceSpec, solid: &Solid, settings: &FramingSettings) -> M
         // The upper end.
         let upper_faces = faces_of(solid, CutEnd::Top, &[FaceTag::Plumb, FaceTag::Cheek]);
         let (deduction_in, plan_deduction_in) = deduction_at(s_top, spec.plan_line[1]);
-        let (cut, cut_hand) = end_cut(
-            CutEnd::Top,
-            &upper_faces,
-            &top_vertices,
-            spec,
-            deduction_in,
-            plan_deduction_in,
-            &face_of,
-        );
+        let stepped = spec.upper_step.as_ref().and_then(|step| {
+            stepped_cheek(step, &upper_faces, &top_vertices, spec, deduction_in, plan_deduction_in, &face_of)
+        });
+        let (cut, cut_hand) = match stepped {
+            Some((cut, hand)) => (Some(cut), Some(hand)),
+            None => end_cut(
+                CutEnd::Top,
+                &upper_faces,
+                &top_vertices,
+                spec,
+                deduction_in,
+                plan_deduction_in,
+                &face_of,
+            ),
+        };
         cuts.extend(cut);
         hand = hand.or(cut_hand);
         if seated {
@@ -287,6 +305,61 @@ fn end_cut(
             (Some(cut), None)
         }
     }
+}
+
+/// A top cut in two steps ([`super::board::TopStep`]) read from the faces
+/// it left: the cheek, the step's face, how deep the step is and where it
+/// is along the cheek's line on the top edge; `None` where the solid kept
+/// no face on both sides of the step (the step then cut nothing).
+fn stepped_cheek(
+    step: &super::board::TopStep,
+    faces: &[&super::Face],
+    top_vertices: &[DVec3],
+    spec: &PieceSpec,
+    deduction_in: f64,
+    plan_deduction_in: f64,
+    face_of: &dyn Fn(DVec3) -> CutFace,
+) -> Option<(Cut, Hand)> {
+    let fr = &spec.frame;
+    let on = |h: &HalfSpace, f: &super::Face| {
+        f.normal.dot(h.normal) > 1.0 - 1e-9 && f.vertices.iter().all(|&v| h.distance(v).abs() < READ_TOL_IN)
+    };
+    if !faces.iter().any(|f| on(&step.near, f)) || !faces.iter().any(|f| on(&step.far, f)) {
+        return None;
+    }
+    let cheek_top: Vec<DVec3> = top_vertices
+        .iter()
+        .copied()
+        .filter(|&p| [&step.near, &step.far].iter().any(|h| h.distance(p).abs() < READ_TOL_IN))
+        .collect();
+    let long = cheek_top.iter().copied().max_by(|a, b| fr.along_of(*a).total_cmp(&fr.along_of(*b)))?;
+    let long_point = if (long - fr.origin).dot(fr.side) > 0.0 { Hand::Left } else { Hand::Right };
+    // The step's corner on the top edge, on the cheek's line before the
+    // step, and that line's other end, on the board's side.
+    let near_top: Vec<DVec3> =
+        top_vertices.iter().copied().filter(|&p| step.near.distance(p).abs() < READ_TOL_IN).collect();
+    let step_corner = near_top.iter().copied().find(|&p| step.at.distance(p).abs() < READ_TOL_IN)?;
+    let side_corner = near_top
+        .iter()
+        .copied()
+        .max_by(|a, b| a.distance(step_corner).total_cmp(&b.distance(step_corner)))?;
+    let step_from = if (side_corner - fr.origin).dot(fr.side) > 0.0 { Hand::Left } else { Hand::Right };
+    let face = face_of(step.near.normal);
+    // The step's face, read as a cut face either way round.
+    let step_face = face_of(step.at.normal);
+    let cut = Cut::SteppedCheek {
+        end: CutEnd::Top,
+        square: face.top_edge_square.unwrap_or([12.0, f64::INFINITY]),
+        long_point,
+        face,
+        step: step_face,
+        step_in: step.depth_in(),
+        step_from,
+        step_from_side_in: (step_corner - side_corner).truncate().length(),
+        deduction_in,
+        plan_deduction_in,
+    };
+    Some((cut, long_point))
 }
 
 /// The member's own square figures where `square` (12 and x) marks its
