@@ -4,6 +4,7 @@
 use glam::{DVec2, DVec3};
 
 use super::board::{BoardFrame, PieceSpec, SeatWall};
+use super::joints::{JOINT_FIT_IN, check_fit, part_bounds};
 use super::layout::{EdgeKind, King, PlanLine, RafterLine};
 use super::plane_frame::{PLAN_TOL_IN, PlaneFrame, distance_to_segment};
 use super::{
@@ -1577,17 +1578,33 @@ impl Ctx<'_> {
             let Some(other) = self.lines.get(k) else { continue };
             let solid = spec.solid();
             let ridges: Vec<_> = self.ridge_specs(k, other).iter().map(PieceSpec::solid).collect();
-            let runs_in = ridges.iter().any(|r| solid.runs_into(r, OVERLAP_TOL_IN));
-            if !runs_in {
+            let met: Vec<&Solid> = ridges.iter().filter(|r| solid.runs_into(r, OVERLAP_TOL_IN)).collect();
+            if met.is_empty() {
                 continue;
             }
             if let Some(mut h) = self.ridge_face_at(k, node, away, toward, end) {
                 h.tag = cut_tag(&h, &spec.frame);
+                let mut cut = spec.clone();
                 if end == CutEnd::Bottom {
-                    spec.lower_cuts.push(h);
+                    cut.lower_cuts.push(h);
                 } else {
-                    spec.upper_cuts.push(h);
+                    cut.upper_cuts.push(h);
                 }
+                // A top reaching the ridge only at a corner of its end, the
+                // end cut back across further short lines (seed 3072 of the
+                // long run: a hip in line with one ridge's end, another
+                // ridge's end cut back to that ridge's side 0.12 in past the
+                // node), is not cut to a face that is not there where the
+                // cheek would be: its bearing would read the gap.
+                let cut_solid = cut.solid();
+                let fits = met.iter().all(|r| {
+                    let fit = check_fit(&cut_solid, &h, r, &part_bounds(r), None);
+                    fit.max_gap < JOINT_FIT_IN && fit.max_overlap < JOINT_FIT_IN
+                });
+                if end == CutEnd::Top && !fits {
+                    continue;
+                }
+                *spec = cut;
                 bearings.push((Bearing::Line(k), h));
             }
         }
