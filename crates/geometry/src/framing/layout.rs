@@ -199,7 +199,6 @@ pub fn rafter_lines(
 
     // Gable-end rafters: flush inside each rake edge running up the slope.
     let mut taus_to_clip: Vec<f64> = Vec::new();
-    let mut gables: Vec<(f64, f64)> = Vec::new();
     for (i, edge) in edges.iter().enumerate() {
         if *edge != EdgeKind::Other {
             continue;
@@ -209,7 +208,7 @@ pub fn rafter_lines(
         let Some(dir) = (b - a).try_normalize() else {
             continue;
         };
-        if dir.dot(frame.along).abs() > RAKE_SQUARE_SIN_MAX {
+        if dir.dot(frame.along).abs() > 1e-9 {
             continue;
         }
         // A plane round a courtyard is one polygon whose outer ring and
@@ -233,34 +232,9 @@ pub fn rafter_lines(
         }
         let t_edge = tau(a);
         let inward = if (t_edge - tau_min).abs() < (t_edge - tau_max).abs() { 1.0 } else { -1.0 };
-        // Over a gable wall a hair out of square the rake runs a hair off
-        // the slope: the rafter is flush inside its innermost end, so its
-        // board stays inside the plane all the way up.
-        let innermost = if inward > 0.0 { tau(a).max(tau(b)) } else { tau(a).min(tau(b)) };
-        // Such a rake is only taken where the plane lies on the side the
-        // rafter is set: an edge a hair off the slope with the plane beyond
-        // it (a step between two ridges' ends, the plane carried on past
-        // the other) is left to the layout.
-        let square = dir.dot(frame.along).abs() <= 1e-9;
-        let beside = (a + b) / 2.0 + frame.along * (inward * thickness / 2.0);
-        if !square && !frame.contains(beside) {
-            continue;
-        }
-        gables.push((innermost + inward * thickness / 2.0, inward));
-    }
-    // A rake broken at a corner of walls a hair out of line is one rake:
-    // of its edges' rafters, less than a thickness apart, the one furthest
-    // in is set, clear of all of them (and of what lies past them).
-    for (k, &(t, inward)) in gables.iter().enumerate() {
-        let beaten = gables.iter().enumerate().any(|(j, &(u, other))| {
-            other == inward
-                && (u - t).abs() < thickness
-                && (inward * (u - t) > 1e-9 || (j < k && (u - t).abs() <= 1e-9))
-        });
-        if !beaten {
-            taus_to_clip.push(t);
-            reserved.push(t);
-        }
+        let t = t_edge + inward * thickness / 2.0;
+        taus_to_clip.push(t);
+        reserved.push(t);
     }
 
     // Near a wall's end, where a hip or valley starts, a rafter would run
@@ -316,14 +290,6 @@ pub fn rafter_lines(
     }
     out
 }
-
-/// A rake edge counts as running up the slope, and gets a gable-end rafter
-/// flush inside it, within 1 degree of the slope in plan (sine 0.0175): a
-/// gable wall drawn a hair out of square (seed 22846 of the long run: 0.07
-/// degrees) still ends its planes at a rake a framer sets a rafter under,
-/// where a rafter on the layout would run its board past the rake, over
-/// what lies beyond (common practice, no source).
-const RAKE_SQUARE_SIN_MAX: f64 = 0.017_452_406_437_283_51; // sin 1 degree
 
 /// Whether king `b` stands in for king `a` of the same plane (both square
 /// to its wall, `thickness` thick): `b`'s line passes `a`'s node less than
